@@ -1,0 +1,128 @@
+import { createCookie, createSessionStorage, type Session } from "react-router";
+import { getEnv } from "~/env.server";
+import type { JsonObject } from "~/db/schema";
+import { accountsDb } from "./accounts-db.server";
+import { randomToken, sha256Hex } from "./hashing.server";
+
+/** What a session may hold. `pendingEmail` is a verified address that has no account yet. */
+export interface SessionData {
+  userId?: string;
+  pendingEmail?: string;
+  /** Slug of the lab the user last switched to. */
+  labSlug?: string;
+  /** Where to go after signing in (a local path). */
+  returnTo?: string;
+}
+export interface SessionFlash {
+  notice: string;
+}
+export type AppSession = Session<SessionData, SessionFlash>;
+
+const THIRTY_DAYS = 60 * 60 * 24 * 30;
+
+let storage: ReturnType<typeof createStorage> | undefined;
+
+/**
+ * Sessions live in the database (table `sessions`); the cookie carries only a random id, signed
+ * with SESSION_SECRET. Deleting the row ends the session everywhere, whatever the browser keeps.
+ * The row is keyed by the SHA-256 of the id, so a copy of the table cannot be replayed as cookies.
+ */
+function createStorage() {
+  const env = getEnv();
+  const cookie = createCookie("stillpoint_session", {
+    httpOnly: true,
+    sameSite: "lax",
+    secure: env.secureCookies,
+    path: "/",
+    maxAge: THIRTY_DAYS,
+    secrets: [env.sessionSecret],
+  });
+  const expiry = (expires?: Date) => expires ?? new Date(Date.now() + THIRTY_DAYS * 1000);
+  const userIdOf = (data: object) => {
+    const v = (data as SessionData).userId;
+    return typeof v === "string" ? v : null;
+  };
+  return createSessionStorage<SessionData, SessionFlash>({
+    cookie,
+    async createData(data, expires) {
+      const id = randomToken();
+      await accountsDb()
+        .insertInto("sessions")
+        .values({ id_hash: sha256Hex(id), user_id: userIdOf(data), data: data as JsonObject, expires_at: expiry(expires) })
+        .execute();
+      return id;
+    },
+    async readData(id) {
+      const row = await accountsDb()
+        .selectFrom("sessions")
+        .select("data")
+        .where("id_hash", "=", sha256Hex(id))
+        .where("expires_at", ">", new Date())
+        .executeTakeFirst();
+      return (row?.data as never) ?? null;
+    },
+    // An upsert: a cookie whose row was deleted (signed out elsewhere) starts over as anonymous.
+    async updateData(id, data, expires) {
+      const values = { user_id: userIdOf(data), data: data as JsonObject, expires_at: expiry(expires) };
+      await accountsDb()
+        .insertInto("sessions")
+        .values({ id_hash: sha256Hex(id), ...values })
+        .onConflict((oc) => oc.column("id_hash").doUpdateSet(values))
+        .execute();
+    },
+    async deleteData(id) {
+      if (!id) return;
+      await accountsDb().deleteFrom("sessions").where("id_hash", "=", sha256Hex(id)).execute();
+    },
+  });
+}
+
+function sessionStorage() {
+  storage ??= createStorage();
+  return storage;
+}
+
+export function getSession(request: Request): Promise<AppSession> {
+  return sessionStorage().getSession(request.headers.get("Cookie"));
+}
+
+export function commitSession(session: AppSession): Promise<string> {
+  return sessionStorage().commitSession(session);
+}
+
+export function destroySession(session: AppSession): Promise<string> {
+  return sessionStorage().destroySession(session);
+}
+
+/**
+ * A brand-new session for a user who just proved their address, replacing (and deleting) the
+ * old one so that an id planted before sign-in never becomes an authenticated session.
+ */
+export async function rotateSession(old: AppSession, data: SessionData): Promise<string> {
+  if (old.id) await accountsDb().deleteFrom("sessions").where("id_hash", "=", sha256Hex(old.id)).execute();
+  await sweepExpiredSessions();
+  const fresh = await sessionStorage().getSession();
+  for (const [key, value] of Object.entries(data)) {
+    if (value !== undefined) fresh.set(key as keyof SessionData, value);
+  }
+  return commitSession(fresh);
+}
+
+/** Ends every session of a user (all browsers, including the current one). */
+export async function destroyAllSessionsOf(userId: string): Promise<number> {
+  const result = await accountsDb().deleteFrom("sessions").where("user_id", "=", userId).executeTakeFirst();
+  return Number(result.numDeletedRows);
+}
+
+/** Housekeeping: drop expired rows (run at every sign-in; the expiry index keeps it cheap). */
+export async function sweepExpiredSessions(): Promise<void> {
+  await accountsDb().deleteFrom("sessions").where("expires_at", "<=", new Date()).execute();
+}
+
+/** A local path only, so `returnTo` cannot send anyone to another site. */
+export function safeReturnTo(value: unknown, fallback = "/labs"): string {
+  if (typeof value !== "string" || !value.startsWith("/") || value.startsWith("//") || value.includes("\\")) {
+    return fallback;
+  }
+  return value;
+}

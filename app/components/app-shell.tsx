@@ -1,0 +1,87 @@
+import { Link, NavLink } from "react-router";
+import type { ShellUser } from "~/shell-user.server";
+
+/** Top-level sections; each links to its own route module. */
+export const NAV_ITEMS = [
+  { to: "/networks", label: "Networks" },
+  { to: "/analyses", label: "Analyses" },
+  { to: "/labs", label: "Labs" },
+] as const;
+
+export function AppShell({ user, children }: { user: ShellUser | null; children: React.ReactNode }) {
+  return (
+    <div className="flex min-h-screen flex-col">
+      <header className="border-b border-line bg-surface">
+        <div className="mx-auto flex max-w-page items-center gap-8 px-6 py-3">
+          <Link to="/" className="flex items-center gap-2 text-lg font-semibold tracking-tight text-ink">
+            <StillpointMark />
+            Stillpoint
+          </Link>
+          <nav aria-label="Main" className="flex gap-1 text-sm">
+            {NAV_ITEMS.map((item) => (
+              <NavLink
+                key={item.to}
+                to={item.to}
+                className={({ isActive }) =>
+                  `rounded-md px-3 py-1.5 ${isActive ? "bg-accent-soft text-accent-strong" : "text-muted hover:bg-sunken hover:text-ink"}`
+                }
+              >
+                {item.label}
+              </NavLink>
+            ))}
+          </nav>
+          <div className="ml-auto text-sm" data-testid="session-state">
+            {user ? (
+              <div className="flex items-center gap-4">
+                {user.activeLab && (
+                  <Link to={`/labs/${user.activeLab.slug}`} className="text-muted hover:text-ink" data-testid="active-lab" title="Working lab (switch under Labs)">
+                    {user.activeLab.name}
+                  </Link>
+                )}
+                <Link to="/account" className="flex items-center gap-2 text-muted hover:text-ink">
+                  <span className="grid size-7 place-items-center rounded-pill bg-accent-soft text-xs font-semibold text-accent-strong">
+                    {initials(user.displayName)}
+                  </span>
+                  {user.displayName}
+                </Link>
+              </div>
+            ) : (
+              <Link to="/sign-in" className="btn-quiet py-1.5">
+                Sign in
+              </Link>
+            )}
+          </div>
+        </div>
+      </header>
+      <main className="mx-auto w-full max-w-page flex-1 px-6 py-10">{children}</main>
+      <footer className="border-t border-line">
+        <div className="mx-auto max-w-page px-6 py-4 text-xs text-faint">
+          Stillpoint · exact analysis of mass-action reaction networks
+        </div>
+      </footer>
+    </div>
+  );
+}
+
+function initials(name: string) {
+  return name
+    .split(/\s+/)
+    .filter(Boolean)
+    .slice(0, 2)
+    .map((part) => part[0]!.toUpperCase())
+    .join("");
+}
+
+/** Two arrows meeting at a dot: forward and backward fluxes balancing at a steady state. */
+function StillpointMark() {
+  return (
+    <svg viewBox="0 0 24 24" className="size-6" aria-hidden="true">
+      <circle cx="12" cy="12" r="10.5" fill="none" stroke="var(--color-accent)" strokeWidth="1.5" />
+      <path d="M4.5 9.5h6" stroke="var(--color-accent)" strokeWidth="1.5" strokeLinecap="round" />
+      <path d="M8.5 7.5l2 2-2 2" fill="none" stroke="var(--color-accent)" strokeWidth="1.5" strokeLinecap="round" />
+      <path d="M19.5 14.5h-6" stroke="var(--color-ink)" strokeWidth="1.5" strokeLinecap="round" />
+      <path d="M15.5 12.5l-2 2 2 2" fill="none" stroke="var(--color-ink)" strokeWidth="1.5" strokeLinecap="round" />
+      <circle cx="12" cy="12" r="1.6" fill="var(--color-accent-strong)" />
+    </svg>
+  );
+}

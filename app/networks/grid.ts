@@ -1,0 +1,114 @@
+import Papa from "papaparse";
+import { NETWORK_COLUMNS, type NetworkColumn, type NetworkFileProblem, tryParseNetworkCsv } from "@domain/network/index";
+import { readCsvTable } from "@domain/network/csv-table";
+
+/**
+ * The editor's form grid and its round trip to our CSV format. Runs in the browser (preview)
+ * and on the server; validation is always the domain parser on the CSV the grid writes, so the
+ * browser and the server report the same problems. The grid writes the header on line 1 and
+ * grid row i on line i + 2, which is how problems are mapped back to rows.
+ */
+
+export type GridCells = Record<NetworkColumn, string>;
+export interface GridRow extends GridCells {
+  /** Stable React key. */
+  key: string;
+  /** Line in the uploaded file this row came from, if any. */
+  sourceLine?: number;
+}
+
+/** Largest network file accepted, in bytes (browser and server). */
+export const MAX_CSV_BYTES = 256 * 1024;
+export const MAX_CSV_LABEL = "256 KB";
+
+let counter = 0;
+const nextKey = () => `r${Date.now().toString(36)}${(counter++).toString(36)}`;
+
+export function emptyRow(): GridRow {
+  return { key: nextKey(), reaction: "", label: "", rate: "", reverse_rate: "", rate_value: "", reverse_rate_value: "" };
+}
+
+/** Cells are single-line inputs; a pasted newline would shift every later line number. */
+const oneLine = (s: string) => s.replace(/[\r\n]+/g, " ").trim();
+
+/** CSV text of the grid: header with the columns in use (always `reaction`), one line per row. */
+export function gridToCsv(rows: readonly GridCells[]): string {
+  const used = NETWORK_COLUMNS.filter((c) => c === "reaction" || rows.some((r) => oneLine(r[c]) !== ""));
+  const data = rows.map((r) => used.map((c) => oneLine(r[c])));
+  return Papa.unparse({ fields: [...used], data }, { newline: "\n" }) + "\n";
+}
+
+export interface LoadedGrid {
+  rows: GridRow[];
+  /** Things the grid could not keep (unknown columns, unreadable header), in plain words. */
+  notices: string[];
+}
+
+/**
+ * Reads a file's text into grid rows, keeping each row's line in the file. Unknown columns are
+ * left out with a notice; bad cells are kept as written so the person can fix them in the grid.
+ */
+export function csvToGrid(text: string): LoadedGrid {
+  const table = readCsvTable(text);
+  const notices: string[] = [];
+  if (!table.header) return { rows: [emptyRow()], notices: ["The file is empty: start typing reactions below."] };
+  const columnOf = new Map<number, NetworkColumn>();
+  table.header.cells.forEach((cell, j) => {
+    const name = cell.toLowerCase();
+    if ((NETWORK_COLUMNS as readonly string[]).includes(name) && ![...columnOf.values()].includes(name as NetworkColumn)) {
+      columnOf.set(j, name as NetworkColumn);
+    } else if (cell !== "") {
+      notices.push(`Column \`${cell}\` (line ${table.header!.line}, column ${j + 1}) is not one of ${NETWORK_COLUMNS.join(", ")}; it was left out.`);
+    }
+  });
+  let rowsIn = table.rows;
+  if (![...columnOf.values()].includes("reaction")) {
+    // No usable header: read every line (the first included) as reaction text in column 1.
+    notices.push(`Line ${table.header.line} is not a header naming a \`reaction\` column; every line was read as a reaction in the first column.`);
+    columnOf.clear();
+    columnOf.set(0, "reaction");
+    rowsIn = [table.header, ...table.rows];
+  }
+  const rows = rowsIn.map((line) => {
+    const row: GridRow = { ...emptyRow(), sourceLine: line.line };
+    for (const [j, c] of columnOf) row[c] = line.cells[j] ?? "";
+    return row;
+  });
+  for (const p of table.problems) notices.push(`Line ${p.row}: ${p.message}.`);
+  return { rows: rows.length > 0 ? rows : [emptyRow()], notices };
+}
+
+export interface GridCheck {
+  ok: boolean;
+  csv: string;
+  /** Problems of the header or the whole table (not tied to one row). */
+  general: NetworkFileProblem[];
+  /** Problems per grid row index. */
+  byRow: Map<number, NetworkFileProblem[]>;
+  count: number;
+}
+
+/** Validates the grid with the domain parser and maps each problem to its grid row. */
+export function checkGrid(rows: readonly GridCells[]): GridCheck {
+  const csv = gridToCsv(rows);
+  const result = tryParseNetworkCsv(csv);
+  const general: NetworkFileProblem[] = [];
+  const byRow = new Map<number, NetworkFileProblem[]>();
+  if (!result.ok) {
+    for (const p of result.problems) {
+      const index = p.row - 2;
+      if (index >= 0 && index < rows.length) byRow.set(index, [...(byRow.get(index) ?? []), p]);
+      else general.push(p);
+    }
+  }
+  return { ok: result.ok, csv, general, byRow, count: result.ok ? 0 : result.problems.length };
+}
+
+/** Moves row `from` to `to` (both indexes into the same array); returns a new array. */
+export function moveRow<T>(rows: readonly T[], from: number, to: number): T[] {
+  if (to < 0 || to >= rows.length || from === to) return [...rows];
+  const next = [...rows];
+  const [row] = next.splice(from, 1);
+  next.splice(to, 0, row!);
+  return next;
+}

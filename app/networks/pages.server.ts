@@ -1,0 +1,128 @@
+/**
+ * What the network pages and the JSON API load and do, after the route has checked permissions.
+ * Route modules stay short: authenticate → parse → authorize → call one of these → respond.
+ */
+import type { Kysely } from "kysely";
+import type { NetworkStructure } from "@domain/network/index";
+import type { Database } from "~/db/schema";
+import type { LabAccess } from "~/permissions/permissions.server";
+import { hasRole } from "~/permissions/roles";
+import { diffNetworks, type NetworkDiff } from "./diff";
+import { findNetwork, findVersion, latestVersion, listNetworks, listVersions, type NetworkRecord, type VersionRecord } from "./networks.server";
+import { structureOf, summaryOf } from "./structure.server";
+import type { NetworkTableRow } from "./ui/network-table";
+
+export const networkPath = (labSlug: string, networkId: string) => `/labs/${labSlug}/networks/${networkId}`;
+
+/** JSON-safe forms, shared by pages and API. */
+export function networkJson(n: NetworkRecord) {
+  return {
+    id: n.id,
+    name: n.name,
+    description: n.description,
+    tags: n.tags,
+    archived: n.archivedAt !== null,
+    archivedAt: n.archivedAt?.toISOString() ?? null,
+    createdAt: n.createdAt.toISOString(),
+    updatedAt: n.updatedAt.toISOString(),
+  };
+}
+
+export function versionJson(v: VersionRecord, options: { csv?: boolean } = {}) {
+  return {
+    number: v.number,
+    contentHash: v.contentHash,
+    changeNote: v.changeNote,
+    author: v.authorName,
+    createdAt: v.createdAt.toISOString(),
+    ...(options.csv ? { csv: v.csv } : {}),
+  };
+}
+
+export type NetworkJson = ReturnType<typeof networkJson>;
+export type VersionJson = ReturnType<typeof versionJson>;
+
+export async function networkTableRows(db: Kysely<Database>, access: LabAccess, includeArchived: boolean): Promise<NetworkTableRow[]> {
+  const entries = await listNetworks(db, access.lab.id, { includeArchived });
+  return entries.map((n) => {
+    const summary = summaryOf(n.latest.csv);
+    return {
+      id: n.id,
+      name: n.name,
+      href: networkPath(access.lab.slug, n.id),
+      tags: n.tags,
+      archived: n.archivedAt !== null,
+      species: summary.species,
+      speciesCount: summary.speciesCount,
+      reactionCount: summary.reactionCount,
+      deficiency: summary.deficiency,
+      lastChange: n.latest.createdAt.toISOString(),
+      author: n.latest.authorName ?? "(former member)",
+      version: n.latest.number,
+    };
+  });
+}
+
+/** The network, or a thrown 404 (also for ids of other labs: no existence leak). */
+export async function requireNetwork(db: Kysely<Database>, access: LabAccess, networkId: string | undefined, api = false): Promise<NetworkRecord> {
+  const network = await findNetwork(db, access.lab.id, networkId);
+  if (!network) {
+    if (api) {
+      const { apiError } = await import("~/permissions/api-errors");
+      throw apiError("not_found", "No such network in this lab.");
+    }
+    throw new Response("Not found", { status: 404, statusText: "Not Found" });
+  }
+  return network;
+}
+
+/** `?v=3` or the newest version; a missing number is a 404. */
+export async function requireVersion(db: Kysely<Database>, network: NetworkRecord, raw: string | null | undefined, api = false): Promise<VersionRecord> {
+  const version = raw == null || raw === "" ? await latestVersion(db, network.id) : await findVersion(db, network.id, Number(raw));
+  if (!version) {
+    if (api) {
+      const { apiError } = await import("~/permissions/api-errors");
+      throw apiError("not_found", `Version ${raw} of this network does not exist.`);
+    }
+    throw new Response(`No version ${raw}`, { status: 404, statusText: "Not Found" });
+  }
+  return version;
+}
+
+export interface NetworkPageData {
+  lab: { slug: string; name: string };
+  network: NetworkJson;
+  version: VersionJson;
+  latestNumber: number;
+  versions: VersionJson[];
+  structure: NetworkStructure;
+  canEdit: boolean;
+  canDelete: boolean;
+}
+
+export async function networkPageData(db: Kysely<Database>, access: LabAccess, network: NetworkRecord, versionParam: string | null): Promise<NetworkPageData> {
+  const version = await requireVersion(db, network, versionParam);
+  const versions = await listVersions(db, network.id);
+  return {
+    lab: { slug: access.lab.slug, name: access.lab.name },
+    network: networkJson(network),
+    version: versionJson(version),
+    latestNumber: versions[0]!.number,
+    versions: versions.map((v) => versionJson(v)),
+    structure: structureOf(version.csv),
+    canEdit: hasRole(access.role, "editor"),
+    canDelete: hasRole(access.role, "owner"),
+  };
+}
+
+export interface VersionDiffData {
+  from: VersionJson;
+  to: VersionJson;
+  diff: NetworkDiff;
+}
+
+export async function versionDiff(db: Kysely<Database>, network: NetworkRecord, from: VersionRecord, to: VersionRecord): Promise<VersionDiffData> {
+  void db;
+  void network;
+  return { from: versionJson(from), to: versionJson(to), diff: diffNetworks(structureOf(from.csv), structureOf(to.csv)) };
+}

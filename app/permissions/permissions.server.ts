@@ -1,0 +1,133 @@
+import { redirect } from "react-router";
+import { db } from "~/db.server";
+import type { LabRole } from "~/db/schema";
+import { getSession } from "~/auth/session.server";
+import { findUserById, type CurrentUser } from "~/auth/users.server";
+import { findUserIdByApiToken } from "~/account/api-tokens.server";
+import { findLabWithRole, listLabsOf } from "~/labs/labs.server";
+import { apiError } from "./api-errors";
+import { hasRole } from "./roles";
+
+/**
+ * The one place that decides who may do what. Every loader, action and API route calls one of
+ * the `require*` functions first; they either return who is asking or throw the response to send:
+ *
+ *   page routes:  not signed in → 302 to /sign-in?returnTo=…; not a member → 404; too low a role → 403
+ *   API routes:   no or bad credentials → 401 JSON; not a member → 404 JSON; too low a role → 403 JSON
+ *
+ * A lab the caller does not belong to answers exactly like a lab that does not exist, so slugs
+ * cannot be probed. Site administrators get the admin lists, not other labs' contents.
+ */
+
+export interface LabAccess {
+  user: CurrentUser;
+  lab: { id: string; slug: string; name: string };
+  role: LabRole;
+}
+
+/** The signed-in user from the session cookie, or null. Never throws for anonymous visitors. */
+export async function getOptionalUser(request: Request): Promise<CurrentUser | null> {
+  const session = await getSession(request);
+  const userId = session.get("userId");
+  if (!userId) return null;
+  return (await findUserById(db(), userId)) ?? null;
+}
+
+function signInRedirect(request: Request): Response {
+  const url = new URL(request.url);
+  // After a refused POST, come back to the page rather than replaying the form.
+  const returnTo = url.pathname + (request.method === "GET" ? url.search : "");
+  return redirect(`/sign-in?returnTo=${encodeURIComponent(returnTo)}`);
+}
+
+const notFound = () => new Response("Not found", { status: 404, statusText: "Not Found" });
+const forbidden = (message: string) => new Response(message, { status: 403, statusText: "Forbidden" });
+
+export async function requireUser(request: Request): Promise<CurrentUser> {
+  const user = await getOptionalUser(request);
+  if (!user) throw signInRedirect(request);
+  return user;
+}
+
+export async function requireSiteAdmin(request: Request): Promise<CurrentUser> {
+  const user = await requireUser(request);
+  if (!user.isSiteAdmin) throw forbidden("Only site administrators can see this page.");
+  return user;
+}
+
+async function labAccess(user: CurrentUser, labSlug: string | undefined, minRole: LabRole) {
+  const row = labSlug ? await findLabWithRole(db(), labSlug, user.id) : undefined;
+  if (!row || !row.role) return { outcome: "not_found" as const };
+  if (!hasRole(row.role, minRole)) return { outcome: "forbidden" as const, role: row.role };
+  const access: LabAccess = { user, lab: { id: row.id, slug: row.slug, name: row.name }, role: row.role };
+  return { outcome: "ok" as const, access };
+}
+
+export async function requireLabRole(request: Request, labSlug: string | undefined, minRole: LabRole): Promise<LabAccess> {
+  const user = await requireUser(request);
+  const result = await labAccess(user, labSlug, minRole);
+  if (result.outcome === "not_found") throw notFound();
+  if (result.outcome === "forbidden") throw forbidden(`This needs the ${minRole} role; you are ${article(result.role)} ${result.role} here.`);
+  return result.access;
+}
+
+/**
+ * The caller of a JSON API route: `Authorization: Bearer <personal token>` if the header is
+ * present (a bad token is refused, never silently replaced by the cookie), else the session cookie.
+ */
+export async function requireApiUser(request: Request): Promise<CurrentUser> {
+  const header = request.headers.get("authorization");
+  if (header !== null) {
+    const match = /^Bearer\s+(\S+)\s*$/i.exec(header);
+    const userId = match ? await findUserIdByApiToken(db(), match[1]!) : undefined;
+    const user = userId ? await findUserById(db(), userId) : undefined;
+    if (!user) throw apiError("invalid_token", "The API token is missing, malformed, expired or revoked.");
+    return user;
+  }
+  const user = await getOptionalUser(request);
+  if (!user) throw apiError("unauthenticated", "Sign in or send a personal API token as `Authorization: Bearer <token>`.");
+  return user;
+}
+
+export async function requireApiLabRole(request: Request, labSlug: string | undefined, minRole: LabRole): Promise<LabAccess> {
+  const user = await requireApiUser(request);
+  const result = await labAccess(user, labSlug, minRole);
+  if (result.outcome === "not_found") throw apiError("not_found", "No such lab.");
+  if (result.outcome === "forbidden") {
+    throw apiError("forbidden", `This needs the ${minRole} role in the lab.`, { role: result.role, required: minRole });
+  }
+  return result.access;
+}
+
+export async function requireApiSiteAdmin(request: Request): Promise<CurrentUser> {
+  const user = await requireApiUser(request);
+  if (!user.isSiteAdmin) throw apiError("forbidden", "Only site administrators can do this.");
+  return user;
+}
+
+const article = (role: LabRole) => (role === "viewer" ? "a" : "an");
+
+/**
+ * For routes whose actions need different roles per intent: after `requireLabRole(…, "viewer")`
+ * and parsing the intent, refuse (403) when the caller's role is too low.
+ */
+export function assertLabRole(access: LabAccess, minRole: LabRole, api = false): void {
+  if (hasRole(access.role, minRole)) return;
+  if (api) throw apiError("forbidden", `This needs the ${minRole} role in the lab.`, { role: access.role, required: minRole });
+  throw forbidden(`This needs the ${minRole} role; you are ${article(access.role)} ${access.role} here.`);
+}
+
+/**
+ * The lab the user is working in (the one they last switched to, else their first) with at least
+ * `minRole`; for pages without a lab in the URL. No lab at all → redirect to /labs to create one.
+ */
+export async function requireActiveLabRole(request: Request, minRole: LabRole): Promise<LabAccess> {
+  const user = await requireUser(request);
+  const session = await getSession(request);
+  const preferred = session.get("labSlug");
+  const labs = await listLabsOf(db(), user.id);
+  const lab = labs.find((l) => l.slug === preferred) ?? labs[0];
+  if (!lab) throw redirect("/labs");
+  if (!hasRole(lab.role, minRole)) throw forbidden(`This needs the ${minRole} role; you are ${article(lab.role)} ${lab.role} in ${lab.name}.`);
+  return { user, lab: { id: lab.id, slug: lab.slug, name: lab.name }, role: lab.role };
+}

@@ -1,0 +1,32 @@
+import { type RouteConfig, index, prefix, route } from "@react-router/dev/routes";
+
+/**
+ * Every URL of the app, as plain data. UI routes live in routes/, JSON resource routes in
+ * routes/api/ under the /api prefix. The splat route must stay last: it answers 404.
+ */
+export default [
+  index("routes/home.tsx"),
+  // Accounts and labs (issue 5).
+  route("sign-in", "routes/sign-in.tsx"),
+  route("sign-in/verify", "routes/sign-in-verify.tsx"),
+  route("sign-in/magic", "routes/sign-in-magic.ts"),
+  route("welcome", "routes/welcome.tsx"),
+  route("sign-out", "routes/sign-out.ts"),
+  route("labs", "routes/labs.tsx"),
+  route("labs/:labSlug", "routes/lab.tsx"),
+  route("labs/:labSlug/members", "routes/lab-members.tsx"),
+  route("labs/:labSlug/audit", "routes/lab-audit.tsx"),
+  route("invitations/:token", "routes/invitation.tsx"),
+  route("account", "routes/account.tsx"),
+  route("admin", "routes/admin.tsx"),
+  ...prefix("api", [
+    route("health", "routes/api/health.ts"),
+    // Accounts and labs (issue 5): bearer token or session cookie.
+    route("me", "routes/api/me.ts"),
+    route("labs", "routes/api/labs.ts"),
+    route("labs/:labSlug", "routes/api/lab.ts"),
+    route("labs/:labSlug/members", "routes/api/lab-members.ts"),
+    route("labs/:labSlug/audit", "routes/api/lab-audit.ts"),
+  ]),
+  route("*", "routes/not-found.tsx"),
+] satisfies RouteConfig;

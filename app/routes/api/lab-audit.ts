@@ -1,0 +1,13 @@
+import type { Route } from "./+types/lab-audit";
+import { db } from "~/db.server";
+import { listLabAudit } from "~/labs/audit.server";
+import { requireApiLabRole } from "~/permissions/permissions.server";
+
+/** GET /api/labs/:labSlug/audit — the lab's audit trail, newest first (owners only). */
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const { lab } = await requireApiLabRole(request, params.labSlug, "owner");
+  const events = await listLabAudit(db(), lab.id);
+  return Response.json({
+    events: events.map((e) => ({ kind: e.kind, actor: e.actorEmail, details: e.details, at: e.createdAt.toISOString() })),
+  });
+}

@@ -1,0 +1,13 @@
+import type { Route } from "./+types/lab-members";
+import { db } from "~/db.server";
+import { listMembers } from "~/labs/memberships.server";
+import { requireApiLabRole } from "~/permissions/permissions.server";
+
+/** GET /api/labs/:labSlug/members — who is in the lab, with roles (any member). */
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const { lab } = await requireApiLabRole(request, params.labSlug, "viewer");
+  const members = await listMembers(db(), lab.id);
+  return Response.json({
+    members: members.map((m) => ({ email: m.email, displayName: m.displayName, role: m.role, since: m.since.toISOString() })),
+  });
+}

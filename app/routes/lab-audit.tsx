@@ -1,0 +1,41 @@
+import { Link } from "react-router";
+import type { Route } from "./+types/lab-audit";
+import { db } from "~/db.server";
+import { listLabAudit } from "~/labs/audit.server";
+import { formatDate } from "~/labs/ui";
+import { requireLabRole } from "~/permissions/permissions.server";
+
+export const meta: Route.MetaFunction = () => [{ title: "Audit log · Stillpoint" }];
+
+/** Owners read what happened in their lab: memberships, roles, invitations. */
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const access = await requireLabRole(request, params.labSlug, "owner");
+  return { lab: access.lab, events: await listLabAudit(db(), access.lab.id) };
+}
+
+export default function Audit({ loaderData }: Route.ComponentProps) {
+  const { lab, events } = loaderData;
+  return (
+    <div className="space-y-6">
+      <header>
+        <Link to={`/labs/${lab.slug}`} className="text-sm text-muted hover:text-ink">← {lab.name}</Link>
+        <h1 className="mt-1 text-2xl font-semibold tracking-tight">Audit log</h1>
+      </header>
+      <table className="w-full text-left text-sm" data-testid="audit">
+        <thead className="border-b border-line text-xs uppercase tracking-wide text-faint">
+          <tr><th className="py-2">When</th><th>Who</th><th>What</th><th>Details</th></tr>
+        </thead>
+        <tbody>
+          {events.map((e) => (
+            <tr key={e.id} className="border-b border-line align-top">
+              <td className="py-2 whitespace-nowrap text-muted">{formatDate(e.createdAt)}</td>
+              <td>{e.actorName ?? "—"}</td>
+              <td className="font-mono text-xs">{e.kind}</td>
+              <td className="font-mono text-xs text-muted">{JSON.stringify(e.details)}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}

@@ -1,0 +1,87 @@
+/**
+ * The three programs the benchmark runs, each as a whole process:
+ * - ours: `node_modules/.bin/tsx domain/cli/main.ts groebner FILE` — exactly what
+ *   `npm run -s cli -- groebner FILE` starts, minus npm's own start-up;
+ * - SymPy: Debian's `/usr/bin/python3` running bench/reference/sympy_groebner.py;
+ * - Singular: `/usr/bin/Singular -q SCRIPT` with a script from singular-script.ts (written
+ *   before the clock starts).
+ */
+import { execFileSync } from "node:child_process";
+import { existsSync, writeFileSync } from "node:fs";
+import { join } from "node:path";
+import { singularScript } from "./singular-script";
+import type { SystemFile } from "./system-file";
+
+export type ToolId = "ours" | "sympy" | "singular";
+export const TOOL_IDS: readonly ToolId[] = ["ours", "sympy", "singular"];
+
+export interface Invocation {
+  readonly command: string;
+  readonly args: readonly string[];
+}
+
+export interface Tool {
+  readonly id: ToolId;
+  readonly label: string;
+  /** Undefined when usable, else why not (shown as n/a). */
+  readonly unavailable: string | undefined;
+  readonly version: string;
+  /** Exit code meaning "this system is outside what the tool can do" (shown as n/a). */
+  readonly unsupportedExitCode?: number;
+  invocation(systemPath: string, system: SystemFile, scratchDir: string, prime?: bigint): Invocation;
+}
+
+function tryRun(command: string, args: string[], cwd: string): string | undefined {
+  try {
+    return execFileSync(command, args, { cwd, encoding: "utf8", stdio: ["ignore", "pipe", "pipe"], timeout: 30_000 }).trim();
+  } catch {
+    return undefined;
+  }
+}
+
+const fieldArgs = (prime?: bigint): string[] => (prime === undefined ? [] : ["--field", `${prime}`]);
+
+export function oursTool(root: string): Tool {
+  const tsx = join(root, "node_modules", ".bin", "tsx");
+  const main = join(root, "domain", "cli", "main.ts");
+  return {
+    id: "ours",
+    label: "ours",
+    unavailable: existsSync(main) ? undefined : "domain/cli/main.ts does not exist yet",
+    version: `node ${process.version}, tsx`,
+    invocation: (systemPath, _s, _d, prime) => ({ command: tsx, args: [main, "groebner", systemPath, ...fieldArgs(prime)] }),
+  };
+}
+
+export function sympyTool(root: string): Tool {
+  const python = "/usr/bin/python3";
+  const version = tryRun(python, ["-c", "import sympy; print(sympy.__version__)"], root);
+  return {
+    id: "sympy",
+    label: "SymPy",
+    unavailable: version ? undefined : "/usr/bin/python3 cannot import sympy (apt-get install python3-sympy)",
+    version: version ? `SymPy ${version} (Debian python3-sympy, /usr/bin/python3)` : "",
+    unsupportedExitCode: 3,
+    invocation: (systemPath, _s, _d, prime) => ({
+      command: python,
+      args: [join(root, "bench", "reference", "sympy_groebner.py"), systemPath, ...fieldArgs(prime)],
+    }),
+  };
+}
+
+export function singularTool(root: string): Tool {
+  const binary = "/usr/bin/Singular";
+  const banner = existsSync(binary) ? tryRun(binary, ["--version"], root) : undefined;
+  return {
+    id: "singular",
+    label: "Singular",
+    unavailable: banner ? undefined : "/usr/bin/Singular not installed (Debian package singular)",
+    version: banner ? banner.split("\n")[0].replace(/\s+/g, " ") : "",
+    invocation: (systemPath, system, scratchDir, prime) => {
+      const name = systemPath.split("/").pop()!.replace(/\.txt$/, "");
+      const script = join(scratchDir, `${name}${prime === undefined ? "" : `-p${prime}`}.sing`);
+      writeFileSync(script, singularScript(system, prime));
+      return { command: binary, args: ["-q", "--no-rc", script] };
+    },
+  };
+}

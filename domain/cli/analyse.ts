@@ -1,0 +1,158 @@
+import { AlgebraError } from "../algebra/index";
+import { parseRational, sign, type Rational } from "../algebra/rational";
+import { NetworkFileError, parseNetworkCsv } from "../network/index";
+import { analyseNetwork, SteadyStateInputError, type SteadyStateAnalysis } from "../steady-state/index";
+import type { CliIO, CommandModule } from "./io";
+import { CliError, parseArgs, readInput } from "./io";
+
+const USAGE =
+  "usage: analyse NETWORK.csv [--order A,B,C] [--initial S=1,E=0.1] [--relation 'EXPR; EXPR'] [--timeout SECONDS] [--json]";
+
+/** Reads `S=1,E=0.1` into exact values; every bad entry is reported with its position. */
+export function parseInitial(text: string): Map<string, Rational> {
+  const out = new Map<string, Rational>();
+  const problems: string[] = [];
+  text.split(",").forEach((entry, i) => {
+    const m = /^\s*([A-Za-z][A-Za-z0-9_]*)\s*=\s*(.+?)\s*$/.exec(entry);
+    const value = m ? parseRational(m[2]) : null;
+    if (!m || !value || sign(value) < 0)
+      problems.push(`entry ${i + 1} '${entry.trim()}': expected NAME=VALUE with a non-negative decimal or fraction, e.g. S=1 or E=1/10`);
+    else if (out.has(m[1])) problems.push(`entry ${i + 1}: '${m[1]}' is given twice`);
+    else out.set(m[1], value);
+  });
+  if (problems.length > 0) throw new CliError(`--initial: ${problems.join("; ")}`);
+  return out;
+}
+
+/** The CLI contract's JSON object (structure keys from the network layer's analyseStructure). */
+export function toJson(r: SteadyStateAnalysis): Record<string, unknown> {
+  const s = r.structure;
+  return {
+    species: s.species,
+    complexes: s.complexes,
+    reactions: s.reactions,
+    rank: s.rank,
+    linkageClasses: s.linkageClasses,
+    deficiency: s.deficiency,
+    weaklyReversible: s.weaklyReversible,
+    conservationLaws: s.conservationLaws,
+    groebnerBasis: r.groebnerBasis ?? [],
+    parametrisation: r.parametrisation,
+    acr: r.acr,
+    steadyStates: r.steadyStates?.map((x) => ({
+      concentrations: x.concentrations,
+      stable: x.stable,
+      verdict: x.verdict,
+      eigenvalues: x.eigenvalues.map((e) => (e.im === 0 ? e.re : { re: e.re, im: e.im })),
+      residual: x.residual,
+    })) ?? null,
+    warnings: r.warnings,
+    order: r.order,
+    ordering: r.ordering,
+    groebnerBasisComplete: r.groebnerBasis !== null,
+    genericConditions: r.genericConditions,
+    triangularForm: r.triangularForm,
+    rootsNeeded: r.rootsNeeded,
+    nonVanishing: r.nonVanishing,
+    relations: r.relations,
+    eliminant: r.eliminant,
+    positiveSteadyStatesExist: r.positiveSteadyStatesExist,
+    odes: r.odes,
+    steadyStateSystem: r.steadyStateSystem,
+    parameters: r.parameters,
+    minimalSemiPositiveConservationLaws: s.minimalSemiPositiveConservationLaws,
+    deficiencyZeroTheorem: s.deficiencyZeroTheorem,
+    deficiencyOneTheorem: s.deficiencyOneTheorem,
+  };
+}
+
+const law = (l: Record<string, number>) =>
+  Object.entries(l)
+    .map(([s, c], i) => `${c < 0 ? (i === 0 ? "-" : " - ") : i === 0 ? "" : " + "}${Math.abs(c) === 1 ? "" : Math.abs(c)}${s}`)
+    .join("");
+
+/** A readable plain-text report of the same analysis. */
+export function toReport(r: SteadyStateAnalysis): string {
+  const s = r.structure;
+  const lines: string[] = [];
+  const section = (title: string) => lines.push("", title, "-".repeat(title.length));
+  lines.push(`Species (${s.species.length}): ${s.species.join(", ")}`);
+  lines.push(`Complexes (${s.complexes.length}): ${s.complexes.join(", ")}`);
+  lines.push(`Directed reactions: ${s.reactions}; rank ${s.rank}; linkage classes ${s.linkageClasses}; deficiency ${s.deficiency}; weakly reversible: ${s.weaklyReversible ? "yes" : "no"}`);
+  lines.push(`Conservation laws: ${s.conservationLaws.length === 0 ? "none" : s.conservationLaws.map(law).join("; ")}`);
+  if (s.deficiencyZeroTheorem.applies) lines.push(`Deficiency zero theorem: ${s.deficiencyZeroTheorem.conclusions.join(" ")}`);
+  section("Mass-action ODEs");
+  for (const o of r.odes) lines.push(`  d${o.species}/dt = ${o.rhs}`);
+  section("Elimination order");
+  lines.push(`  ${r.order.species.join(", ")}${r.order.userGiven ? " (given)" : " (suggested)"}`);
+  if (!r.order.userGiven) lines.push(`  Reason: ${r.order.reason}.`);
+  lines.push(`  Ring order: ${r.ordering}`);
+  section("Parametrisation of the positive steady states");
+  if (r.parametrisation) {
+    lines.push(`  Free: ${r.parametrisation.free.join(", ") || "(none)"}${r.parametrisation.positive ? " — positive parametrisation (all coefficients positive)" : ""}`);
+    for (const [sp, e] of Object.entries(r.parametrisation.expressions)) lines.push(`  ${sp} = ${e}`);
+    if (r.nonVanishing.length > 0) lines.push(`  Valid where these do not vanish: ${r.nonVanishing.join("; ")}`);
+  } else if (r.rootsNeeded.length > 0) {
+    lines.push("  No rational parametrisation found; these species need roots of polynomials:");
+    for (const x of r.rootsNeeded) lines.push(`  ${x.species}: degree ${x.degree} in ${x.species}: ${x.polynomial} = 0`);
+  } else lines.push("  none");
+  section("Absolute concentration robustness");
+  lines.push(r.acr.length === 0 ? "  no species found with ACR" : r.acr.map((a) => `  ${a.species} = ${a.value} at every positive steady state`).join("\n"));
+  section("Lex Gröbner basis of the saturated steady-state ideal");
+  if (r.groebnerBasis === null) lines.push("  not finished within the budget (see warnings)");
+  else for (const b of r.triangularForm) {
+    lines.push(`  ${b.species === null ? "parameters only" : `leading species ${b.species}`}:`);
+    for (const p of b.polynomials) lines.push(`    ${p}`);
+  }
+  if (r.genericConditions.length > 0) lines.push(`  For generic parameters: must not vanish: ${r.genericConditions.join("; ")}`);
+  if (r.relations.length > 0) {
+    section("Relations");
+    for (const x of r.relations)
+      lines.push(`  ${x.expression}: ${x.inIdeal ? "in the saturated ideal (vanishes at every positive steady state)" : x.vanishes ? "vanishes on the saturated variety (in the radical, not the ideal)" : `does not vanish at every positive steady state; remainder ${x.remainder}`}`);
+  }
+  if (r.steadyStates) {
+    section(`Positive steady states in the class (${r.steadyStates.length})`);
+    if (r.eliminant) lines.push(`  from the real roots of ${r.eliminant.polynomial} (in ${r.eliminant.variable})`);
+    r.steadyStates.forEach((x, i) => {
+      const conc = Object.entries(x.concentrations).map(([k, v]) => `${k}=${v.toPrecision(12)}`).join(", ");
+      const eig = x.eigenvalues.map((e) => (e.im === 0 ? e.re.toPrecision(6) : `${e.re.toPrecision(6)}${e.im < 0 ? "-" : "+"}${Math.abs(e.im).toPrecision(6)}i`)).join(", ");
+      lines.push(`  #${i + 1} ${x.verdict}: ${conc}`);
+      lines.push(`     eigenvalues on the stoichiometric subspace: ${eig || "(none)"}`);
+    });
+  }
+  if (r.warnings.length > 0) {
+    section("Notes and warnings");
+    for (const w of r.warnings) lines.push(`  - ${w}`);
+  }
+  return lines.join("\n").trimStart() + "\n";
+}
+
+/**
+ * `analyse NETWORK.csv [--order A,B,C] [--initial S=1,E=0.1] [--relation EXPR] [--timeout S] [--json]`.
+ * Every input problem (CSV, order, initial values, relation) ends as a CliError → stderr, exit code 2.
+ */
+export function run(args: readonly string[], io: CliIO): number {
+  const json = args.includes("--json");
+  const { positionals, flags } = parseArgs(args.filter((a) => a !== "--json"), ["order", "initial", "relation", "timeout"]);
+  if (positionals.length !== 1) throw new CliError(USAGE);
+  const timeout = flags.has("timeout") ? Number(flags.get("timeout")) : 20;
+  if (!(timeout > 0)) throw new CliError("--timeout expects a positive number of seconds");
+  const order = flags.has("order") ? flags.get("order")!.split(",").map((s) => s.trim()).filter((s) => s !== "") : undefined;
+  const initial = flags.has("initial") ? parseInitial(flags.get("initial")!) : undefined;
+  const relations = flags.has("relation") ? flags.get("relation")!.split(";").map((s) => s.trim()).filter((s) => s !== "") : [];
+  let result: SteadyStateAnalysis;
+  try {
+    const network = parseNetworkCsv(readInput(io, positionals[0]));
+    result = analyseNetwork(network, { order, initial, relations, timeoutMs: timeout * 1000 });
+  } catch (e) {
+    if (e instanceof NetworkFileError || e instanceof SteadyStateInputError || e instanceof AlgebraError) throw new CliError(e.message);
+    throw e;
+  }
+  io.stdout(json ? JSON.stringify(toJson(result), null, 2) + "\n" : toReport(result));
+  return 0;
+}
+
+export const command: CommandModule = {
+  run,
+  summary: "analyse NETWORK.csv [--order A,B] [--initial S=1] [--json]   structure, steady states, parametrisation, stability",
+};

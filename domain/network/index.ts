@@ -1,0 +1,32 @@
+/**
+ * Reaction networks: our CSV file format (read and write) and exact structural analysis.
+ *
+ * - parseNetworkCsv(text) → Network, or a NetworkFileError listing every located problem.
+ * - formatNetworkCsv(network) → CSV text that parses back to the same network.
+ * - analyseStructure(network) → NetworkStructure, plain JSON-friendly data (rationals as strings).
+ * - The exact pieces (complexes, Y, incidence and stoichiometric matrices, conservation laws) for
+ *   the steady-state layer.
+ *
+ * Example:
+ *   const net = parseNetworkCsv("reaction\nE + S <-> C\nC -> E + P\n");
+ *   analyseStructure(net).deficiency; // 0
+ */
+export type { Complex } from "./complex";
+export { SPECIES_NAME, makeComplex, formatComplex, sameComplex, compareNames } from "./complex";
+export type { Arrow, DirectedReaction, Network, NetworkRow } from "./model";
+export { type NetworkFileProblem, NetworkFileError, formatProblem } from "./errors";
+export { NETWORK_COLUMNS, type NetworkColumn, parseNetworkCsv, tryParseNetworkCsv } from "./parse-csv";
+export { parseReactionText, type ParsedReaction, type ReactionTextResult } from "./reaction-text";
+export { defaultRateName } from "./rate-names";
+export { formatNetworkCsv } from "./format-csv";
+export {
+  complexesOf,
+  complexIndex,
+  complexCompositionMatrix,
+  incidenceMatrix,
+  stoichiometricMatrix,
+} from "./matrices";
+export { type ConservationAnalysis, type ConservationOptions, analyseConservation } from "./conservation";
+export { type DirectedGraph, connectedComponents, stronglyConnectedComponents, terminalComponents } from "./graph";
+export { type TheoremVerdict, deficiencyZeroVerdict, deficiencyOneVerdict } from "./deficiency-theorems";
+export { type NetworkStructure, type ReactionSummary, analyseStructure } from "./structure";

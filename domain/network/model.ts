@@ -1,0 +1,47 @@
+import type { Rational } from "../algebra/rational";
+import type { Complex } from "./complex";
+
+export type Arrow = "->" | "<-" | "<->";
+
+/** One data row of the file, as written (rate names resolved, defaults filled in). */
+export interface NetworkRow {
+  /** 1-based line number in the source file. */
+  readonly line: number;
+  readonly label?: string;
+  /** Left-hand side as written. */
+  readonly left: Complex;
+  readonly arrow: Arrow;
+  /** Right-hand side as written. */
+  readonly right: Complex;
+  /** Rate symbol of the direction the arrow shows (for `<->`, left to right). */
+  readonly rate: string;
+  /** Rate symbol of right to left, only for `<->`. */
+  readonly reverseRate?: string;
+  /** Values as written on this row (a symbol's value may come from another row). */
+  readonly rateValue?: Rational;
+  readonly reverseRateValue?: Rational;
+}
+
+/** One directed reaction `reactant → product`; a `<->` row gives two. */
+export interface DirectedReaction {
+  /** `r1`, `r2`, … in order. */
+  readonly id: string;
+  readonly label?: string;
+  readonly reactant: Complex;
+  readonly product: Complex;
+  /** Rate-constant symbol. */
+  readonly rate: string;
+  /** Its value when any row gives one. */
+  readonly rateValue?: Rational;
+  /** 1-based line number of the source row. */
+  readonly row: number;
+  /** Whether this is the row's written direction or the reverse half of a `<->` row. */
+  readonly direction: "forward" | "reverse";
+}
+
+export interface Network {
+  /** In order of first appearance in the file (left to right, top to bottom). */
+  readonly species: readonly string[];
+  readonly reactions: readonly DirectedReaction[];
+  readonly rows: readonly NetworkRow[];
+}

@@ -1,0 +1,64 @@
+import { AlgebraError } from "../algebra/index";
+import type { GroebnerOptions } from "../algebra/index";
+
+/** What analyseNetwork reports while it works. */
+export interface AnalysisProgress {
+  /** "structure", "linear-elimination", "parametrisation", "groebner", "acr", "relations", "steady-states". */
+  readonly phase: string;
+  readonly message: string;
+}
+
+export interface BudgetOptions {
+  /** Absolute deadline (ms since the epoch). */
+  readonly deadline?: number;
+  /** Relative time limit in ms (default 30 000). */
+  readonly timeoutMs?: number;
+  /** Size budget handed to every Gröbner basis: largest basis and largest polynomial (terms). */
+  readonly maxBasisSize?: number;
+  readonly maxTerms?: number;
+  readonly signal?: AbortSignal;
+  readonly onProgress?: (p: AnalysisProgress) => void;
+}
+
+/**
+ * One time and size budget shared by every phase. A phase may take only a share of what is left,
+ * so that a costly optional step (the full lex basis) cannot starve the steady states.
+ */
+export class Budget {
+  readonly deadline: number;
+  constructor(private readonly options: BudgetOptions = {}) {
+    const rel = Date.now() + (options.timeoutMs ?? 30_000);
+    this.deadline = Math.min(options.deadline ?? Infinity, rel);
+  }
+
+  /** Gröbner options for a phase allowed `share` (0..1] of the remaining time. */
+  groebner(share = 1): GroebnerOptions {
+    const left = Math.max(0, this.deadline - Date.now());
+    return {
+      deadline: Date.now() + left * share,
+      signal: this.options.signal,
+      maxBasisSize: this.options.maxBasisSize,
+      maxTerms: this.options.maxTerms,
+    };
+  }
+
+  /** Throws when cancelled or out of time. */
+  check(what: string): void {
+    if (this.options.signal?.aborted) throw new AlgebraError("cancelled", `${what}: cancelled`);
+    if (Date.now() > this.deadline) throw new AlgebraError("timeout", `${what}: deadline exceeded`);
+  }
+
+  progress(phase: string, message: string): void {
+    this.options.onProgress?.({ phase, message });
+  }
+}
+
+/** True for the errors a phase turns into a warning (time or size budget); cancellation propagates. */
+export const isBudgetError = (e: unknown): e is AlgebraError =>
+  e instanceof AlgebraError && (e.code === "timeout" || e.code === "budget");
+
+/** Also true for the univariate layer's deadline errors. */
+export function isOutOfBudget(e: unknown): boolean {
+  if (isBudgetError(e)) return true;
+  return e instanceof Error && e.name === "UnivariateError" && (e as { code?: string }).code === "deadline";
+}

@@ -1,0 +1,20 @@
+/**
+ * Steady states of mass-action networks: ODEs, the steady-state system, parametrisation by linear
+ * elimination and lex Gröbner bases, ACR, relation tests, and all positive steady states of a
+ * stoichiometric class with their stability. `analyseNetwork` is the one entry point the CLI and the
+ * web worker call.
+ */
+export { analyseNetwork, type AnalyseOptions, type SteadyStateAnalysis } from "./analyse";
+export { type AnalysisProgress, type BudgetOptions } from "./budget";
+export { SteadyStateInputError, defaultOrder, resolveOrder, nonInteractingSpecies } from "./order";
+export { kineticsRing, massActionOdes, type KineticsRing, type QPoly, type QRing } from "./kinetics";
+export { steadyStateSystem, totalsFromInitial, type SteadyStateSystem } from "./system";
+export { linearElimination, type LinearEliminationResult, type EliminatedSpecies } from "./linear-elimination";
+export { computeParametrisation, type Parametrisation, type ParametrisationResult } from "./parametrisation";
+export { positiveSolutions, isZeroDimensional, type ZeroDimensionalSolution } from "./zero-dimensional";
+export { numericSteadyStates, type NumericSteadyState } from "./numeric-steady-states";
+export { acrSpecies, type AcrSpecies } from "./acr";
+export { testRelation, type RelationResult } from "./relation";
+export { saturate } from "./ideal";
+export { triangularForm, genericConditions } from "./triangular";
+export { formatExpression, type RationalExpression } from "./rational-expression";

@@ -1,0 +1,13 @@
+import type { Migration } from "kysely";
+import * as initial from "./20261201220000_initial";
+import * as accounts from "./20261201230000_accounts";
+
+/**
+ * Every migration, keyed by its file name without extension, in the order they run.
+ * A static map (rather than reading the folder at run time) so the built server bundle knows
+ * them too; tests/app/db/migrations.test.ts checks that it lists every file in this folder.
+ */
+export const migrations: Record<string, Migration> = {
+  "20261201220000_initial": initial,
+  "20261201230000_accounts": accounts,
+};

@@ -1,0 +1,105 @@
+/**
+ * Idempotent demo seed: running it twice leaves the database as after one run. People are
+ * matched by e-mail, the lab by slug, networks by (lab, name), versions by content hash.
+ */
+import { createHash } from "node:crypto";
+import type { Kysely } from "kysely";
+import type { Database } from "../app/db/schema";
+import { DEMO_LAB, DEMO_NETWORKS, DEMO_PEOPLE } from "./demo-data";
+
+export function contentHash(csv: string): string {
+  return createHash("sha256").update(csv, "utf8").digest("hex");
+}
+
+export interface SeedSummary {
+  users: number;
+  networks: number;
+  versionsAdded: number;
+}
+
+export async function seedDemo(db: Kysely<Database>): Promise<SeedSummary> {
+  return db.transaction().execute(async (trx) => {
+    const userIds = new Map<string, string>();
+    for (const person of DEMO_PEOPLE) {
+      const row = await trx
+        .insertInto("users")
+        .values({ email: person.email, display_name: person.displayName, is_site_admin: person.isSiteAdmin ?? false })
+        .onConflict((oc) => oc.column("email").doUpdateSet({ email: person.email }))
+        .returning("id")
+        .executeTakeFirstOrThrow();
+      userIds.set(person.email, row.id);
+    }
+
+    const owner = DEMO_PEOPLE.find((p) => p.role === "owner")!;
+    const lab = await trx
+      .insertInto("labs")
+      .values({ slug: DEMO_LAB.slug, name: DEMO_LAB.name, created_by: userIds.get(owner.email)! })
+      .onConflict((oc) => oc.column("slug").doUpdateSet({ slug: DEMO_LAB.slug }))
+      .returning("id")
+      .executeTakeFirstOrThrow();
+
+    for (const person of DEMO_PEOPLE) {
+      if (!person.role) continue;
+      await trx
+        .insertInto("memberships")
+        .values({ lab_id: lab.id, user_id: userIds.get(person.email)!, role: person.role })
+        .onConflict((oc) => oc.columns(["lab_id", "user_id"]).doNothing())
+        .execute();
+    }
+
+    let versionsAdded = 0;
+    for (const network of DEMO_NETWORKS) {
+      const firstAuthor = userIds.get(network.versions[0].author) ?? null;
+      const existing = await trx
+        .selectFrom("networks")
+        .select("id")
+        .where("lab_id", "=", lab.id)
+        .where("name", "=", network.name)
+        .executeTakeFirst();
+      const networkId =
+        existing?.id ??
+        (
+          await trx
+            .insertInto("networks")
+            .values({
+              lab_id: lab.id,
+              name: network.name,
+              description: network.description,
+              tags: network.tags,
+              created_by: firstAuthor,
+            })
+            .returning("id")
+            .executeTakeFirstOrThrow()
+        ).id;
+
+      for (const version of network.versions) {
+        const hash = contentHash(version.csv);
+        const present = await trx
+          .selectFrom("network_versions")
+          .select("id")
+          .where("network_id", "=", networkId)
+          .where("content_hash", "=", hash)
+          .executeTakeFirst();
+        if (present) continue;
+        const { max } = await trx
+          .selectFrom("network_versions")
+          .select((eb) => eb.fn.max("number").as("max"))
+          .where("network_id", "=", networkId)
+          .executeTakeFirstOrThrow();
+        await trx
+          .insertInto("network_versions")
+          .values({
+            network_id: networkId,
+            number: (max ?? 0) + 1,
+            content_hash: hash,
+            csv: version.csv,
+            change_note: version.changeNote,
+            author_id: userIds.get(version.author) ?? null,
+          })
+          .execute();
+        versionsAdded++;
+      }
+    }
+    return { users: userIds.size, networks: DEMO_NETWORKS.length, versionsAdded };
+  });
+}
