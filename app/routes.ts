@@ -19,6 +19,14 @@ export default [
   route("invitations/:token", "routes/invitation.tsx"),
   route("account", "routes/account.tsx"),
   route("admin", "routes/admin.tsx"),
+  // Networks (issue 6).
+  route("networks", "routes/networks-home.ts"),
+  route("labs/:labSlug/networks", "routes/networks.tsx"),
+  route("labs/:labSlug/networks/new", "routes/networks-new.tsx"),
+  route("labs/:labSlug/networks/:networkId", "routes/networks-show.tsx"),
+  route("labs/:labSlug/networks/:networkId/edit", "routes/networks-edit.tsx"),
+  route("labs/:labSlug/networks/:networkId/versions", "routes/networks-versions.tsx"),
+  route("labs/:labSlug/networks/:networkId/download/:file", "routes/networks-download.ts"),
   ...prefix("api", [
     route("health", "routes/api/health.ts"),
     // Accounts and labs (issue 5): bearer token or session cookie.
@@ -27,6 +35,11 @@ export default [
     route("labs/:labSlug", "routes/api/lab.ts"),
     route("labs/:labSlug/members", "routes/api/lab-members.ts"),
     route("labs/:labSlug/audit", "routes/api/lab-audit.ts"),
+    // Networks (issue 6).
+    route("labs/:labSlug/networks", "routes/api/networks.ts"),
+    route("labs/:labSlug/networks/:networkId", "routes/api/networks-item.ts"),
+    route("labs/:labSlug/networks/:networkId/versions", "routes/api/networks-versions.ts"),
+    route("labs/:labSlug/networks/:networkId/versions/:number", "routes/api/networks-version.ts"),
   ]),
   route("*", "routes/not-found.tsx"),
 ] satisfies RouteConfig;

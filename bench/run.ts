@@ -1,32 +1,22 @@
 /**
  * `npm run bench`: times our CLI, SymPy and Singular on the standard systems, whole process
  * against whole process, interleaved, and checks that they print the same reduced basis.
- * See bench/README.md for what is measured and how to read the table.
+ * See bench/README.md for what is measured and how to read the tables.
  */
-import { mkdtempSync, mkdirSync, readFileSync, rmSync, writeFileSync, existsSync } from "node:fs";
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { cpus, loadavg, tmpdir } from "node:os";
 import { dirname, join } from "node:path";
 import { fileURLToPath } from "node:url";
-import { checkAgreement, type Agreement } from "./lib/agreement";
-import { BenchOptionError, parseBenchOptions, USAGE, type BenchOptions } from "./lib/options";
+import { measureSystem, type SystemResult } from "./lib/measure";
+import { BenchOptionError, parseBenchOptions, USAGE } from "./lib/options";
 import { runProcess } from "./lib/process";
-import { median } from "./lib/stats";
-import { formatSystemFile, monomialOrderOf, parseSystemFile, type SystemFile } from "./lib/system-file";
+import { cpuTable, wallTable } from "./lib/report";
+import { formatSystemFile, parseSystemFile, type SystemFile } from "./lib/system-file";
 import { selectSystems, standardSystems, type BenchSystem } from "./lib/systems";
-import { formatNumber, formatRatio, formatTiming, ratioOf, renderTable, type Ratio, type ToolSummary } from "./lib/table";
-import { oursTool, singularTool, sympyTool, type Tool, type ToolId } from "./lib/tools";
+import { formatTiming } from "./lib/table";
+import { oursTool, singularTool, sympyTool } from "./lib/tools";
 
 const root = join(dirname(fileURLToPath(import.meta.url)), "..");
-
-interface SystemResult {
-  readonly name: string;
-  readonly order: string;
-  readonly vars: number;
-  readonly equations: number;
-  readonly tools: Partial<Record<ToolId, ToolSummary>>;
-  readonly ratios: { readonly sympy: Ratio; readonly singular: Ratio };
-  readonly agreement: Agreement;
-}
 
 function readSystem(s: BenchSystem): SystemFile {
   const path = join(root, "bench", "systems", `${s.name}.txt`);
@@ -36,94 +26,19 @@ function readSystem(s: BenchSystem): SystemFile {
   return parseSystemFile(text);
 }
 
-interface ToolState {
-  runs: number[];
-  final?: ToolSummary;
-  output?: string[];
-}
-
-async function benchSystem(s: BenchSystem, index: number, tools: Tool[], o: BenchOptions, scratch: string): Promise<SystemResult> {
-  const system = readSystem(s);
-  const relPath = `bench/systems/${s.name}.txt`;
-  const states = new Map<ToolId, ToolState>(tools.map((t) => [t.id, { runs: [] }]));
-  for (const t of tools) if (t.unavailable) states.get(t.id)!.final = { status: "n/a", reason: t.unavailable };
-  for (let round = 0; round < o.repeat; round++) {
-    // Rotate who goes first so no program always runs on a cold or a warm machine.
-    const shift = (round + index) % tools.length;
-    for (const t of [...tools.slice(shift), ...tools.slice(0, shift)]) {
-      const st = states.get(t.id)!;
-      if (st.final) continue;
-      const inv = t.invocation(relPath, system, scratch, o.prime);
-      const run = await runProcess(inv.command, inv.args, o.timeout, root);
-      if (run.timedOut) st.final = { status: "timeout" };
-      else if (run.exitCode !== 0 && run.exitCode === t.unsupportedExitCode) st.final = { status: "n/a", reason: run.stderr.trim() };
-      else if (run.exitCode !== 0) {
-        const message = run.stderr.trim().split("\n").slice(-3).join(" / ") || `exit code ${run.exitCode}`;
-        st.final = { status: "error", message };
-      } else {
-        st.runs.push(run.seconds);
-        st.output ??= run.stdout.split("\n");
-        if (run.seconds > o.long) st.final = { status: "ok", median: run.seconds, runs: st.runs };
-      }
-    }
-  }
-  const summaries: Partial<Record<ToolId, ToolSummary>> = {};
-  const outputs: Partial<Record<ToolId, string[]>> = {};
-  for (const t of tools) {
-    const st = states.get(t.id)!;
-    // A run that failed after earlier successes still counts as a failure of the program.
-    summaries[t.id] = st.final ?? { status: "ok", median: median(st.runs), runs: st.runs };
-    if (st.output) outputs[t.id] = st.output;
-  }
-  const na: ToolSummary = { status: "n/a", reason: "not run" };
-  const ours = summaries.ours ?? na;
-  return {
-    name: s.name,
-    order: system.order,
-    vars: system.vars.length,
-    equations: system.polys.length,
-    tools: summaries,
-    ratios: { sympy: ratioOf(ours, summaries.sympy ?? na, o.timeout), singular: ratioOf(ours, summaries.singular ?? na, o.timeout) },
-    agreement: checkAgreement(outputs, system.vars, monomialOrderOf(system), o.prime),
-  };
-}
-
-function tableOf(results: readonly SystemResult[], o: BenchOptions): string {
-  const cell = (r: SystemResult, id: ToolId) => {
-    const t = r.tools[id];
-    if (!t) return "–";
-    const runs = t.status === "ok" && t.runs.length !== o.repeat ? ` (${t.runs.length}×)` : "";
-    return formatTiming(t, o.timeout) + runs;
-  };
-  const sizes = (r: SystemResult) => [...new Set(Object.values(r.agreement.basisSizes))].join("/") || "–";
-  const check = (r: SystemResult) => ({ agree: "same", disagree: "DIFFERS", unchecked: "–" })[r.agreement.status];
-  const rows = results.map((r) => [
-    r.name,
-    r.order,
-    cell(r, "ours"),
-    cell(r, "sympy"),
-    cell(r, "singular"),
-    formatRatio(r.ratios.sympy),
-    formatRatio(r.ratios.singular),
-    sizes(r),
-    check(r),
-  ]);
-  const headers = ["system", "order", "ours", "SymPy", "Singular", "ours/SymPy", "ours/Singular", "basis", "bases"];
-  return renderTable(headers, rows, [false, false, true, true, true, true, true, true, false]);
-}
-
 async function main(): Promise<number> {
   const o = parseBenchOptions(process.argv.slice(2));
   if (o.help) {
     console.log(USAGE);
     return 0;
   }
-  const tools = [oursTool(root), sympyTool(root), singularTool(root)].filter((t) => o.tools.includes(t.id));
+  const tools = [oursTool(root, o.launcher), sympyTool(root), singularTool(root)].filter((t) => o.tools.includes(t.id));
   const systems = selectSystems(standardSystems(), o.only, o.quick);
-  console.log(`machine: ${cpus().length} cores, ${cpus()[0]?.model ?? "unknown CPU"}; field: ${o.prime === undefined ? "Q" : `Z/${o.prime}`}`);
+  const cores = cpus().length;
+  console.log(`machine: ${cores} cores, ${cpus()[0]?.model ?? "unknown CPU"}; field: ${o.prime === undefined ? "Q" : `Z/${o.prime}`}`);
   for (const t of tools) console.log(`  ${t.label}: ${t.unavailable ? `n/a — ${t.unavailable}` : t.version}`);
   const loadBefore = loadavg()[0];
-  console.log(`load average (1 min) at start: ${loadBefore.toFixed(2)} on ${cpus().length} cores`);
+  console.log(`load average (1 min) at start: ${loadBefore.toFixed(2)}`);
   console.log(`repeat ${o.repeat} (runs over ${o.long} s not repeated), timeout ${o.timeout} s, ${systems.length} systems\n`);
 
   const scratch = mkdtempSync(join(tmpdir(), "stillpoint-bench-"));
@@ -136,7 +51,7 @@ async function main(): Promise<number> {
       await runProcess(inv.command, inv.args, o.timeout, root);
     }
     for (const [i, s] of systems.entries()) {
-      const r = await benchSystem(s, i, tools, o, scratch);
+      const r = await measureSystem(s.name, readSystem(s), i, tools, o, root, scratch);
       results.push(r);
       const parts = tools.map((t) => `${t.label} ${formatTiming(r.tools[t.id]!, o.timeout)}`);
       console.log(`${r.name} (${r.order}): ${parts.join(" | ")} | bases ${r.agreement.status}`);
@@ -145,26 +60,23 @@ async function main(): Promise<number> {
   } finally {
     rmSync(scratch, { recursive: true, force: true });
   }
-
   const loadAfter = loadavg()[0];
-  console.log(`\n${tableOf(results, o)}\n`);
-  console.log("times: median wall-clock seconds per whole process; ratios < 1 mean ours is faster; '<'/'>' are bounds from a timeout.");
-  if (Math.max(loadBefore, loadAfter) > cpus().length)
-    console.log(`note: load average ${loadBefore.toFixed(1)} → ${loadAfter.toFixed(1)} exceeds the ${cpus().length} cores: other jobs shared the machine, times are inflated.`);
-  const failures = results.flatMap((r) =>
-    Object.entries(r.tools).flatMap(([id, t]) => (t?.status === "error" ? [`${r.name}: ${id} failed: ${t.message}`] : [])),
-  );
-  for (const f of failures) console.log(`error: ${f}`);
+
+  console.log(`\nWall clock, median seconds per whole process:\n${wallTable(results, o.repeat, o.timeout)}\n`);
+  console.log(`CPU time (user + system, median) and peak memory:\n${cpuTable(results, o.timeout)}\n`);
+  console.log("ratios are ours / reference: below 1 means ours is faster; '<' and '>' are bounds from a timeout.");
+  if (Math.max(loadBefore, loadAfter) > cores)
+    console.log(`note: load average ${loadBefore.toFixed(1)} → ${loadAfter.toFixed(1)} exceeds the ${cores} cores: other jobs shared the machine, wall times are inflated.`);
+  for (const r of results)
+    for (const [id, t] of Object.entries(r.tools)) if (t?.status === "error") console.log(`error: ${r.name}: ${id} failed: ${t.message}`);
   const disagreements = results.filter((r) => r.agreement.status === "disagree");
-  if (disagreements.length > 0) {
-    console.log(`\n!!! BASES DIFFER on ${disagreements.map((r) => r.name).join(", ")} — see the !!! lines above.`);
-  }
+  if (disagreements.length > 0) console.log(`\n!!! BASES DIFFER on ${disagreements.map((r) => r.name).join(", ")} — see the !!! lines above.`);
 
   const resultsDir = join(root, "bench", "results");
   mkdirSync(resultsDir, { recursive: true });
   const json = {
     generatedAt: new Date().toISOString(),
-    machine: { cores: cpus().length, cpu: cpus()[0]?.model ?? "unknown", node: process.version, loadAverage: { start: loadBefore, end: loadAfter } },
+    machine: { cores, cpu: cpus()[0]?.model ?? "unknown", node: process.version, loadAverage: { start: loadBefore, end: loadAfter } },
     programs: Object.fromEntries(tools.map((t) => [t.id, t.unavailable ? { unavailable: t.unavailable } : { version: t.version }])),
     options: { ...o, prime: o.prime?.toString() },
     systems: results,

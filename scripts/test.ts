@@ -17,7 +17,7 @@ import { spawn } from "node:child_process";
 import { aptInstall } from "./lib/apt";
 import { log } from "./lib/log";
 import { type Managed, onShutdown } from "./lib/processes";
-import { buildApp, buildIsStale, startAppServer, startMaildev, startWorkerIfPresent } from "./lib/services";
+import { buildApp, startAppServer, startMaildev, startWorkerIfPresent } from "./lib/services";
 import { ensureDatabase, ensurePostgresInstalled, freePort, serverUrl, startThrowawayCluster } from "./db/postgres";
 import { migrate } from "./migrate";
 import { seed } from "./seed";
@@ -34,6 +34,9 @@ interface Tally {
 
 const filters = process.argv.slice(2);
 const tmp = mkdtempSync(path.join(os.tmpdir(), "stillpoint-test-"));
+// One build per run, inside the project (the server bundle resolves packages from node_modules)
+// but outside build/, which every `react-router build` empties first. test-results/ is git-ignored.
+const buildDir = path.join("test-results", "builds", String(process.pid));
 const children: Managed[] = [];
 let disposeDb: (() => void) | undefined;
 let runningVitest: number | undefined;
@@ -53,6 +56,7 @@ const cleanup = onShutdown(async () => {
     console.error(`[test] stopping PostgreSQL failed: ${err instanceof Error ? err.message : err}`);
   }
   rmSync(tmp, { recursive: true, force: true });
+  rmSync(buildDir, { recursive: true, force: true });
 });
 
 /** Runs vitest with a JSON report beside the normal output and reads the counts from it. */
@@ -130,7 +134,7 @@ async function main(): Promise<void> {
   await ensureDatabase(pg.port, "stillpoint_e2e");
   await migrate(e2eDb);
   await seed(e2eDb);
-  if (process.env.CI || buildIsStale()) buildApp();
+  const serverEntry = buildApp(buildDir, { quiet: true });
   const [appPort, smtpPort, webPort] = [await freePort(), await freePort(), await freePort()];
   children.push(await startMaildev(smtpPort, webPort));
   const appEnv = {
@@ -142,7 +146,7 @@ async function main(): Promise<void> {
   };
   const worker = startWorkerIfPresent({ ...appEnv, NODE_ENV: "production" }, { quiet: true });
   if (worker) children.push(worker);
-  children.push(await startAppServer(appEnv, "127.0.0.1", appPort, { quiet: true }));
+  children.push(await startAppServer(appEnv, "127.0.0.1", appPort, { quiet: true, serverEntry }));
   log("test", `app on http://127.0.0.1:${appPort}, maildev on ${webPort} (SMTP ${smtpPort})`);
 
   add(

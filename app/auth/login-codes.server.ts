@@ -1,6 +1,6 @@
 import { sql } from "kysely";
 import { getEnv } from "~/env.server";
-import { accountsDb } from "./accounts-db.server";
+import { db } from "~/db.server";
 import { hmacHex } from "./hashing.server";
 
 /**
@@ -42,7 +42,7 @@ export type RequestVerdict = { allowed: true } | { allowed: false; retryAfterSec
 export async function checkCodeRequest(email: string, client: string, now = new Date()): Promise<RequestVerdict> {
   const since = new Date(now.getTime() - SIGN_IN_POLICY.windowMinutes * 60_000);
   const count = async (column: "email" | "client_key", value: string) => {
-    const rows = await accountsDb()
+    const rows = await db()
       .selectFrom("login_codes")
       .select("created_at")
       .where(column, "=", value)
@@ -63,7 +63,7 @@ export async function checkCodeRequest(email: string, client: string, now = new 
 /** Records a freshly sent code (and its magic-link token); earlier open codes for the address stop working. */
 export async function recordIssuedCode(args: { email: string; code: string; linkToken: string; client: string }) {
   const now = new Date();
-  await accountsDb().transaction().execute(async (trx) => {
+  await db().transaction().execute(async (trx) => {
     await trx
       .updateTable("login_codes")
       .set({ invalidated_at: now })
@@ -94,7 +94,7 @@ export type CodeCheck = "ok" | "wrong" | "locked" | "expired";
  */
 export async function checkTypedCode(email: string, code: string): Promise<{ result: CodeCheck; attemptsLeft: number }> {
   // The newest code of the address is the only one that can work (a new request replaces older ones).
-  const open = await accountsDb()
+  const open = await db()
     .selectFrom("login_codes")
     .select(["id", "code_hash", "attempts", "expires_at", "consumed_at", "invalidated_at"])
     .where("email", "=", email)
@@ -106,7 +106,7 @@ export async function checkTypedCode(email: string, code: string): Promise<{ res
   if (open.code_hash === keyed(normalizeCode(code))) {
     return { result: "ok", attemptsLeft: SIGN_IN_POLICY.maxWrongAttempts - open.attempts };
   }
-  const updated = await accountsDb()
+  const updated = await db()
     .updateTable("login_codes")
     .set({ attempts: sql`attempts + 1` })
     .where("id", "=", open.id)
@@ -114,7 +114,7 @@ export async function checkTypedCode(email: string, code: string): Promise<{ res
     .executeTakeFirstOrThrow();
   const left = SIGN_IN_POLICY.maxWrongAttempts - updated.attempts;
   if (left <= 0) {
-    await accountsDb().updateTable("login_codes").set({ invalidated_at: new Date() }).where("id", "=", open.id).execute();
+    await db().updateTable("login_codes").set({ invalidated_at: new Date() }).where("id", "=", open.id).execute();
     return { result: "locked", attemptsLeft: 0 };
   }
   return { result: "wrong", attemptsLeft: left };
@@ -122,7 +122,7 @@ export async function checkTypedCode(email: string, code: string): Promise<{ res
 
 /** Is this magic-link token the open, unexpired code of some address? (No attempt counted.) */
 export async function isOpenLink(linkToken: string): Promise<boolean> {
-  const row = await accountsDb()
+  const row = await db()
     .selectFrom("login_codes")
     .select("id")
     .where("link_hash", "=", keyed(linkToken))
@@ -139,7 +139,7 @@ export async function isOpenLink(linkToken: string): Promise<boolean> {
  * one gets `true`.
  */
 export async function consumeCode(email: string, proof: { code: string } | { linkToken: string }): Promise<boolean> {
-  let query = accountsDb()
+  let query = db()
     .updateTable("login_codes")
     .set({ consumed_at: new Date() })
     .where("email", "=", email)

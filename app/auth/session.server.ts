@@ -1,7 +1,7 @@
 import { createCookie, createSessionStorage, type Session } from "react-router";
 import { getEnv } from "~/env.server";
 import type { JsonObject } from "~/db/schema";
-import { accountsDb } from "./accounts-db.server";
+import { db } from "~/db.server";
 import { randomToken, sha256Hex } from "./hashing.server";
 
 /** What a session may hold. `pendingEmail` is a verified address that has no account yet. */
@@ -46,14 +46,14 @@ function createStorage() {
     cookie,
     async createData(data, expires) {
       const id = randomToken();
-      await accountsDb()
+      await db()
         .insertInto("sessions")
         .values({ id_hash: sha256Hex(id), user_id: userIdOf(data), data: data as JsonObject, expires_at: expiry(expires) })
         .execute();
       return id;
     },
     async readData(id) {
-      const row = await accountsDb()
+      const row = await db()
         .selectFrom("sessions")
         .select("data")
         .where("id_hash", "=", sha256Hex(id))
@@ -64,7 +64,7 @@ function createStorage() {
     // An upsert: a cookie whose row was deleted (signed out elsewhere) starts over as anonymous.
     async updateData(id, data, expires) {
       const values = { user_id: userIdOf(data), data: data as JsonObject, expires_at: expiry(expires) };
-      await accountsDb()
+      await db()
         .insertInto("sessions")
         .values({ id_hash: sha256Hex(id), ...values })
         .onConflict((oc) => oc.column("id_hash").doUpdateSet(values))
@@ -72,7 +72,7 @@ function createStorage() {
     },
     async deleteData(id) {
       if (!id) return;
-      await accountsDb().deleteFrom("sessions").where("id_hash", "=", sha256Hex(id)).execute();
+      await db().deleteFrom("sessions").where("id_hash", "=", sha256Hex(id)).execute();
     },
   });
 }
@@ -99,7 +99,7 @@ export function destroySession(session: AppSession): Promise<string> {
  * old one so that an id planted before sign-in never becomes an authenticated session.
  */
 export async function rotateSession(old: AppSession, data: SessionData): Promise<string> {
-  if (old.id) await accountsDb().deleteFrom("sessions").where("id_hash", "=", sha256Hex(old.id)).execute();
+  if (old.id) await db().deleteFrom("sessions").where("id_hash", "=", sha256Hex(old.id)).execute();
   await sweepExpiredSessions();
   const fresh = await sessionStorage().getSession();
   for (const [key, value] of Object.entries(data)) {
@@ -110,13 +110,13 @@ export async function rotateSession(old: AppSession, data: SessionData): Promise
 
 /** Ends every session of a user (all browsers, including the current one). */
 export async function destroyAllSessionsOf(userId: string): Promise<number> {
-  const result = await accountsDb().deleteFrom("sessions").where("user_id", "=", userId).executeTakeFirst();
+  const result = await db().deleteFrom("sessions").where("user_id", "=", userId).executeTakeFirst();
   return Number(result.numDeletedRows);
 }
 
 /** Housekeeping: drop expired rows (run at every sign-in; the expiry index keeps it cheap). */
 export async function sweepExpiredSessions(): Promise<void> {
-  await accountsDb().deleteFrom("sessions").where("expires_at", "<=", new Date()).execute();
+  await db().deleteFrom("sessions").where("expires_at", "<=", new Date()).execute();
 }
 
 /** A local path only, so `returnTo` cannot send anyone to another site. */

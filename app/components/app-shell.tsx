@@ -1,4 +1,4 @@
-import { Link, NavLink } from "react-router";
+import { Link, NavLink, useLocation } from "react-router";
 import type { ShellUser } from "~/shell-user.server";
 
 /** Top-level sections; each links to its own route module. */
@@ -9,6 +9,7 @@ export const NAV_ITEMS = [
 ] as const;
 
 export function AppShell({ user, children }: { user: ShellUser | null; children: React.ReactNode }) {
+  const { pathname } = useLocation();
   return (
     <div className="flex min-h-screen flex-col">
       <header className="border-b border-line bg-surface">
@@ -23,7 +24,7 @@ export function AppShell({ user, children }: { user: ShellUser | null; children:
                 key={item.to}
                 to={item.to}
                 className={({ isActive }) =>
-                  `rounded-md px-3 py-1.5 ${isActive ? "bg-accent-soft text-accent-strong" : "text-muted hover:bg-sunken hover:text-ink"}`
+                  `rounded-md px-3 py-1.5 ${navActive(item.to, isActive, pathname) ? "bg-accent-soft text-accent-strong" : "text-muted hover:bg-sunken hover:text-ink"}`
                 }
               >
                 {item.label}
@@ -61,6 +62,14 @@ export function AppShell({ user, children }: { user: ShellUser | null; children:
       </footer>
     </div>
   );
+}
+
+/** Lab network pages live under /labs/:slug/networks but belong to "Networks" in the menu. */
+function navActive(to: string, isActive: boolean, pathname: string): boolean {
+  const onNetworkPage = /^\/labs\/[^/]+\/networks(\/|$)/.test(pathname);
+  if (to === "/networks") return isActive || onNetworkPage;
+  if (to === "/labs") return isActive && !onNetworkPage;
+  return isActive;
 }
 
 function initials(name: string) {

@@ -5,6 +5,7 @@
 import type { Kysely } from "kysely";
 import type { NetworkStructure } from "@domain/network/index";
 import type { Database } from "~/db/schema";
+import { apiError } from "~/permissions/api-errors";
 import type { LabAccess } from "~/permissions/permissions.server";
 import { hasRole } from "~/permissions/roles";
 import { diffNetworks, type NetworkDiff } from "./diff";
@@ -67,10 +68,7 @@ export async function networkTableRows(db: Kysely<Database>, access: LabAccess, 
 export async function requireNetwork(db: Kysely<Database>, access: LabAccess, networkId: string | undefined, api = false): Promise<NetworkRecord> {
   const network = await findNetwork(db, access.lab.id, networkId);
   if (!network) {
-    if (api) {
-      const { apiError } = await import("~/permissions/api-errors");
-      throw apiError("not_found", "No such network in this lab.");
-    }
+    if (api) throw apiError("not_found", "No such network in this lab.");
     throw new Response("Not found", { status: 404, statusText: "Not Found" });
   }
   return network;
@@ -80,10 +78,7 @@ export async function requireNetwork(db: Kysely<Database>, access: LabAccess, ne
 export async function requireVersion(db: Kysely<Database>, network: NetworkRecord, raw: string | null | undefined, api = false): Promise<VersionRecord> {
   const version = raw == null || raw === "" ? await latestVersion(db, network.id) : await findVersion(db, network.id, Number(raw));
   if (!version) {
-    if (api) {
-      const { apiError } = await import("~/permissions/api-errors");
-      throw apiError("not_found", `Version ${raw} of this network does not exist.`);
-    }
+    if (api) throw apiError("not_found", `Version ${raw} of this network does not exist.`);
     throw new Response(`No version ${raw}`, { status: 404, statusText: "Not Found" });
   }
   return version;
@@ -121,8 +116,6 @@ export interface VersionDiffData {
   diff: NetworkDiff;
 }
 
-export async function versionDiff(db: Kysely<Database>, network: NetworkRecord, from: VersionRecord, to: VersionRecord): Promise<VersionDiffData> {
-  void db;
-  void network;
+export function versionDiff(from: VersionRecord, to: VersionRecord): VersionDiffData {
   return { from: versionJson(from), to: versionJson(to), diff: diffNetworks(structureOf(from.csv), structureOf(to.csv)) };
 }

@@ -15,6 +15,8 @@ export interface BenchOptions {
   readonly quick: boolean;
   readonly prime: bigint | undefined;
   readonly tools: readonly ToolId[];
+  /** How our CLI starts: `tsx` (as `npm run cli` does) or `node` (`node --import tsx`, one process less). */
+  readonly launcher: "tsx" | "node";
   readonly help: boolean;
 }
 
@@ -26,6 +28,7 @@ export const DEFAULT_OPTIONS: BenchOptions = {
   quick: false,
   prime: undefined,
   tools: TOOL_IDS,
+  launcher: "tsx",
   help: false,
 };
 
@@ -37,6 +40,7 @@ export const USAGE = `npm run bench -- [options]
   --long S          a run longer than S seconds is not repeated (default 30)
   --field P         compute over Z/P instead of Q (all three programs)
   --tools a,b       subset of ours,sympy,singular (default all)
+  --launcher L      start our CLI with "tsx" (default, as npm run cli does) or "node" (node --import tsx)
   --help            this text`;
 
 export class BenchOptionError extends Error {}
@@ -83,6 +87,12 @@ export function parseBenchOptions(argv: readonly string[]): BenchOptions {
         const bad = list.find((t) => !TOOL_IDS.includes(t as ToolId));
         if (bad !== undefined) throw new BenchOptionError(`--tools: unknown program "${bad}" (known: ${TOOL_IDS.join(", ")})`);
         o = { ...o, tools: list as ToolId[] };
+        break;
+      }
+      case "--launcher": {
+        const v = value();
+        if (v !== "tsx" && v !== "node") throw new BenchOptionError(`--launcher needs tsx or node, got ${v ?? "nothing"}`);
+        o = { ...o, launcher: v };
         break;
       }
       case "--help":

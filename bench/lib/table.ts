@@ -6,7 +6,17 @@
  * is "0.25"; a ratio against a timed-out reference is an upper bound such as "<0.017".
  */
 export type ToolSummary =
-  | { readonly status: "ok"; readonly median: number; readonly runs: readonly number[] }
+  | {
+      readonly status: "ok";
+      /** Median wall-clock seconds of `runs`. */
+      readonly median: number;
+      readonly runs: readonly number[];
+      /** CPU seconds (user + system) per run and their median, when GNU time measured them. */
+      readonly cpuRuns?: readonly number[];
+      readonly cpuMedian?: number;
+      /** Largest peak resident memory over the runs, in kilobytes. */
+      readonly maxRssKb?: number;
+    }
   | { readonly status: "timeout" }
   | { readonly status: "error"; readonly message: string }
   | { readonly status: "n/a"; readonly reason: string };
@@ -15,6 +25,7 @@ export type ToolSummary =
 export type Ratio = { readonly bound: "=" | "<" | ">"; readonly value: number } | undefined;
 
 export function formatNumber(x: number): string {
+  if (x === 0) return "0";
   if (x >= 100) return x.toFixed(0);
   if (x >= 10) return x.toFixed(1);
   if (x >= 1) return x.toFixed(2);
@@ -36,7 +47,8 @@ export function formatTiming(t: ToolSummary, timeoutSeconds: number): string {
 
 /** ours / reference, using the timeout as the bound for a side that timed out. */
 export function ratioOf(ours: ToolSummary, reference: ToolSummary, timeoutSeconds: number): Ratio {
-  if (ours.status === "ok" && reference.status === "ok") return { bound: "=", value: ours.median / reference.median };
+  // A zero reference (below the clock's resolution) gives no meaningful ratio.
+  if (ours.status === "ok" && reference.status === "ok") return reference.median > 0 ? { bound: "=", value: ours.median / reference.median } : undefined;
   if (ours.status === "ok" && reference.status === "timeout") return { bound: "<", value: ours.median / timeoutSeconds };
   if (ours.status === "timeout" && reference.status === "ok") return { bound: ">", value: timeoutSeconds / reference.median };
   return undefined;
@@ -56,4 +68,14 @@ export function renderTable(headers: readonly string[], rows: readonly (readonly
   };
   const line = (cells: readonly string[]) => cells.map((cell, c) => pad(cell, c)).join("  ").trimEnd();
   return [line(headers), widths.map((w) => "-".repeat(w)).join("  "), ...rows.map(line)].join("\n");
+}
+
+/**
+ * The same summary with CPU time in place of wall time (n/a when CPU time was not measured),
+ * so ratioOf and formatTiming work on CPU seconds too.
+ */
+export function cpuView(t: ToolSummary): ToolSummary {
+  if (t.status !== "ok") return t;
+  if (t.cpuMedian === undefined || !t.cpuRuns) return { status: "n/a", reason: "CPU time not measured" };
+  return { status: "ok", median: t.cpuMedian, runs: t.cpuRuns };
 }

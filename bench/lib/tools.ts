@@ -41,15 +41,20 @@ function tryRun(command: string, args: string[], cwd: string): string | undefine
 
 const fieldArgs = (prime?: bigint): string[] => (prime === undefined ? [] : ["--field", `${prime}`]);
 
-export function oursTool(root: string): Tool {
+/**
+ * launcher "tsx": the tsx binary (it starts a second Node process with its loader), exactly as
+ * `npm run cli` does; "node": `node --import tsx`, a single process.
+ */
+export function oursTool(root: string, launcher: "tsx" | "node" = "tsx"): Tool {
   const tsx = join(root, "node_modules", ".bin", "tsx");
   const main = join(root, "domain", "cli", "main.ts");
+  const start = launcher === "tsx" ? { command: tsx, args: [main] } : { command: process.execPath, args: ["--import", "tsx", main] };
   return {
     id: "ours",
     label: "ours",
     unavailable: existsSync(main) ? undefined : "domain/cli/main.ts does not exist yet",
-    version: `node ${process.version}, tsx`,
-    invocation: (systemPath, _s, _d, prime) => ({ command: tsx, args: [main, "groebner", systemPath, ...fieldArgs(prime)] }),
+    version: `node ${process.version}, started by ${launcher === "tsx" ? "node_modules/.bin/tsx" : "node --import tsx"}`,
+    invocation: (systemPath, _s, _d, prime) => ({ command: start.command, args: [...start.args, "groebner", systemPath, ...fieldArgs(prime)] }),
   };
 }
 

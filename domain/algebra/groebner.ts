@@ -1,18 +1,17 @@
 import { AlgebraError } from "./errors";
 import { QQ } from "./field";
 import type { SelectionStrategy } from "./groebner/buchberger";
-import { buchberger } from "./groebner/buchberger";
-import { integerCoefficients } from "./groebner/coefficients";
-import { clearDenominators, coefficientsFor, fromEngine, monicRational, toEngine } from "./groebner/convert";
+import { buchberger, defaultStrategy } from "./groebner/buchberger";
+import { clearDenominators, coefficientsFor, fromEngine, toEngine } from "./groebner/convert";
 import type { LimitOptions } from "./groebner/limits";
 import { Limits } from "./groebner/limits";
-import { modularGroebnerQQ } from "./groebner/modular";
+import { modularGroebnerQQ, plainFractionFree } from "./groebner/modular";
 import type { Polynomial } from "./polynomial";
 import type { Rational } from "./rational";
 import type { PolynomialRing } from "./ring";
 
 export interface GroebnerOptions extends LimitOptions {
-  /** Pair selection: 'sugar' (default) or 'normal'. */
+  /** Pair selection: 'sugar' or 'normal'; default sugar for single graded orders, normal for lex and block orders. */
   readonly strategy?: SelectionStrategy;
   /**
    * Over Q: 'modular' learns the computation modulo a word-size prime and replays only the useful
@@ -42,22 +41,16 @@ export function ringOf<C>(polys: readonly Polynomial<C>[], what: string): Polyno
 export function groebnerBasis<C>(polys: readonly Polynomial<C>[], options: GroebnerOptions = {}): Polynomial<C>[] {
   const ring = ringOf(polys, "groebnerBasis");
   const limits = new Limits(options);
+  const strategy = options.strategy ?? defaultStrategy(ring.order);
   if (ring.field === (QQ as unknown)) {
-    const qpolys = polys as unknown as Polynomial<Rational>[];
-    const method = options.method ?? "auto";
-    const result = method === "buchberger"
-      ? groebnerQQFractionFree(qpolys, options.strategy, limits)
-      : modularGroebnerQQ(qpolys, options.strategy, limits);
+    const qpolys = (polys as unknown as Polynomial<Rational>[]).filter((p) => p.coeffs.length > 0);
+    if (qpolys.length === 0) return [];
+    const result = options.method === "buchberger"
+      ? plainFractionFree(qpolys.map((p) => clearDenominators(toEngine(p))), qpolys[0].ring, strategy, limits)
+      : modularGroebnerQQ(qpolys, strategy, limits);
     return result as unknown as Polynomial<C>[];
   }
   const K = coefficientsFor(ring.field);
-  const basis = buchberger(polys.map(toEngine), K, ring.n, ring.cmp, { strategy: options.strategy, limits });
+  const basis = buchberger(polys.map(toEngine), K, ring.n, ring.cmp, { strategy, limits });
   return basis.map((p) => fromEngine(ring, p));
-}
-
-/** Exact Buchberger over Q run fraction-free on primitive integer polynomials. */
-export function groebnerQQFractionFree(polys: readonly Polynomial<Rational>[], strategy: SelectionStrategy | undefined, limits: Limits): Polynomial<Rational>[] {
-  const ring = polys[0].ring;
-  const basis = buchberger(polys.map((p) => clearDenominators(toEngine(p))), integerCoefficients, ring.n, ring.cmp, { strategy, limits });
-  return basis.map((p) => fromEngine(ring, monicRational(p)));
 }

@@ -12,6 +12,8 @@ export interface MultistartOptions {
   /** Two solutions are the same when every coordinate agrees to this relative tolerance. */
   dedupeTol?: number;
   residualTol?: number;
+  /** Newton iterations per start (default 100). */
+  maxIterations?: number;
 }
 
 /** A small deterministic PRNG in [0, 1) (mulberry32; common practice). */
@@ -43,7 +45,7 @@ export function multistartPositiveSolutions(system: SystemEvaluator, options: Mu
   const found: Vector[] = [];
   for (let s = 0; s < starts; s++) {
     const x0 = options.low.map((lo, i) => Math.exp(Math.log(lo) + random() * (Math.log(options.high[i]) - Math.log(lo))));
-    const result = newton(system, x0, { logCoordinates: true, residualTol: options.residualTol ?? 1e-11, maxIterations: 200 });
+    const result = newton(system, x0, { logCoordinates: true, residualTol: options.residualTol ?? 1e-11, maxIterations: options.maxIterations ?? 100 });
     if (!result.converged || result.x.some((v) => !(v > 0) || !Number.isFinite(v))) continue;
     if (!found.some((y) => sameSolution(y, result.x, tol))) found.push(result.x);
   }

@@ -1,7 +1,9 @@
-import type { KineticsRing } from "./kinetics";
+import { type GroebnerOptions, PolynomialRing, QQ, neg } from "../algebra/index";
+import { mapToRing, monomialOf, saturate } from "./ideal";
+import type { KineticsRing, QPoly } from "./kinetics";
 import type { ParametrisationResult } from "./parametrisation";
-import { variablesOf } from "./poly-tools";
-import { formatExpression } from "./rational-expression";
+import { coefficientsIn, degreeIn, variablesOf } from "./poly-tools";
+import { formatExpression, simplifyFraction } from "./rational-expression";
 
 export interface AcrSpecies {
   readonly species: string;
@@ -24,4 +26,30 @@ export function acrSpecies(kin: KineticsRing, param: ParametrisationResult): Acr
     .filter((e) => ![...variablesOf(e.expression.num), ...variablesOf(e.expression.den)].some(isSpecies))
     .map((e) => ({ species: e.species, value: formatExpression(e.expression) }))
     .sort((a, b) => kin.species.indexOf(a.species) - kin.species.indexOf(b.species));
+}
+
+/**
+ * ACR test for one species by a Gröbner basis, for species the elimination left undecided: in the
+ * block order (other species, lex) > x > (parameters), the saturated ideal of the steady-state
+ * equations (no totals) contains a(k)·x − b(k) exactly when all positive steady states share
+ * x = b/a for generic parameters (elimination theorem, Cox, Little & O'Shea ch. 3 §1; Shinar & Feinberg 2010).
+ * Example: for A + B -> 2B (k1), B -> A (k2) and x = A it finds k1*A − k2.
+ */
+export function acrByGroebner(kin: KineticsRing, odeRows: readonly QPoly[], species: string, options: GroebnerOptions): AcrSpecies | null {
+  const ns = kin.species.length;
+  const others = kin.species.filter((s) => s !== species);
+  const params = kin.ring.vars.slice(ns);
+  const order = params.length > 0 ? `lex(${ns}), grevlex(${params.length})` : "lex";
+  const ring = new PolynomialRing([...others, species, ...params], QQ, order);
+  const x = ns - 1;
+  const sat = monomialOf(ring, kin.species.map((_, i) => i));
+  const basis = saturate(odeRows.map((p) => mapToRing(p, ring)), sat, options);
+  for (const g of basis) {
+    const vars = [...variablesOf(g)].filter((k) => k < ns);
+    if (vars.length !== 1 || vars[0] !== x || degreeIn(g, x) !== 1) continue;
+    const [b, a] = coefficientsIn(g, x);
+    const value = simplifyFraction(neg(b), a);
+    return { species, value: formatExpression(value) };
+  }
+  return null;
 }

@@ -2,7 +2,7 @@ import { AlgebraError } from "../algebra/index";
 import type { Rational } from "../algebra/index";
 import { analyseStructure, type NetworkStructure } from "../network/index";
 import type { Network } from "../network/index";
-import { acrSpecies, type AcrSpecies } from "./acr";
+import { acrByGroebner, acrSpecies, type AcrSpecies } from "./acr";
 import { Budget, type BudgetOptions, isOutOfBudget } from "./budget";
 import { monomialOf, saturate } from "./ideal";
 import { kineticsRing, type QPoly } from "./kinetics";
@@ -62,7 +62,7 @@ export interface SteadyStateAnalysis {
  * Phases that run out of time or size become warnings; cancellation (AbortSignal) throws.
  *
  * Example: analyseNetwork(parseNetworkCsv("reaction,rate,reverse_rate\nA <-> B,k1,k2\n")).parametrisation
- * is { free: ["B"], expressions: { A: "k2*B/k1" }, positive: true }.
+ * is { free: ["B"], expressions: { A: "B*k2/k1" }, positive: true }.
  */
 export function analyseNetwork(network: Network, options: AnalyseOptions = {}): SteadyStateAnalysis {
   const budget = new Budget(options);
@@ -127,6 +127,19 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
 
   // ACR and relations.
   const acr = param ? acrSpecies(kin, param) : [];
+  // Species the elimination left as unknowns without a parametrisation: one block-order basis each.
+  if (param && !param.parametrisation && !param.infeasible)
+    for (const s of param.unknowns) {
+      try {
+        budget.progress("acr", `testing ${s} for absolute concentration robustness`);
+        const found = acrByGroebner(kin, odeRows, s, budget.groebner(0.2));
+        if (found) acr.push(found);
+      } catch (e) {
+        if (!isOutOfBudget(e)) throw e;
+        warnings.push(`ACR of ${s} not decided: ${(e as Error).message}.`);
+      }
+    }
+  acr.sort((a, b) => network.species.indexOf(a.species) - network.species.indexOf(b.species));
   const relations: RelationResult[] = [];
   for (const text of options.relations ?? []) {
     try {

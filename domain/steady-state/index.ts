@@ -13,7 +13,7 @@ export { linearElimination, type LinearEliminationResult, type EliminatedSpecies
 export { computeParametrisation, type Parametrisation, type ParametrisationResult } from "./parametrisation";
 export { positiveSolutions, isZeroDimensional, type ZeroDimensionalSolution } from "./zero-dimensional";
 export { numericSteadyStates, type NumericSteadyState } from "./numeric-steady-states";
-export { acrSpecies, type AcrSpecies } from "./acr";
+export { acrSpecies, acrByGroebner, type AcrSpecies } from "./acr";
 export { testRelation, type RelationResult } from "./relation";
 export { saturate } from "./ideal";
 export { triangularForm, genericConditions } from "./triangular";

@@ -59,8 +59,10 @@ export function linearElimination(kin: KineticsRing, equations: readonly QPoly[]
     for (const e of list) {
       const vars = [...variablesOf(e)];
       const pattern = signPattern(e);
+      if ((pattern === "positive" || pattern === "negative") && e.coeffs.length === 1)
+        return "a steady-state equation reduces to a single product of concentrations and rate constants, which cannot vanish when all of them are positive";
       if (pattern === "positive" || pattern === "negative")
-        return `the equation ${ring.format(e)} = 0 has coefficients of one sign, so it has no solution with positive species and parameters`;
+        return `the steady-state equation ${ring.format(e)} = 0 (after removing factors that are products of species) has coefficients of one sign, so it has no solution with positive species and parameters`;
       if (!vars.some(isSpecies)) return `the steady states require the parameter relation ${ring.format(e)} = 0`;
     }
     return null;

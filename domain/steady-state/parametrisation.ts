@@ -68,7 +68,7 @@ export function computeParametrisation(kin: KineticsRing, odeRows: readonly QPol
       eliminated = eliminated.map((e) => ({ ...e, expression: composeExpression(e.expression, k, later.expression.num, later.expression.den, pivots) }));
     }
     eliminated.push(...second.eliminated);
-    unknowns = second.remainingSpecies;
+    unknowns = second.remainingSpecies.filter((s) => first.remainingSpecies.includes(s));
     remaining = second.remaining;
     infeasible = second.infeasible;
     if (basis.length === 1 && basis[0].coeffs.length === 1 && basis[0].exps.every((e) => e === 0))

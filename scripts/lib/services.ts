@@ -47,15 +47,26 @@ export function buildIsStale(): boolean {
   return BUILD_INPUTS.some((input) => newestMtime(path.resolve(input)) > built);
 }
 
-export function buildApp() {
-  log("build", "building the app (react-router build)");
-  const res = spawnSync(bin("react-router"), ["build"], { stdio: "inherit", env: { ...process.env, NODE_ENV: "production" } });
-  if (res.status !== 0) throw new Error("react-router build failed");
+/** react-router build into `buildDir` (default build/); returns the server entry to serve. */
+export function buildApp(buildDir = "build", options: { quiet?: boolean } = {}): string {
+  log("build", `building the app into ${buildDir}/ (react-router build)`);
+  const res = spawnSync(bin("react-router"), ["build"], {
+    stdio: options.quiet ? "pipe" : "inherit",
+    encoding: "utf8",
+    env: { ...process.env, NODE_ENV: "production", STILLPOINT_BUILD_DIR: buildDir },
+  });
+  if (res.status !== 0) throw new Error(`react-router build failed${options.quiet ? `:\n${res.stdout}\n${res.stderr}` : ""}`);
+  return path.join(buildDir, "server", "index.js");
 }
 
 /** The production server (react-router-serve) on HOST:PORT from `env`. */
-export async function startAppServer(env: NodeJS.ProcessEnv, host: string, port: number, options: { quiet?: boolean } = {}) {
-  const p = startProcess("app", bin("react-router-serve"), ["build/server/index.js"], {
+export async function startAppServer(
+  env: NodeJS.ProcessEnv,
+  host: string,
+  port: number,
+  options: { quiet?: boolean; serverEntry?: string } = {},
+) {
+  const p = startProcess("app", bin("react-router-serve"), [options.serverEntry ?? "build/server/index.js"], {
     env: { ...env, NODE_ENV: "production", HOST: host, PORT: String(port) },
     quiet: options.quiet,
   });

@@ -2,7 +2,8 @@
  * Signing in from browser tests the way a person does: type the address, read the code from the
  * local mail catcher's REST API (maildev `GET /api/email`), type the code. Other e2e files may
  * use `signInWithCode` too. `resetSignInLimits` clears the sign-in rate-limit ledger for an
- * address through E2E_DATABASE_URL, so many test files can sign in as the same demo person.
+ * address (and spent codes) through E2E_DATABASE_URL, so many test files can sign in as the same
+ * demo person without tripping the per-address and per-client limits.
  */
 import type { Page } from "playwright-core";
 import pg from "pg";
@@ -38,7 +39,8 @@ export async function resetSignInLimits(address: string): Promise<void> {
   const client = new pg.Client({ connectionString: url });
   await client.connect();
   try {
-    await client.query("DELETE FROM login_codes WHERE email = $1", [address.toLowerCase()]);
+    // This address's codes, and used codes of anyone (they only count towards the shared client limit).
+    await client.query("DELETE FROM login_codes WHERE email = $1 OR consumed_at IS NOT NULL", [address.toLowerCase()]);
   } finally {
     await client.end();
   }

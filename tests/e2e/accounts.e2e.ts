@@ -82,6 +82,9 @@ describe.skipIf(!hasApp)("accounts: sign-in, labs and invitations in headless ch
     expect(rename.status()).toBe(403);
     const invite = await page.request.post(`${labPath}/members`, { form: { intent: "invite", email: "x@e2e.test", role: "owner" } });
     expect(invite.status()).toBe(403);
+    // Networks are what editors edit: the upload page and its action refuse a viewer too.
+    expect((await page.request.get(`${labPath}/networks/new`)).status()).toBe(403);
+    expect((await page.request.post(`${labPath}/networks/new`, { form: { name: "Forged" } })).status()).toBe(403);
     const audit = await page.request.get(`/api${labPath}/audit`);
     expect(audit.status()).toBe(403);
     expect(await audit.json()).toMatchObject({ error: { code: "forbidden" } });

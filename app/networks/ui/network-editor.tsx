@@ -47,11 +47,17 @@ export function NetworkEditor({
   const check = useMemo(() => checkGrid(rows), [rows]);
   const navigation = useNavigation();
   const saving = navigation.state === "submitting";
-  // Server problems refer to the CSV the grid wrote, so they map to rows the same way.
-  const serverProblems = failure?.error.details?.problems ?? [];
+  // Server problems refer to the CSV the grid wrote, so they map to rows the same way; after
+  // the next edit they describe a grid that no longer exists and the live check takes over.
+  const [editedAfter, setEditedAfter] = useState<EditorFailure | null | undefined>(undefined);
+  const serverProblems = failure && editedAfter !== failure ? (failure.error.details?.problems ?? []) : [];
   const fields = failure?.error.details?.fields ?? {};
 
-  const update = (index: number, key: keyof GridRow, value: string) => setRows((rs) => rs.map((r, i) => (i === index ? { ...r, [key]: value } : r)));
+  const edit = (next: (rows: GridRow[]) => GridRow[]) => {
+    setRows(next);
+    setEditedAfter(failure);
+  };
+  const update = (index: number, key: keyof GridRow, value: string) => edit((rs) => rs.map((r, i) => (i === index ? { ...r, [key]: value } : r)));
 
   async function loadFile(file: File) {
     if (file.size > MAX_CSV_BYTES) {
@@ -61,14 +67,14 @@ export function NetworkEditor({
     const text = await file.text();
     const loaded = csvToGrid(text);
     const parsed = tryParseNetworkCsv(text);
-    setRows(loaded.rows);
+    edit(() => loaded.rows);
     setNotices(loaded.notices);
     setFileProblems({ name: file.name, problems: parsed.ok ? [] : parsed.problems });
   }
 
   function loadDemo(demo: DemoNetwork) {
     const loaded = csvToGrid(demo.csv);
-    setRows(loaded.rows.map((r) => ({ ...r, sourceLine: undefined })));
+    edit(() => loaded.rows.map((r) => ({ ...r, sourceLine: undefined })));
     setNotices([]);
     setFileProblems(null);
   }
@@ -223,7 +229,7 @@ export function NetworkEditor({
                         <input
                           value={row[c.key]}
                           onChange={(e) => update(i, c.key, e.target.value)}
-                          placeholder={i === 0 ? c.placeholder : undefined}
+                          placeholder={rows.length === 1 && GRID_COLUMNS.every((k) => row[k.key] === "") ? c.placeholder : undefined}
                           aria-label={`${c.label}, row ${i + 1}`}
                           aria-invalid={bad.has(c.key)}
                           className={`${cellCls} ${bad.has(c.key) ? "border-danger bg-surface" : ""}`}
@@ -231,13 +237,13 @@ export function NetworkEditor({
                       </td>
                     ))}
                     <td className="whitespace-nowrap px-2 py-1 text-right">
-                      <button type="button" className="px-1 text-muted hover:text-ink disabled:opacity-30" aria-label={`Move row ${i + 1} up`} disabled={i === 0} onClick={() => setRows((rs) => moveRow(rs, i, i - 1))}>
+                      <button type="button" className="px-1 text-muted hover:text-ink disabled:opacity-30" aria-label={`Move row ${i + 1} up`} disabled={i === 0} onClick={() => edit((rs) => moveRow(rs, i, i - 1))}>
                         ↑
                       </button>
-                      <button type="button" className="px-1 text-muted hover:text-ink disabled:opacity-30" aria-label={`Move row ${i + 1} down`} disabled={i === rows.length - 1} onClick={() => setRows((rs) => moveRow(rs, i, i + 1))}>
+                      <button type="button" className="px-1 text-muted hover:text-ink disabled:opacity-30" aria-label={`Move row ${i + 1} down`} disabled={i === rows.length - 1} onClick={() => edit((rs) => moveRow(rs, i, i + 1))}>
                         ↓
                       </button>
-                      <button type="button" className="px-1 text-muted hover:text-danger" aria-label={`Remove row ${i + 1}`} onClick={() => setRows((rs) => (rs.length === 1 ? [emptyRow()] : rs.filter((_, j) => j !== i)))}>
+                      <button type="button" className="px-1 text-muted hover:text-danger" aria-label={`Remove row ${i + 1}`} onClick={() => edit((rs) => (rs.length === 1 ? [emptyRow()] : rs.filter((_, j) => j !== i)))}>
                         ✕
                       </button>
                     </td>
@@ -261,7 +267,7 @@ export function NetworkEditor({
             </tbody>
           </table>
         </div>
-        <button type="button" className="btn-quiet py-1.5" onClick={() => setRows((rs) => [...rs, emptyRow()])}>
+        <button type="button" className="btn-quiet py-1.5" onClick={() => edit((rs) => [...rs, emptyRow()])}>
           + Add a reaction
         </button>
       </div>

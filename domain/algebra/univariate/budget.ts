@@ -9,7 +9,10 @@ export interface RunLimits {
   readonly signal?: AbortSignal;
 }
 
-/** Throws a UnivariateError ("aborted" or "deadline") when a limit has been reached. */
+/**
+ * Throws a UnivariateError (reason "aborted" or "deadline") when a limit has been reached.
+ * Example: checkLimits({ deadline: Date.now() - 1 }, "isolation") throws a "timeout" error.
+ */
 export function checkLimits(limits: RunLimits | undefined, what: string): void {
   if (!limits) return;
   if (limits.signal?.aborted) throw new UnivariateError("aborted", `${what} was cancelled`);

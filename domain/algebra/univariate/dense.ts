@@ -21,6 +21,7 @@ import { UnivariateError } from "./errors";
  */
 export type IntPoly = readonly bigint[];
 export type RatPoly = readonly Rational[];
+/** Either flavour; functions taking it tell them apart by the coefficient type. */
 export type UPoly = IntPoly | RatPoly;
 
 const isIntPoly = (p: UPoly): p is IntPoly => p.length === 0 || typeof p[0] === "bigint";
@@ -101,7 +102,7 @@ export function toIntegerPrimitive(p: UPoly): IntPoly {
 /** Degree, -1 for the zero polynomial. Example: degree([1n, 0n, 3n]) is 2. */
 export const degree = (p: UPoly): number => p.length - 1;
 
-/** True for the zero polynomial `[]`. */
+/** True for the zero polynomial `[]`. Example: isZeroPoly(fromIntegerCoefficients([0])) is true. */
 export const isZeroPoly = (p: UPoly): boolean => p.length === 0;
 
 /**
@@ -183,7 +184,8 @@ export function derivative(p: UPoly): UPoly {
 
 /**
  * Homogenised Horner value b^n·p(a/b) for an integer polynomial of degree n, b > 0: an integer
- * with the sign of p(a/b), computed without any division.
+ * with the sign of p(a/b), computed without any division (common practice).
+ * Example: homogeneousValue(x^2 - 2, 3/2) is 1 (= 2^2·(9/4 - 2)).
  */
 export function homogeneousValue(p: IntPoly, x: Rational): bigint {
   const n = p.length - 1;
@@ -218,7 +220,7 @@ export function signAt(p: UPoly, x: Rational): -1 | 0 | 1 {
   return v > 0n ? 1 : v < 0n ? -1 : 0;
 }
 
-/** Negated polynomial, p(x) -> -p(x). */
+/** Negated polynomial, p(x) -> -p(x). Example: negateRat([1, -1/2]) is [-1, 1/2]. */
 export function negateRat(p: RatPoly): RatPoly {
   return p.map(negQ);
 }

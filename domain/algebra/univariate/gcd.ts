@@ -1,4 +1,5 @@
 import { type IntPoly, type UPoly, content, degree, toIntegerPrimitive } from "./dense";
+import { type RunLimits, checkLimits } from "./budget";
 import { pseudoRemainder } from "./division";
 
 /**
@@ -9,13 +10,14 @@ import { pseudoRemainder } from "./division";
  * reduced polynomial remainder sequences"; Knuth, TAOCP vol. 2, Algorithm E, recalled from
  * memory): pseudo-remainders with the content removed at every step keep coefficients small.
  */
-export function gcd(a: UPoly, b: UPoly): IntPoly {
+export function gcd(a: UPoly, b: UPoly, limits?: RunLimits): IntPoly {
   let p = toIntegerPrimitive(a);
   let q = toIntegerPrimitive(b);
   if (p.length === 0) return q;
   if (q.length === 0) return p;
   if (degree(p) < degree(q)) [p, q] = [q, p];
   for (;;) {
+    checkLimits(limits, "polynomial gcd");
     if (degree(q) === 0) return [1n];
     const r = pseudoRemainder(p, q);
     if (r.length === 0) return q;

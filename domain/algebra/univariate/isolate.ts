@@ -18,6 +18,7 @@ export interface RootInterval {
   readonly multiplicity: number;
 }
 
+/** Options of isolateRealRoots: limits, and `positiveOnly` for roots > 0 only. */
 export interface IsolationOptions extends RunLimits {
   /** Only strictly positive roots (e.g. positive steady states). */
   readonly positiveOnly?: boolean;
@@ -28,7 +29,7 @@ interface OpenInterval {
   hi: Rational;
 }
 
-/** True when the interval is a single exact point. */
+/** True when the interval is a single exact point. Example: isExactRoot({ lo: 1/2, hi: 1/2 }) is true. */
 export const isExactRoot = (iv: { lo: Rational; hi: Rational }): boolean =>
   iv.lo.num === iv.hi.num && iv.lo.den === iv.hi.den;
 
@@ -46,7 +47,7 @@ export function isolateRealRoots(p: UPoly, options: IsolationOptions = {}): Root
   const a = toIntegerPrimitive(p);
   if (a.length === 0) throw new UnivariateError("zero-polynomial", "isolateRealRoots: every number is a root of the zero polynomial");
   if (a.length === 1) return [];
-  const { factors } = squareFreeFactorization(a);
+  const { factors } = squareFreeFactorization(a, options);
   let f: IntPoly = [1n];
   for (const { factor } of factors) f = mulInt(f, factor);
   f = primitivePart(f);
@@ -107,13 +108,33 @@ function isolatePositiveRoots(g: IntPoly, limits: RunLimits): OpenInterval[] {
     const right = [...left];
     for (let i = 0; i < n; i++) for (let j = n - 1; j >= i; j--) right[j] += right[j + 1];
     if (right[0] === 0n) out.push({ lo: endpoint(2n * c + 1n, k + 1), hi: endpoint(2n * c + 1n, k + 1) });
-    stack.push({ q: primitivePart(right), c: 2n * c + 1n, k: k + 1 });
-    stack.push({ q: primitivePart(left), c: 2n * c, k: k + 1 });
+    stack.push({ q: removePowerOfTwo(right), c: 2n * c + 1n, k: k + 1 });
+    stack.push({ q: removePowerOfTwo(left), c: 2n * c, k: k + 1 });
   }
   return out.sort((x, y) => compare(x.lo, y.lo) || compare(x.hi, y.hi));
 }
 
-/** One bisection step on a sign-changing interval of the square-free f; may land on the root. */
+/**
+ * Divides out the largest power of two common to all coefficients: the part of the content the
+ * halving steps create, found by bit tests instead of gcds of long integers.
+ */
+function removePowerOfTwo(p: bigint[]): bigint[] {
+  let shift = Infinity;
+  for (const v of p) {
+    if (v === 0n) continue;
+    const a = v < 0n ? -v : v;
+    shift = Math.min(shift, (a & -a).toString(2).length - 1);
+    if (shift === 0) return p;
+  }
+  if (shift === Infinity) return p;
+  const s = BigInt(shift);
+  return p.map((v) => v >> s);
+}
+
+/**
+ * One bisection step on a sign-changing interval of the square-free f; may land on the root.
+ * Example: bisectOnce(x^2 - 2, (1, 2)) is (1, 3/2). Common practice.
+ */
 export function bisectOnce(f: IntPoly, iv: OpenInterval): OpenInterval {
   const mid = rational(iv.lo.num * iv.hi.den + iv.hi.num * iv.lo.den, 2n * iv.lo.den * iv.hi.den);
   const sMid = signAt(f, mid);

@@ -1,21 +1,12 @@
-import {
-  type Rational,
-  add,
-  compare,
-  div,
-  fromInt,
-  mul,
-  rational,
-  sign,
-  sub,
-  toNumber,
-} from "../rational";
-import { type RunLimits, checkLimits } from "./budget";
-import { type IntPoly, type UPoly, homogeneousValue, signAt } from "./dense";
+import { type Rational, add, compare, div, fromInt, rational, sign, toNumber, ZERO } from "../rational";
+import type { RunLimits } from "./budget";
+import { type IntPoly, type UPoly, signAt } from "./dense";
 import { UnivariateError } from "./errors";
-import { type RootInterval, bisectOnce, isExactRoot } from "./isolate";
+import { type RootInterval, isExactRoot } from "./isolate";
+import { refineByQir } from "./qir";
 import { squareFreePart } from "./squarefree";
 
+/** Targets of refineRootInterval (at least one of width, relativeWidth) and limits. */
 export interface RefineOptions extends RunLimits {
   /** Stop once hi - lo <= width. */
   readonly width?: Rational;
@@ -23,7 +14,17 @@ export interface RefineOptions extends RunLimits {
   readonly relativeWidth?: Rational;
 }
 
-const abs = (a: Rational): Rational => (a.num < 0n ? { num: -a.num, den: a.den } : a);
+// Refining every root of one polynomial should not redo its gcd each time; polynomials are
+// readonly arrays, so caching by identity is safe.
+const squareFreeCache = new WeakMap<UPoly, IntPoly>();
+function squareFreeOf(p: UPoly, limits?: RunLimits): IntPoly {
+  let f = squareFreeCache.get(p);
+  if (!f) {
+    f = squareFreePart(p, limits);
+    squareFreeCache.set(p, f);
+  }
+  return f;
+}
 
 /** Checks an interval against the square-free part f; returns f's sign at lo (0 for exact roots). */
 function validate(f: IntPoly, iv: { lo: Rational; hi: Rational }, what: string): number {
@@ -44,23 +45,13 @@ function validate(f: IntPoly, iv: { lo: Rational; hi: Rational }, what: string):
 
 const fmt = (r: Rational): string => (r.den === 1n ? `${r.num}` : `${r.num}/${r.den}`);
 
-function done(iv: { lo: Rational; hi: Rational }, options: RefineOptions): boolean {
-  const w = sub(iv.hi, iv.lo);
-  if (options.width && compare(w, options.width) <= 0) return true;
-  if (options.relativeWidth && sign(iv.lo) * sign(iv.hi) > 0) {
-    const m = compare(abs(iv.lo), abs(iv.hi)) < 0 ? abs(iv.lo) : abs(iv.hi);
-    if (compare(w, mul(options.relativeWidth, m)) <= 0) return true;
-  }
-  return false;
-}
-
 /**
  * Shrinks an isolating interval (from isolateRealRoots) around its root until it meets `width`
  * and/or `relativeWidth`; exact roots come back unchanged. Each step is checked by exact signs:
  * a secant guess on a grid of N cells is accepted only when the signs confirm the root lies in
  * that cell (then N is squared), otherwise the step is a plain bisection (and N shrinks).
  * Example: refineRootInterval(x^2 - 2, (1, 2), { width: 1/1000 }) gives an interval of width
- * <= 1/1000 around 1.41421…, e.g. (181/128, 1449/1024).
+ * <= 1/1000 around 1.41421…: (11585/8192, 23171/16384).
  * Follows Abbott 2006, "Quadratic interval refinement for real roots" (recalled from memory),
  * falling back to bisection (common practice).
  */
@@ -71,62 +62,18 @@ export function refineRootInterval(p: UPoly, interval: RootInterval, options: Re
   if ((options.width && sign(options.width) <= 0) || (options.relativeWidth && sign(options.relativeWidth) <= 0)) {
     throw new UnivariateError("invalid-argument", "refineRootInterval: width and relativeWidth must be positive");
   }
-  const f = squareFreePart(p);
-  validate(f, interval, "refineRootInterval");
-  let iv: { lo: Rational; hi: Rational } = { lo: interval.lo, hi: interval.hi };
+  const f = squareFreeOf(p, limits(options));
+  const sLo = validate(f, interval, "refineRootInterval");
+  if (isExactRoot(interval)) return interval;
   // A root at 0 cannot be approached in relative terms: settle it first.
-  if (sign(iv.lo) < 0 && sign(iv.hi) > 0 && signAt(f, fromInt(0)) === 0) iv = { lo: fromInt(0), hi: fromInt(0) };
-  let cells = 4n;
-  let steps = 0;
-  while (!isExactRoot(iv) && !done(iv, options)) {
-    if ((steps++ & 15) === 0) checkLimits(limits(options), "root refinement");
-    const next = secantStep(f, iv, cells);
-    if (next) {
-      iv = next;
-      cells = cells < 1n << 64n ? cells * cells : cells;
-    } else {
-      iv = bisectOnce(f, iv);
-      cells = cells > 4n ? sqrtPow2(cells) : 4n;
-    }
+  if (sign(interval.lo) < 0 && sign(interval.hi) > 0 && signAt(f, ZERO) === 0) {
+    return { lo: ZERO, hi: ZERO, multiplicity: interval.multiplicity };
   }
-  return { lo: iv.lo, hi: iv.hi, multiplicity: interval.multiplicity };
+  const { lo, hi } = refineByQir(f, interval.lo, interval.hi, sLo, options, limits(options));
+  return { lo, hi, multiplicity: interval.multiplicity };
 }
 
 const limits = (o: RefineOptions): RunLimits => ({ deadline: o.deadline, signal: o.signal });
-
-function sqrtPow2(n: bigint): bigint {
-  return 1n << BigInt(Math.floor((n.toString(2).length - 1) / 2));
-}
-
-/** One quadratic-interval-refinement step: the secant guess, confirmed on a grid of `cells` cells. */
-function secantStep(f: IntPoly, iv: { lo: Rational; hi: Rational }, cells: bigint): { lo: Rational; hi: Rational } | null {
-  // Values as integer fractions H/den^n (homogenised Horner), so no gcd of huge numbers is needed.
-  const n = BigInt(f.length - 1);
-  const vLo = homogeneousValue(f, iv.lo) * iv.hi.den ** n;
-  const vHi = homogeneousValue(f, iv.hi) * iv.lo.den ** n;
-  const w = sub(iv.hi, iv.lo);
-  // Secant root t = lo + w·vLo/(vLo - vHi); its cell index j = round(cells·(t - lo)/w).
-  let num = vLo * cells;
-  let den = vLo - vHi;
-  if (den < 0n) [num, den] = [-num, -den];
-  let j = (2n * num + den) / (2n * den);
-  if (j < 0n) j = 0n;
-  if (j > cells) j = cells;
-  const point = (i: bigint): Rational => add(iv.lo, mul(w, rational(i, cells)));
-  const sLo = signAt(f, iv.lo);
-  const sAt = (i: bigint): number => (i === 0n ? sLo : i === cells ? -sLo : signAt(f, point(i)));
-  const sj = sAt(j);
-  if (sj === 0) return { lo: point(j), hi: point(j) };
-  if (sj === sLo) {
-    // Root to the right of point j: confirm it before point j+1.
-    const s2 = sAt(j + 1n);
-    if (s2 === 0) return { lo: point(j + 1n), hi: point(j + 1n) };
-    return s2 !== sLo ? { lo: point(j), hi: j + 1n === cells ? iv.hi : point(j + 1n) } : null;
-  }
-  const s0 = sAt(j - 1n);
-  if (s0 === 0) return { lo: point(j - 1n), hi: point(j - 1n) };
-  return s0 === sLo ? { lo: j - 1n === 0n ? iv.lo : point(j - 1n), hi: point(j) } : null;
-}
 
 /**
  * Float approximation of the root in an isolating interval, accurate to about 1e-15 relative
@@ -136,7 +83,7 @@ function secantStep(f: IntPoly, iv: { lo: Rational; hi: Rational }, cells: bigin
  */
 export function approximateRoot(p: UPoly, interval: RootInterval, options: RunLimits = {}): number {
   if (isExactRoot(interval)) {
-    validate(squareFreePart(p), interval, "approximateRoot");
+    validate(squareFreeOf(p, options), interval, "approximateRoot");
     return toNumber(interval.lo);
   }
   const r = refineRootInterval(p, interval, { ...options, relativeWidth: rational(1n, 1n << 56n) });
@@ -149,7 +96,7 @@ export function approximateRoot(p: UPoly, interval: RootInterval, options: RunLi
  * (√2 > 1.4). Common practice (sign of the square-free part at r against its sign at lo).
  */
 export function compareRootWithRational(p: UPoly, interval: RootInterval, r: Rational): -1 | 0 | 1 {
-  const f = squareFreePart(p);
+  const f = squareFreeOf(p);
   const sLo = validate(f, interval, "compareRootWithRational");
   if (isExactRoot(interval)) return compare(interval.lo, r);
   if (compare(r, interval.lo) <= 0) return 1;

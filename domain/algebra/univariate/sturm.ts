@@ -1,5 +1,6 @@
 import type { Rational } from "../rational";
 import { type IntPoly, type UPoly, derivative, signAt, toIntegerPrimitive } from "./dense";
+import { type RunLimits, checkLimits } from "./budget";
 import { pseudoRemainder } from "./division";
 import { UnivariateError } from "./errors";
 import { primitivePart } from "./gcd";
@@ -11,13 +12,14 @@ import { squareFreePart } from "./squarefree";
  * Example: for x^2 - 2 it is [x^2 - 2, x, 1] (as integer lists [-2n, 0n, 1n], [0n, 1n], [1n]).
  * Sturm 1829, "Mémoire sur la résolution des équations numériques".
  */
-export function sturmSequence(p: UPoly): IntPoly[] {
+export function sturmSequence(p: UPoly, limits?: RunLimits): IntPoly[] {
   const p0 = toIntegerPrimitive(p);
   if (p0.length === 0) throw new UnivariateError("zero-polynomial", "sturmSequence: the zero polynomial has no Sturm sequence");
   const seq: IntPoly[] = [p0];
   if (p0.length === 1) return seq;
   seq.push(primitivePart(derivative(p0)));
   for (;;) {
+    checkLimits(limits, "Sturm sequence");
     const a = seq[seq.length - 2];
     const b = seq[seq.length - 1];
     let r = pseudoRemainder(a, b);
@@ -38,8 +40,11 @@ function gcdAbs(a: bigint, b: bigint): bigint {
   return a;
 }
 
-/** Sign variations of a Sturm sequence at a point, ±Infinity allowed (zeros skipped). */
-export function sturmVariationsAt(seq: readonly IntPoly[], x: Rational | typeof Infinity | number): number {
+/**
+ * Sign variations of a Sturm sequence at a rational point or at ±Infinity (zeros skipped).
+ * Example: for [x^2 - 2, x, 1] it is 1 at 0 (signs -, 0, +) and 0 at +Infinity.
+ */
+export function sturmVariationsAt(seq: readonly IntPoly[], x: Rational | number): number {
   let count = 0;
   let last = 0;
   for (const q of seq) {
@@ -65,11 +70,11 @@ export function sturmVariationsAt(seq: readonly IntPoly[], x: Rational | typeof 
  * Sturm 1829; Basu, Pollack & Roy, "Algorithms in Real Algebraic Geometry" (Sturm's theorem,
  * chapter 2, recalled from memory).
  */
-export function countRealRootsSturm(p: UPoly, lo?: Rational, hi?: Rational): number {
-  const f = squareFreePart(p);
+export function countRealRootsSturm(p: UPoly, lo?: Rational, hi?: Rational, limits?: RunLimits): number {
+  const f = squareFreePart(p, limits);
   if (f.length === 0) throw new UnivariateError("zero-polynomial", "countRealRootsSturm: the zero polynomial has infinitely many roots");
   if (lo && hi && lo.num * hi.den > hi.num * lo.den) return 0;
-  const seq = sturmSequence(f);
+  const seq = sturmSequence(f, limits);
   const vLo = sturmVariationsAt(seq, lo ?? -Infinity);
   const vHi = sturmVariationsAt(seq, hi ?? Infinity);
   return vLo - vHi + (lo && signAt(f, lo) === 0 ? 1 : 0);

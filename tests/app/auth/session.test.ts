@@ -20,7 +20,7 @@ describe.skipIf(!hasTestDatabase)("server-side sessions", () => {
     return (await getOptionalUser(makeRequest("/", { cookie })))?.id ?? null;
   };
   const sessionRows = (id: string) =>
-    t.db.withTables<{ sessions: { user_id: string | null; id_hash: string } }>().selectFrom("sessions").select("id_hash").where("user_id", "=", id).execute();
+    t.db.selectFrom("sessions").select("id_hash").where("user_id", "=", id).execute();
 
   it("sets an httpOnly, SameSite=Lax, signed cookie (not Secure on plain http)", async () => {
     const { getSession, commitSession } = await import("~/auth/session.server");

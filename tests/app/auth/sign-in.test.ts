@@ -38,7 +38,7 @@ describe.skipIf(!hasTestDatabase)("sign-in with an e-mailed code", () => {
   });
   beforeEach(async () => {
     outbox.length = 0;
-    await t.db.deleteFrom("login_codes" as never).execute();
+    await t.db.deleteFrom("login_codes").execute();
   });
   afterEach(() => {
     vi.useRealTimers();

@@ -9,8 +9,8 @@ describe("parseBenchOptions", () => {
     expect(DEFAULT_OPTIONS.tools).toEqual(["ours", "sympy", "singular"]);
   });
   it("reads every option", () => {
-    const o = parseBenchOptions(["--only", "katsura-5,cyclic-5", "--repeat", "5", "--timeout", "60", "--quick", "--field", "32003", "--tools", "sympy,singular", "--long", "10"]);
-    expect(o).toMatchObject({ only: ["katsura-5", "cyclic-5"], repeat: 5, timeout: 60, quick: true, prime: 32003n, tools: ["sympy", "singular"], long: 10 });
+    const o = parseBenchOptions(["--only", "katsura-5,cyclic-5", "--repeat", "5", "--timeout", "60", "--quick", "--field", "32003", "--tools", "sympy,singular", "--long", "10", "--launcher", "node"]);
+    expect(o).toMatchObject({ launcher: "node", only: ["katsura-5", "cyclic-5"], repeat: 5, timeout: 60, quick: true, prime: 32003n, tools: ["sympy", "singular"], long: 10 });
   });
   it("refuses bad values with a message naming the option", () => {
     expect(() => parseBenchOptions(["--repeat", "0"])).toThrow(/--repeat/);
@@ -18,5 +18,6 @@ describe("parseBenchOptions", () => {
     expect(() => parseBenchOptions(["--timeout"])).toThrow(/--timeout/);
     expect(() => parseBenchOptions(["--tools", "maple"])).toThrow(/maple/);
     expect(() => parseBenchOptions(["--fast"])).toThrow(BenchOptionError);
+    expect(() => parseBenchOptions(["--launcher", "bun"])).toThrow(/--launcher/);
   });
 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { formatNumber, formatRatio, formatTiming, ratioOf, renderTable, type ToolSummary } from "../../../bench/lib/table";
+import { cpuView, formatNumber, formatRatio, formatTiming, ratioOf, renderTable, type ToolSummary } from "../../../bench/lib/table";
 
 const ok = (median: number): ToolSummary => ({ status: "ok", median, runs: [median] });
 const timeout: ToolSummary = { status: "timeout" };
@@ -24,6 +24,19 @@ describe("timings and ratios", () => {
     expect(formatRatio(ratioOf(timeout, ok(6), 120))).toBe(">20.0");
     expect(formatRatio(ratioOf(timeout, timeout, 120))).toBe("–");
     expect(formatRatio(ratioOf({ status: "n/a", reason: "" }, ok(1), 120))).toBe("–");
+  });
+});
+
+describe("cpuView", () => {
+  it("swaps wall time for CPU time, and is n/a without a CPU measurement", () => {
+    const t: ToolSummary = { status: "ok", median: 2, runs: [2, 3, 1], cpuRuns: [1, 1.5, 0.5], cpuMedian: 1 };
+    expect(cpuView(t)).toEqual({ status: "ok", median: 1, runs: [1, 1.5, 0.5] });
+    expect(cpuView(ok(2)).status).toBe("n/a");
+    expect(cpuView(timeout)).toBe(timeout);
+  });
+  it("gives no ratio against a reference below the clock's resolution", () => {
+    expect(ratioOf(ok(0.3), ok(0), 120)).toBeUndefined();
+    expect(formatNumber(0)).toBe("0");
   });
 });
 

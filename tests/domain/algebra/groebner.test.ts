@@ -113,3 +113,16 @@ describe("limits: deadline, budget, cancellation, progress", () => {
     expect(seen.every((p) => p.pairsLeft >= 0 && p.basisSize > 0 && p.degree > 0)).toBe(true);
   });
 });
+
+describe("modular method over Q: unlucky primes are detected", () => {
+  it("falls back when the first prime merges two generators (x - 1 and x - 1 - p)", async () => {
+    const { MODULAR_PRIMES } = await import("@domain/algebra/groebner/modular");
+    const p = MODULAR_PRIMES[0];
+    const sys = { name: "unlucky", vars: ["x", "y"], polys: ["x - 1 + y^2", `x - 1 - ${p} + y^2`] };
+    expect(basisOf(sys, "grevlex", QQ as Field<unknown>, "modular").text).toEqual(["1"]);
+    const sys2 = { name: "unlucky-lc", vars: ["x", "y"], polys: [`${p}*x^2 - y`, "x*y - 1"] };
+    const a = basisOf(sys2, "grevlex", QQ as Field<unknown>, "modular");
+    expect(a.text).toEqual(basisOf(sys2, "grevlex", QQ as Field<unknown>, "buchberger").text);
+    checkSameIdeal(a.F, a.G);
+  });
+});

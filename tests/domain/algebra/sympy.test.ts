@@ -55,7 +55,7 @@ function buildTasks(): Task[] {
     const nv = 2 + (t % 3);
     const vars = ["x", "y", "z"].slice(0, nv);
     const modulus = t % 4 === 3 ? 101 : 0;
-    const o = { nvars: nv, npolys: 1, maxDegree: 3, maxTerms: 3, minTerms: 1, coeffBound: t % 2 ? 10n ** 9n : 9n, fractions: modulus === 0 };
+    const o = { nvars: nv, npolys: 1, maxDegree: 3, maxTerms: 3, minTerms: 1, coeffBound: modulus ? 100n : t % 2 ? 10n ** 9n : 9n, fractions: modulus === 0 }; // < p: no divisor vanishes mod p
     const f = randomPolyText(rnd, vars, { ...o, maxDegree: 6, maxTerms: 7 });
     const gs = Array.from({ length: randInt(rnd, 1, 3) }, () => randomPolyText(rnd, vars, o));
     tasks.push({ op: "reduced", vars, order: orders[t % 3], modulus, polys: [f, ...gs], label: `division ${t}` });

@@ -84,9 +84,10 @@ describe("random small networks", () => {
       const found = multistartPositiveSolutions((x) => ({ f: square.values(x), jacobian: square.jacobian(x) }), {
         low: kin.species.map(() => 1e-3),
         high: kin.species.map(() => 20),
-        starts: 120,
+        starts: 80,
         seed: trial + 1,
         residualTol: 1e-10,
+        maxIterations: 60,
       });
       for (const x of found) {
         // Log-coordinate Newton can creep towards a boundary steady state (a species → 0) while the

@@ -40,3 +40,6 @@ export function expectValidIsolation(p: IntPoly, ivs: readonly RootInterval[]): 
   });
   return problems;
 }
+
+/** |r| as a float, for coarse test checks only. */
+export const absFloat = (r: Rational): number => Math.abs(Number(r.num) / Number(r.den));

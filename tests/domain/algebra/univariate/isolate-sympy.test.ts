@@ -21,7 +21,7 @@ import { prng, q } from "./helpers";
 
 const SYMPY_SCRIPT = `
 import json, sys
-from sympy import Poly, symbols, real_roots, Rational, N
+from sympy import Poly, symbols, real_roots, Rational, N, sympify
 x = symbols('x')
 out = []
 for case in json.load(sys.stdin):
@@ -31,7 +31,10 @@ for case in json.load(sys.stdin):
     if case['roots']:
         res['roots'] = [[str(r) if r.is_Rational else None, str(N(r, 30))] for r in real_roots(p)]
     out.append(res)
-print(json.dumps(out))
+digits = {}
+for name, expr, d in [('sqrt2', 'sqrt(2)', 1010), ('x5', 'real_roots(x**5 - x - 1)[0]', 1010)]:
+    digits[name] = str(N(sympify(expr, locals={'x': x}), d))
+print(json.dumps({'cases': out, 'digits': digits}))
 `;
 
 interface Case {
@@ -46,7 +49,7 @@ interface SympyAnswer {
   roots?: [string | null, string][];
 }
 
-function askSympy(cases: Case[]): SympyAnswer[] {
+function askSympy(cases: Case[]): { cases: SympyAnswer[]; digits: Record<string, string> } {
   const input = JSON.stringify(
     cases.map((c) => ({
       coeffs: [...c.p].reverse().map(String), // SymPy lists the highest coefficient first
@@ -80,7 +83,7 @@ function buildCases(): Case[] {
 
 describe("real roots against SymPy 1.11 (Poly.count_roots, real_roots)", () => {
   const cases = buildCases();
-  const answers = askSympy(cases);
+  const { cases: answers, digits } = askSympy(cases);
 
   it.each(cases.map((c, i) => [c.name, i] as const))("%s", (_name, i) => {
     const { p, intervals } = cases[i];
@@ -102,5 +105,16 @@ describe("real roots against SymPy 1.11 (Poly.count_roots, real_roots)", () => {
       expect(compare(sub(tight.lo, d), scale)).toBeLessThan(1);
       expect(compare(sub(d, tight.hi), scale)).toBeLessThan(1);
     });
+  });
+
+  it("refinement to 1000 digits agrees with SymPy's N(·, 1010) for √2 and the real root of x^5 - x - 1", () => {
+    for (const [name, p] of [["sqrt2", [-2n, 0n, 1n]], ["x5", [-1n, -1n, 0n, 0n, 0n, 1n]]] as const) {
+      const [iv] = isolateRealRoots(p, { positiveOnly: true });
+      const tight = refineRootInterval(p, iv, { width: q(1, 10n ** 1000n) });
+      const d = parseRational(digits[name])!; // 1010 significant digits, |error| < 10^-1008
+      const slack = q(1, 10n ** 1000n);
+      expect(compare(sub(tight.lo, d), slack)).toBeLessThan(1);
+      expect(compare(sub(d, tight.hi), slack)).toBeLessThan(1);
+    }
   });
 });

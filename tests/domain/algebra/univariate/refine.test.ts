@@ -96,7 +96,7 @@ describe("approximateRoot", () => {
         expect(x).toBeLessThanOrEqual(box.hi);
         expect(x).toBeGreaterThan(last);
         last = x;
-        // Newton's correction from the float is tiny relative to x (a float sanity check only)
+        // agrees with the midpoint of a far tighter exact enclosure to within one rounding
         const tiny = refineRootInterval(p, iv, { relativeWidth: q(1, 10n ** 30n) });
         const exactMid = rationalIntervalToFloat(tiny).mid;
         expect(Math.abs(x - exactMid)).toBeLessThanOrEqual(Math.abs(exactMid) * 2e-16);

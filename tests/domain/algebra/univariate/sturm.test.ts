@@ -47,6 +47,16 @@ describe("Sturm sequences", () => {
     }
   });
 
+  it("honours an aborted signal (Sturm sequence and gcd)", () => {
+    const controller = new AbortController();
+    controller.abort();
+    const p = fromRoots([q(1), q(2), q(3)]);
+    expect(() => sturmSequence(p, { signal: controller.signal })).toThrow(expect.objectContaining({ code: "cancelled", reason: "aborted" }));
+    expect(() => countRealRootsSturm(p, undefined, undefined, { deadline: Date.now() - 1 })).toThrow(
+      expect.objectContaining({ code: "timeout", reason: "deadline" }),
+    );
+  });
+
   it("refuses the zero polynomial", () => {
     expect(() => countRealRootsSturm([])).toThrow(expect.objectContaining({ code: "domain", reason: "zero-polynomial" }));
   });

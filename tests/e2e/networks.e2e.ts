@@ -1,0 +1,146 @@
+import { mkdirSync } from "node:fs";
+import type { Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { type E2EBrowser, hasApp, openBrowser } from "./support/browser";
+import { signInWithCode } from "./accounts-helpers";
+
+/**
+ * Networks in the browser, as the demo lab's editor: upload a CSV with a mistake, see the row
+ * marked, have the server refuse it too, fix it in the grid and save; upload a second version
+ * and read the differences; sort the lab's table by deficiency; open the complex graph. The
+ * demo viewer then sees the same network read-only. Screenshots go to test-results/networks/
+ * (git-ignored) for a person to look at.
+ */
+const SHOTS = "test-results/networks";
+const LAB = "/labs/halvorsen-enzyme-lab";
+
+const FIRST_UPLOAD = [
+  "# Bench notes: a transporter T carries the ligand L inside (invented example)",
+  "reaction,label,rate,reverse_rate,rate_value",
+  "T + L <-> TL,loading,kin,kout,2",
+  "TL => T + Li,release,krel,,1/2",
+  "Li -> 0,consumption,kuse,,1",
+].join("\n");
+
+const SECOND_UPLOAD = [
+  "reaction,label,rate,reverse_rate,rate_value",
+  "T + L <-> TL,loading,kin,kout,5/2",
+  "TL -> T + Li,release,krel,,1/2",
+  "Li -> 0,consumption,kuse,,1",
+  "0 -> L,supply,ksup,,3",
+].join("\n");
+
+async function shot(page: Page, name: string) {
+  await page.screenshot({ path: `${SHOTS}/${name}.png`, fullPage: true });
+}
+
+describe.skipIf(!hasApp)("networks in headless chromium", () => {
+  let editor: E2EBrowser;
+  let viewer: E2EBrowser;
+  const name = `Ligand transport ${Date.now().toString(36)}`;
+  let networkPath = "";
+
+  beforeAll(async () => {
+    mkdirSync(SHOTS, { recursive: true });
+    editor = await openBrowser();
+    viewer = await openBrowser();
+    const { page } = await editor.page("/sign-in");
+    await signInWithCode(page, "editor@halvorsen.test");
+    await page.close();
+  });
+  afterAll(async () => {
+    await editor?.close();
+    await viewer?.close();
+  });
+
+  it("uploads a CSV with an error, marks the row, refuses it on the server, then saves the fixed grid", async () => {
+    const { page } = await editor.page(`${LAB}/networks/new`);
+    await page.getByLabel("Name").fill(name);
+    await page.getByLabel(/^Tags/).fill("transport, e2e");
+    await page.getByTestId("file-input").setInputFiles({ name: "transport.csv", mimeType: "text/csv", buffer: Buffer.from(FIRST_UPLOAD) });
+
+    const rows = page.getByTestId("grid-row");
+    await expect.poll(() => rows.count()).toBe(3);
+    expect(await rows.nth(1).getAttribute("data-invalid")).toBe("true");
+    expect(await rows.nth(0).getAttribute("data-invalid")).toBe("false");
+    expect(await page.getByTestId("row-problems").first().innerText()).toMatch(/reaction/i);
+    // The file's own line numbers: the comment is line 1, the header line 2, the bad row line 4.
+    expect(await page.getByTestId("file-problems").innerText()).toMatch(/line 4/);
+    await shot(page, "01-upload-with-error");
+
+    // The server is the authority: saving anyway is refused, and the edits stay.
+    await page.getByRole("button", { name: "Save network" }).click();
+    await page.getByTestId("save-error").waitFor();
+    expect(await page.getByTestId("save-error").innerText()).toMatch(/problem/);
+    expect(await page.getByLabel("Name").inputValue()).toBe(name);
+    expect(await page.getByTestId("grid-row").nth(1).getAttribute("data-invalid")).toBe("true");
+    await shot(page, "02-server-refused");
+
+    await page.getByLabel("Reaction, row 2").fill("TL -> T + Li");
+    await expect.poll(() => page.getByTestId("grid-status").innerText()).toMatch(/Looks valid/);
+    expect(await page.getByTestId("grid-row").nth(1).getAttribute("data-invalid")).toBe("false");
+    await page.getByLabel(/^Change note/).fill("From the bench notes, arrow fixed.");
+    await page.getByRole("button", { name: "Save network" }).click();
+    await page.waitForURL(/\/networks\/[0-9a-f-]{36}$/);
+    networkPath = new URL(page.url()).pathname;
+    expect(await page.getByTestId("network-name").innerText()).toContain(name);
+    expect(await page.getByTestId("stat-species").innerText()).toBe("4");
+    expect(await page.getByTestId("stat-reactions").innerText()).toBe("4");
+    expect(await page.getByTestId("conservation-laws").innerText()).toContain("T + TL = total");
+    expect(await page.locator("[data-testid=odes] .katex").count()).toBe(4);
+    await shot(page, "03-saved-network-page");
+  });
+
+  it("uploads a second version and shows what changed", async () => {
+    const { page } = await editor.page(`${networkPath}/edit`);
+    await page.getByTestId("file-input").setInputFiles({ name: "transport-v2.csv", mimeType: "text/csv", buffer: Buffer.from(SECOND_UPLOAD) });
+    await expect.poll(() => page.getByTestId("grid-status").innerText()).toMatch(/Looks valid/);
+    await page.getByLabel(/^Change note/).fill("Ligand supply added; faster loading.");
+    await page.getByRole("button", { name: "Save as new version" }).click();
+    await page.waitForURL(/\/versions\?from=1&to=2$/);
+    expect(await page.getByTestId("reactions-added").innerText()).toContain("0 → L");
+    expect(await page.getByTestId("reactions-changed").innerText()).toContain("rate value 2 → 5/2");
+    expect(await page.getByTestId("reactions-removed").count()).toBe(0);
+    await shot(page, "04-version-diff");
+  });
+
+  it("sorts the lab's network table by deficiency", async () => {
+    const { page } = await editor.page(`${LAB}/networks`);
+    const deficiencies = async () => (await page.locator("[data-testid=network-row] td:nth-child(4)").allInnerTexts()).map(Number);
+    expect((await deficiencies()).length).toBeGreaterThanOrEqual(4);
+    await page.getByRole("button", { name: /Deficiency/ }).click();
+    const first = await deficiencies();
+    const ascending = [...first].sort((a, b) => a - b);
+    const descending = [...ascending].reverse();
+    expect([JSON.stringify(ascending), JSON.stringify(descending)]).toContain(JSON.stringify(first));
+    await page.getByRole("button", { name: /Deficiency/ }).click();
+    const second = await deficiencies();
+    expect(second).toEqual([...first].reverse());
+    expect(new Set(first).size).toBeGreaterThan(1);
+    await shot(page, "05-table-sorted-by-deficiency");
+    // Search by species: only networks containing `Li` stay.
+    await page.getByLabel("Has a species named").fill("Li");
+    await expect.poll(() => page.getByTestId("network-row").count()).toBe(1);
+  });
+
+  it("opens the complex graph drawing", async () => {
+    const { page } = await editor.page(networkPath);
+    const graph = page.getByTestId("complex-graph");
+    await graph.scrollIntoViewIfNeeded();
+    // Version 2: complexes T + L, TL, T + Li, Li, 0 and L; one or more linkage classes, each framed.
+    expect(await graph.getByTestId("complex-node").count()).toBe(6);
+    expect(await graph.getByTestId("linkage-class-frame").count()).toBe(Number(await page.getByTestId("stat-linkage").innerText()));
+    await graph.screenshot({ path: `${SHOTS}/06-complex-graph.png` });
+  });
+
+  it("shows the network read-only to the lab's viewer", async () => {
+    const { page } = await viewer.page("/sign-in");
+    await signInWithCode(page, "viewer@halvorsen.test");
+    await page.goto(networkPath, { waitUntil: "networkidle" });
+    expect(await page.getByTestId("network-name").innerText()).toContain(name);
+    expect(await page.getByRole("link", { name: "Edit as new version" }).count()).toBe(0);
+    expect(await page.getByRole("button", { name: "Save details" }).count()).toBe(0);
+    const edit = await page.goto(`${networkPath}/edit`);
+    expect(edit?.status()).toBe(403);
+  });
+});
