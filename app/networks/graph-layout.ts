@@ -53,12 +53,32 @@ const FRAME_PAD = 14;
 const FRAME_TITLE = 20;
 const CLASS_GAP = 18;
 
+const MAX_WIDTH = 1000;
+const BAND_GAP = 36;
+
 const textWidth = (s: string) => Math.ceil(s.length * CHAR_WIDTH);
+
+type Pair = { a: number; b: number; ab: string[]; ba: string[] };
+
+function layoutClass(members: string[], classEdges: Pair[], index: Map<string, number>) {
+  const g = new dagre.graphlib.Graph();
+  g.setGraph({ rankdir: "LR", nodesep: 26, ranksep: 64, edgesep: 14, marginx: 0, marginy: 0 });
+  g.setDefaultEdgeLabel(() => ({}));
+  for (const name of members) g.setNode(String(index.get(name)), { width: textWidth(name) + 24, height: NODE_HEIGHT });
+  for (const p of classEdges) {
+    // Draw along the written direction when only one exists.
+    const [from, to, fwd, back] = p.ab.length > 0 ? [p.a, p.b, p.ab, p.ba] : [p.b, p.a, p.ba, p.ab];
+    const label = back.length > 0 ? `${fwd.join(", ")} ⇄ ${back.join(", ")}` : fwd.join(", ");
+    g.setEdge(String(from), String(to), { width: textWidth(label) + 8, height: LABEL_HEIGHT, labelpos: "c", label });
+  }
+  dagre.layout(g);
+  return g;
+}
 
 export function layoutComplexGraph(structure: Pick<NetworkStructure, "complexes" | "reactionList" | "linkageClassMembers">): ComplexGraphLayout {
   const index = new Map(structure.complexes.map((c, i) => [c, i]));
   // Unordered pairs → rates in each direction.
-  const pairs = new Map<string, { a: number; b: number; ab: string[]; ba: string[] }>();
+  const pairs = new Map<string, Pair>();
   for (const r of structure.reactionList) {
     const u = index.get(r.reactant)!;
     const v = index.get(r.product)!;
@@ -77,43 +97,55 @@ export function layoutComplexGraph(structure: Pick<NetworkStructure, "complexes"
   let top = 0;
   let width = 0;
   structure.linkageClassMembers.forEach((members, k) => {
-    const g = new dagre.graphlib.Graph();
-    g.setGraph({ rankdir: "LR", nodesep: 26, ranksep: 64, edgesep: 14, marginx: 0, marginy: 0 });
-    g.setDefaultEdgeLabel(() => ({}));
-    for (const name of members) {
-      g.setNode(String(index.get(name)), { width: textWidth(name) + 24, height: NODE_HEIGHT });
-    }
     const classEdges = [...pairs.values()].filter((p) => classOf.get(p.a) === k);
-    for (const p of classEdges) {
-      // Draw along the written direction when only one exists.
-      const [from, to, fwd, back] = p.ab.length > 0 ? [p.a, p.b, p.ab, p.ba] : [p.b, p.a, p.ba, p.ab];
-      const label = back.length > 0 ? `${fwd.join(", ")} ⇄ ${back.join(", ")}` : fwd.join(", ");
-      g.setEdge(String(from), String(to), { width: textWidth(label) + 8, height: LABEL_HEIGHT, labelpos: "c", label });
-    }
-    dagre.layout(g);
+    // Left to right reads like a reaction scheme; a class wider than the page wraps into bands,
+    // like lines of text, and an arrow running from one band to the next is drawn straight.
+    const g = layoutClass(members, classEdges, index);
     const graph = g.graph() as { width?: number; height?: number };
-    const innerW = graph.width ?? 0;
-    const innerH = graph.height ?? 0;
-    const ox = FRAME_PAD;
-    const oy = top + FRAME_PAD + FRAME_TITLE;
+    const fullW = graph.width ?? 0;
+    const bandH = (graph.height ?? 0) + BAND_GAP;
+    const bands = Math.max(1, Math.ceil(fullW / MAX_WIDTH));
+    const bandW = fullW / bands;
+    const bandOf = (x: number) => Math.min(bands - 1, Math.floor(x / bandW));
+    // Each band starts at its leftmost box, so no box hangs over the frame.
+    const bandLeft = new Array<number>(bands).fill(Infinity);
+    for (const id of g.nodes()) {
+      const n = g.node(id) as { x: number; width: number };
+      bandLeft[bandOf(n.x)] = Math.min(bandLeft[bandOf(n.x)]!, n.x - n.width / 2);
+    }
+    const place = (pt: { x: number; y: number }, band: number) => ({
+      x: pt.x - (Number.isFinite(bandLeft[band]!) ? bandLeft[band]! : 0) + FRAME_PAD,
+      y: pt.y + band * bandH + top + FRAME_PAD + FRAME_TITLE,
+    });
+    const placed = new Map<string, LaidOutNode>();
+    let innerW = 0;
     for (const id of g.nodes()) {
       const n = g.node(id) as { x: number; y: number; width: number; height: number };
-      nodes.push({ id: Number(id), label: structure.complexes[Number(id)]!, x: n.x + ox, y: n.y + oy, width: n.width, height: n.height, linkageClass: k });
+      const at = place(n, bandOf(n.x));
+      const node = { id: Number(id), label: structure.complexes[Number(id)]!, x: at.x, y: at.y, width: n.width, height: n.height, linkageClass: k };
+      innerW = Math.max(innerW, at.x - FRAME_PAD + n.width / 2);
+      placed.set(id, node);
+      nodes.push(node);
     }
+    const innerH = bands * bandH - BAND_GAP;
     for (const e of g.edges()) {
       const l = g.edge(e) as { points: { x: number; y: number }[]; x: number; y: number; label: string };
       const from = Number(e.v);
       const to = Number(e.w);
       const p = pairs.get(from < to ? `${from}-${to}` : `${to}-${from}`)!;
-      edges.push({
-        from,
-        to,
-        twoWay: p.ab.length > 0 && p.ba.length > 0,
-        label: l.label,
-        points: l.points.map((pt) => ({ x: pt.x + ox, y: pt.y + oy })),
-        labelAt: { x: l.x + ox, y: l.y + oy },
-        linkageClass: k,
-      });
+      const [a, b] = [placed.get(e.v)!, placed.get(e.w)!];
+      const sameBand = bandOf((g.node(e.v) as { x: number }).x) === bandOf((g.node(e.w) as { x: number }).x);
+      const band = bandOf((g.node(e.v) as { x: number }).x);
+      const points = sameBand
+        ? l.points.map((pt) => place(pt, band))
+        : [
+            { x: a.x, y: a.y + a.height / 2 },
+            { x: b.x, y: b.y - b.height / 2 },
+          ];
+      const labelAt = sameBand ? place({ x: l.x, y: l.y }, band) : { x: (a.x + b.x) / 2, y: (a.y + b.y) / 2 };
+      edges.push({ from, to, twoWay: p.ab.length > 0 && p.ba.length > 0, label: l.label, points, labelAt, linkageClass: k });
+      for (const pt of points) innerW = Math.max(innerW, pt.x - FRAME_PAD);
+      innerW = Math.max(innerW, labelAt.x - FRAME_PAD + textWidth(l.label) / 2);
     }
     const frameW = innerW + 2 * FRAME_PAD;
     const frameH = innerH + 2 * FRAME_PAD + FRAME_TITLE;

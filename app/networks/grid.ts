@@ -64,6 +64,7 @@ export function csvToGrid(text: string): LoadedGrid {
   let rowsIn = table.rows;
   if (![...columnOf.values()].includes("reaction")) {
     // No usable header: read every line (the first included) as reaction text in column 1.
+    notices.length = 0;
     notices.push(`Line ${table.header.line} is not a header naming a \`reaction\` column; every line was read as a reaction in the first column.`);
     columnOf.clear();
     columnOf.set(0, "reaction");

@@ -11,9 +11,10 @@ import { hasRole } from "~/permissions/roles";
 import { diffNetworks, type NetworkDiff } from "./diff";
 import { findNetwork, findVersion, latestVersion, listNetworks, listVersions, type NetworkRecord, type VersionRecord } from "./networks.server";
 import { structureOf, summaryOf } from "./structure.server";
+import { networkPath } from "./paths";
 import type { NetworkTableRow } from "./ui/network-table";
 
-export const networkPath = (labSlug: string, networkId: string) => `/labs/${labSlug}/networks/${networkId}`;
+export { networkPath };
 
 /** JSON-safe forms, shared by pages and API. */
 export function networkJson(n: NetworkRecord) {

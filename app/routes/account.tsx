@@ -69,6 +69,9 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
             <tr><th className="py-2">Name</th><th>Created</th><th>Expires</th><th>Last used</th><th /></tr>
           </thead>
           <tbody>
+            {tokens.length === 0 && (
+              <tr><td colSpan={5} className="py-2 text-muted">No tokens yet. Scripts use one to call the JSON API as you.</td></tr>
+            )}
             {tokens.map((t) => (
               <tr key={t.id} className="border-b border-line">
                 <td className="py-2">{t.name}</td>
@@ -91,7 +94,7 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
         <Form method="post" className="flex flex-wrap items-end gap-3">
           <input type="hidden" name="intent" value="create-token" />
           <label className="space-y-1 text-sm font-medium">Name<input name="name" required maxLength={100} placeholder="e.g. batch upload script" className={inputClass} /></label>
-          <label className="space-y-1 text-sm font-medium">Expires in (days, empty = never)<input name="expiresInDays" inputMode="numeric" placeholder="90" className={inputClass} /></label>
+          <label className="w-56 space-y-1 text-sm font-medium">Expires in days (empty: never)<input name="expiresInDays" inputMode="numeric" placeholder="90" className={inputClass} /></label>
           <button type="submit" className="btn-quiet">Create token</button>
         </Form>
       </section>

@@ -3,7 +3,7 @@ import type { Route } from "./+types/networks-new";
 import { db } from "~/db.server";
 import { DEMO_NETWORKS } from "~/networks/demos";
 import { emptyRow } from "~/networks/grid";
-import { networkPath } from "~/networks/pages.server";
+import { networkPath } from "~/networks/paths";
 import { createNetwork } from "~/networks/save.server";
 import { NetworkEditor } from "~/networks/ui/network-editor";
 import { requireLabRole } from "~/permissions/permissions.server";

@@ -2,7 +2,8 @@ import { Form, Link } from "react-router";
 import type { Route } from "./+types/networks-versions";
 import { db } from "~/db.server";
 import { listVersions } from "~/networks/networks.server";
-import { networkPath, requireNetwork, requireVersion, versionDiff, versionJson } from "~/networks/pages.server";
+import { requireNetwork, requireVersion, versionDiff, versionJson } from "~/networks/pages.server";
+import { networkPath } from "~/networks/paths";
 import { DiffView } from "~/networks/ui/diff-view";
 import { requireLabRole } from "~/permissions/permissions.server";
 

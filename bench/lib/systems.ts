@@ -126,10 +126,7 @@ export function phosphorylationOneSite(): PolySystem {
   return phosphorylationIdeal(species, reactions, { E: "1/2", F: "1/3", S: "2" });
 }
 
-/**
- * Two-site distributive cycle S0 -E-> S1 -E-> S2 -F-> S1 -F-> S0 (Wang and Sontag 2008):
- * 9 species, 12 rate constants, 9 equations.
- */
+// Intermediates first, then enzymes, then substrate forms: the lex order eliminates in this order.
 const TWO_SITE_SPECIES = ["ES0", "ES1", "FS2", "FS1", "E", "F", "S0", "S2", "S1"];
 
 function twoSiteReactions(k: readonly string[]): Reaction[] {
@@ -141,6 +138,10 @@ function twoSiteReactions(k: readonly string[]): Reaction[] {
   ];
 }
 
+/**
+ * Two-site distributive cycle S0 -E-> S1 -E-> S2 -F-> S1 -F-> S0 (Wang and Sontag 2008):
+ * 9 species, 12 rate constants, 9 equations.
+ */
 export function phosphorylationTwoSite(): PolySystem {
   const rates = ["2", "1", "3", "5/2", "1/2", "4", "3/2", "1", "2", "1", "1/3", "5/4"];
   return phosphorylationIdeal(TWO_SITE_SPECIES, twoSiteReactions(rates), { E: "1/2", F: "1/3", S: "3" });

@@ -55,6 +55,16 @@ def canonical(poly, names, order, modulus):
     return "".join(parts) or "0"
 
 
+def to_integers_mod(expr, symbols, modulus):
+    # GF(p) refuses fractions such as 5/2: map a/b to a * b^-1 mod p before SymPy sees it.
+    poly = Poly(expr, *symbols, domain=QQ)
+    terms = {}
+    for exps, coef in poly.terms():
+        c = QQ.to_sympy(coef)
+        terms[exps] = c.p * pow(c.q, -1, modulus) % modulus
+    return Poly.from_dict(terms, *symbols, domain=QQ).as_expr()
+
+
 def make_monic(poly, order):
     # Poly.monic() divides by the lex-leading coefficient; we need the one of the chosen order.
     return poly.quo_ground(poly.terms(order=order)[0][1])
@@ -71,6 +81,8 @@ def main(argv):
     # A local dictionary keeps names such as E or S from meaning SymPy's constants.
     local = {n: s for n, s in zip(names, symbols)}
     exprs = [parse_expr(line.replace("^", "**"), local_dict=local) for line in lines]
+    if modulus is not None:
+        exprs = [to_integers_mod(e, symbols, modulus) for e in exprs]
     domain = GF(modulus) if modulus is not None else QQ
     basis = groebner(exprs, *symbols, order=order, domain=domain)
     key = monomial_key(order)

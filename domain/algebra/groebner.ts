@@ -6,7 +6,9 @@ import { clearDenominators, coefficientsFor, fromEngine, toEngine } from "./groe
 import type { LimitOptions } from "./groebner/limits";
 import { Limits } from "./groebner/limits";
 import { modularGroebnerQQ, plainFractionFree } from "./groebner/modular";
+import { fglm } from "./fglm";
 import type { Polynomial } from "./polynomial";
+import { normalizeTerms } from "./polynomial";
 import type { Rational } from "./rational";
 import type { PolynomialRing } from "./ring";
 
@@ -20,6 +22,12 @@ export interface GroebnerOptions extends LimitOptions {
    * 'auto' (default) = 'modular'. Ignored over Z/p.
    */
   readonly method?: "auto" | "buchberger" | "modular";
+  /**
+   * For orders that are not degree-compatible (lex, block orders): first compute a grevlex basis and,
+   * if the ideal is zero-dimensional, convert it with FGLM (default true; usually far faster than
+   * Buchberger's algorithm in lex).
+   */
+  readonly fglm?: boolean;
 }
 
 export function ringOf<C>(polys: readonly Polynomial<C>[], what: string): PolynomialRing<C> {
@@ -41,6 +49,10 @@ export function ringOf<C>(polys: readonly Polynomial<C>[], what: string): Polyno
 export function groebnerBasis<C>(polys: readonly Polynomial<C>[], options: GroebnerOptions = {}): Polynomial<C>[] {
   const ring = ringOf(polys, "groebnerBasis");
   const limits = new Limits(options);
+  if (options.fglm !== false && !isDegreeCompatible(ring)) {
+    const viaFglm = tryFglm(polys, ring, options);
+    if (viaFglm) return viaFglm;
+  }
   const strategy = options.strategy ?? defaultStrategy(ring.order);
   if (ring.field === (QQ as unknown)) {
     const qpolys = (polys as unknown as Polynomial<Rational>[]).filter((p) => p.coeffs.length > 0);
@@ -53,4 +65,22 @@ export function groebnerBasis<C>(polys: readonly Polynomial<C>[], options: Groeb
   const K = coefficientsFor(ring.field);
   const basis = buchberger(polys.map(toEngine), K, ring.n, ring.cmp, { strategy, limits });
   return basis.map((p) => fromEngine(ring, p));
+}
+
+function isDegreeCompatible<C>(ring: PolynomialRing<C>): boolean {
+  return ring.order.length === 1 && (ring.order[0].kind === "grlex" || ring.order[0].kind === "grevlex");
+}
+
+/** Grevlex basis, then FGLM into the ring's order when the ideal is zero-dimensional; null otherwise. */
+function tryFglm<C>(polys: readonly Polynomial<C>[], ring: PolynomialRing<C>, options: GroebnerOptions): Polynomial<C>[] | null {
+  const graded = ring.withOrder("grevlex");
+  const moved = polys.map((p) => normalizeTerms(graded, p.coeffs, p.exps.slice()));
+  const G = groebnerBasis(moved, { ...options, fglm: false });
+  if (G.length === 0) return null;
+  if (G.length === 1 && G[0].exps[0] === 0) return [ring.one()];
+  const n = ring.n;
+  for (let k = 1; k <= n; k++) {
+    if (!G.some((g) => g.exps[k] > 0 && g.exps[k] === g.exps[0])) return null; // not zero-dimensional
+  }
+  return fglm(G, ring, options);
 }

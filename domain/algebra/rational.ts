@@ -9,10 +9,22 @@ export interface Rational {
   readonly den: bigint;
 }
 
+const SAFE = 9007199254740991n;
+
 export function gcdBig(a: bigint, b: bigint): bigint {
   if (a < 0n) a = -a;
   if (b < 0n) b = -b;
   while (b !== 0n) {
+    // Once both parts are below 2^53 finish in doubles: much cheaper than bigint division.
+    if (a <= SAFE && b <= SAFE) {
+      let x = Number(a), y = Number(b);
+      while (y !== 0) {
+        const t = x % y;
+        x = y;
+        y = t;
+      }
+      return BigInt(x);
+    }
     const t = a % b;
     a = b;
     b = t;

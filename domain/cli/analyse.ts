@@ -56,6 +56,7 @@ export function toJson(r: SteadyStateAnalysis): Record<string, unknown> {
     nonVanishing: r.nonVanishing,
     relations: r.relations,
     eliminant: r.eliminant,
+    steadyStateSet: r.steadyStateSet,
     positiveSteadyStatesExist: r.positiveSteadyStatesExist,
     odes: r.odes,
     steadyStateSystem: r.steadyStateSystem,
@@ -91,7 +92,7 @@ export function toReport(r: SteadyStateAnalysis): string {
   if (r.parametrisation) {
     lines.push(`  Free: ${r.parametrisation.free.join(", ") || "(none)"}${r.parametrisation.positive ? " — positive parametrisation (all coefficients positive)" : ""}`);
     for (const [sp, e] of Object.entries(r.parametrisation.expressions)) lines.push(`  ${sp} = ${e}`);
-    if (r.nonVanishing.length > 0) lines.push(`  Valid where these do not vanish: ${r.nonVanishing.join("; ")}`);
+    lines.push(r.nonVanishing.length > 0 ? `  Valid where these do not vanish: ${r.nonVanishing.join("; ")}` : "  Valid at every positive point: every elimination pivot has coefficients of one sign.");
   } else if (r.rootsNeeded.length > 0) {
     lines.push("  No rational parametrisation found; these species need roots of polynomials:");
     for (const x of r.rootsNeeded) lines.push(`  ${x.species}: degree ${x.degree} in ${x.species}: ${x.polynomial} = 0`);
@@ -110,7 +111,10 @@ export function toReport(r: SteadyStateAnalysis): string {
     for (const x of r.relations)
       lines.push(`  ${x.expression}: ${x.inIdeal ? "in the saturated ideal (vanishes at every positive steady state)" : x.vanishes ? "vanishes on the saturated variety (in the radical, not the ideal)" : `does not vanish at every positive steady state; remainder ${x.remainder}`}`);
   }
-  if (r.steadyStates) {
+  if (r.steadyStateSet === "continuum") {
+    section("Positive steady states in the class");
+    lines.push("  infinitely many: the steady states of this class form a continuum (see warnings)");
+  } else if (r.steadyStates) {
     section(`Positive steady states in the class (${r.steadyStates.length})`);
     if (r.eliminant) lines.push(`  from the real roots of ${r.eliminant.polynomial} (in ${r.eliminant.variable})`);
     r.steadyStates.forEach((x, i) => {

@@ -1,4 +1,5 @@
-import { AlgebraError, divide } from "../algebra/index";
+import { divide } from "../algebra/division";
+import { AlgebraError } from "../algebra/errors";
 import type { CliIO, CommandModule } from "./io";
 import { CliError, parseArgs, readInput } from "./io";
 import { fieldFromFlag, parseSystemFile } from "./system-file";

@@ -1,4 +1,5 @@
-import { AlgebraError, groebnerBasis } from "../algebra/index";
+import { AlgebraError } from "../algebra/errors";
+import { groebnerBasis } from "../algebra/groebner";
 import type { CliIO, CommandModule } from "./io";
 import { CliError, parseArgs, readInput } from "./io";
 import { fieldFromFlag, parseSystemFile } from "./system-file";

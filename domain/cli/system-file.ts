@@ -1,5 +1,11 @@
-import { AlgebraError, PolynomialRing, QQ, parseOrderSpec, primeField } from "../algebra/index";
-import type { Field, OrderSpec, Polynomial } from "../algebra/index";
+// Direct module imports (not the index) keep the CLI's start-up module graph small.
+import { AlgebraError } from "../algebra/errors";
+import { QQ, primeField } from "../algebra/field";
+import type { Field } from "../algebra/field";
+import { parseOrderSpec } from "../algebra/order";
+import type { OrderSpec } from "../algebra/order";
+import type { Polynomial } from "../algebra/polynomial";
+import { PolynomialRing } from "../algebra/ring";
 import { CliError } from "./io";
 
 /**

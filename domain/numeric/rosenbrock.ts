@@ -28,7 +28,8 @@ export interface TimeCourse {
  * (Shampine & Reichelt, "The MATLAB ODE Suite", SIAM J. Sci. Comput. 18, 1997, §3): L-stable,
  * one Jacobian and one matrix factorisation per step, error estimate from the third-order companion,
  * step-size control with the usual safety factor 0.8 and growth limited to 5× (common practice).
- * Example: y' = −1000 (y − cos t)-like stiff decay y' = −1000 y from y0 = 1 reaches ~0 by t = 0.1 in a few dozen steps.
+ * Example: integrateStiff(linearProblem([[-1, 0], [0, -1e4]]), [1, 1], 0, 5) follows e^(−t) in a few hundred
+ * steps, where an explicit method would need about 10⁵ (step size bounded by 2/10⁴).
  */
 export function integrateStiff(problem: OdeProblem, y0: Vector, t0: number, t1: number, options: IntegrateOptions = {}): TimeCourse {
   const rtol = options.rtol ?? 1e-6;

@@ -24,7 +24,7 @@ export function acrSpecies(kin: KineticsRing, param: ParametrisationResult): Acr
   const isSpecies = (k: number) => k < kin.species.length;
   return param.eliminated
     .filter((e) => ![...variablesOf(e.expression.num), ...variablesOf(e.expression.den)].some(isSpecies))
-    .map((e) => ({ species: e.species, value: formatExpression(e.expression) }))
+    .map((e) => ({ species: e.species, value: formatExpression(e.expression, param.pivots) }))
     .sort((a, b) => kin.species.indexOf(a.species) - kin.species.indexOf(b.species));
 }
 

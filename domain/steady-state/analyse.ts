@@ -13,7 +13,7 @@ import { formatExpression } from "./rational-expression";
 import { testRelation, type RelationResult } from "./relation";
 import { steadyStateSystem, totalsFromInitial } from "./system";
 import { genericConditions, leadingSpecies, triangularForm } from "./triangular";
-import { primitive } from "./poly-tools";
+import { primitive, signPattern } from "./poly-tools";
 
 export interface AnalyseOptions extends BudgetOptions {
   /** Elimination order: species eliminated first … species kept free last (partial lists allowed). */
@@ -48,6 +48,8 @@ export interface SteadyStateAnalysis {
   /** With initial concentrations and every rate value: all positive steady states of the class. */
   readonly steadyStates: NumericSteadyState[] | null;
   readonly eliminant: { readonly variable: string; readonly polynomial: string } | null;
+  /** "finite": steadyStates lists every positive steady state of the class; "continuum": infinitely many complex solutions, none listed. */
+  readonly steadyStateSet: "finite" | "continuum" | null;
   readonly positiveSteadyStatesExist: boolean | null;
   readonly warnings: string[];
 }
@@ -117,9 +119,14 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
   if (conditions.length > 0)
     warnings.push(`The basis holds for generic parameter values: these leading coefficients must not vanish: ${conditions.join("; ")} (one with all coefficients of one sign never vanishes for positive parameters).`);
 
-  // A single-term pivot is a monomial in positive quantities: it never vanishes, so only sums are listed.
-  const nonVanishing = param ? [...new Set(param.pivots.filter((p) => p.coeffs.length > 1).map((p) => fmt(primitive(p))))] : [];
-  const parameterOnly = basis ? basis.filter((g) => leadingSpecies(g, kinT) === null) : [];
+  // A pivot whose coefficients all have one sign never vanishes at positive species and rate
+  // constants; only the others restrict where the parametrisation is valid.
+  const nonVanishing = param
+    ? [...new Set(param.pivots.filter((p) => signPattern(p) === "mixed").map((p) => formatExpression({ num: primitive(p), den: kin.ring.one() }, param!.pivots)))]
+    : [];
+  const wholeRing = basis !== null && basis.length === 1 && basis[0].coeffs.length === 1 && basis[0].exps.every((e) => e === 0);
+  const parameterOnly = basis && !wholeRing ? basis.filter((g) => leadingSpecies(g, kinT) === null) : [];
+  if (wholeRing) warnings.push("The saturated steady-state ideal is the whole ring (its basis is [1]): there is no positive steady state.");
   if (parameterOnly.length > 0)
     warnings.push(
       `The saturated ideal contains polynomials in the parameters alone (${parameterOnly.map((g) => kinT.ring.format(g)).join("; ")}): for parameter values where they do not vanish there is no positive steady state.`,
@@ -155,17 +162,22 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
   // Numeric steady states.
   let steadyStates: NumericSteadyState[] | null = null;
   let eliminant: SteadyStateAnalysis["eliminant"] = null;
+  let steadyStateSet: SteadyStateAnalysis["steadyStateSet"] = null;
   if (options.initial) {
-    if (!numericRates) warnings.push(`Numeric steady states need a value for every rate constant; missing: ${kin.rateParameters.join(", ")}.`);
-    else if (param?.infeasible) steadyStates = [];
+    if (param?.infeasible) {
+      steadyStates = [];
+      steadyStateSet = "finite";
+    }
+    else if (!numericRates) warnings.push(`Numeric steady states need a value for every rate constant; missing: ${kin.rateParameters.join(", ")}.`);
     else if (param) {
       try {
         const numeric = numericSteadyStates(network, withTotals, param, budget);
         steadyStates = numeric.states;
         eliminant = numeric.eliminant;
+        steadyStateSet = numeric.status === "finite" ? "finite" : "continuum";
         warnings.push(...numeric.warnings);
       } catch (e) {
-        if (!isOutOfBudget(e)) throw e;
+        if (!isOutOfBudget(e) && !(e instanceof AlgebraError && e.code === "domain")) throw e;
         warnings.push(`Numeric steady states not finished: ${(e as Error).message}.`);
       }
     }
@@ -190,7 +202,7 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
     parametrisation: param?.parametrisation
       ? {
           free: [...param.parametrisation.free],
-          expressions: Object.fromEntries(param.parametrisation.expressions.map((e) => [e.species, formatExpression(e.expression)])),
+          expressions: Object.fromEntries(param.parametrisation.expressions.map((e) => [e.species, formatExpression(e.expression, param!.pivots)])),
           positive: param.parametrisation.positive,
         }
       : null,
@@ -200,7 +212,8 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
     relations,
     steadyStates,
     eliminant,
-    positiveSteadyStatesExist: param?.infeasible ? false : steadyStates ? steadyStates.length > 0 : null,
+    steadyStateSet,
+    positiveSteadyStatesExist: param?.infeasible ? false : steadyStates && steadyStateSet === "finite" ? steadyStates.length > 0 : null,
     warnings: [...warnings, ...(param?.notes ?? [])],
   };
 }

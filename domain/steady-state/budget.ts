@@ -22,7 +22,8 @@ export interface BudgetOptions {
 
 /**
  * One time and size budget shared by every phase. A phase may take only a share of what is left,
- * so that a costly optional step (the full lex basis) cannot starve the steady states.
+ * so that a costly optional step (the full lex basis) cannot starve the steady states. (Common practice.)
+ * Example: with 20 s left, budget.groebner(0.25) hands a Gröbner basis a deadline 5 s from now.
  */
 export class Budget {
   readonly deadline: number;
@@ -31,14 +32,23 @@ export class Budget {
     this.deadline = Math.min(options.deadline ?? Infinity, rel);
   }
 
-  /** Gröbner options for a phase allowed `share` (0..1] of the remaining time. */
-  groebner(share = 1): GroebnerOptions {
+  /** Gröbner options for a phase allowed `share` (0..1] of the remaining time; engine progress is forwarded (at most every 250 ms). */
+  groebner(share = 1, phase = "groebner"): GroebnerOptions {
     const left = Math.max(0, this.deadline - Date.now());
+    let last = 0;
     return {
       deadline: Date.now() + left * share,
       signal: this.options.signal,
       maxBasisSize: this.options.maxBasisSize,
       maxTerms: this.options.maxTerms,
+      onProgress: this.options.onProgress
+        ? (p) => {
+            const now = Date.now();
+            if (now - last < 250) return;
+            last = now;
+            this.progress(phase, `Gröbner basis: ${p.basisSize} polynomials, ${p.pairsLeft} pairs left, degree ${p.degree}`);
+          }
+        : undefined,
     };
   }
 

@@ -42,7 +42,8 @@ export interface NumericSteadyStatesResult {
  * (saturation, lex basis, univariate eliminant, exact real-root isolation, back substitution,
  * refinement); each point is completed, polished by two Newton steps on the full system, and
  * classified by the eigenvalues of the Jacobian restricted to im N.
- * Example: 0 -> X (k0 = 6), 2X -> 3X (k1 = 6)... see the Schlögl-type test with steady states 1, 2, 3.
+ * Example: for 0 <-> X (6, 11) and 2X <-> 3X (6, 1), dX/dt = −(X − 1)(X − 2)(X − 3) and the class holds
+ * X = 1 (stable), 2 (unstable) and 3 (stable).
  */
 export function numericSteadyStates(network: Network, sys: SteadyStateSystem, param: ParametrisationResult, budget: Budget): NumericSteadyStatesResult {
   const { kin } = sys;

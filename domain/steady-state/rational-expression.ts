@@ -1,4 +1,4 @@
-import { fromTerms, isZeroPoly, mul, scale, terms } from "../algebra/index";
+import { equals as equalsPoly, fromTerms, isZeroPoly, mul, scale, terms } from "../algebra/index";
 import { div } from "../algebra/rational";
 import type { QPoly } from "./kinetics";
 import { exactQuotient, primitive, signPattern, substituteFraction } from "./poly-tools";
@@ -51,17 +51,53 @@ export function isPositiveExpression(e: RationalExpression): boolean {
   return (n === "positive" && d === "positive") || (n === "negative" && d === "negative");
 }
 
-/** Text in the CLI's polynomial syntax: `num` or `(num)/(den)`, parentheses only where needed. */
-export function formatExpression(e: RationalExpression): string {
-  const ring = e.num.ring;
-  const num = ring.format(e.num);
-  if (e.den.coeffs.length === 1 && e.den.coeffs[0].num === 1n && e.den.coeffs[0].den === 1n && e.den.exps.every((x) => x === 0))
-    return num;
-  const den = ring.format(e.den);
-  const wrappedNum = e.num.coeffs.length > 1 ? `(${num})` : num;
+/**
+ * Text in the CLI's polynomial syntax: `num`, `num/den` or `(num)/(den)`. With `factors` (e.g. the
+ * elimination pivots), each part is written as monomial · product of the factors that divide it ·
+ * rest, which keeps enzyme-kinetics expressions readable.
+ * Example: (k1*k3*k11*S0*E + k1*k3*k12*S0*E)/(k2 + k3) with factor k11 + k12 prints
+ * S0*E*k1*k3*(k11 + k12)/(k2 + k3).
+ */
+export function formatExpression(e: RationalExpression, factors: readonly QPoly[] = []): string {
+  const num = formatFactored(e.num, factors);
+  const den = formatFactored(e.den, factors);
+  if (den.text === "1") return num.text;
+  const wrappedNum = num.sum ? `(${num.text})` : num.text;
   // a/b*c would read as (a/b)*c, so a denominator is bare only when it is one variable or one integer.
-  const bareDen = /^[A-Za-z_][A-Za-z0-9_]*$|^\d+$/.test(den);
-  return `${wrappedNum}/${bareDen ? den : `(${den})`}`;
+  const bareDen = /^[A-Za-z_][A-Za-z0-9_]*$|^\d+$/.test(den.text);
+  return `${wrappedNum}/${bareDen ? den.text : `(${den.text})`}`;
+}
+
+/** Monomial content · dividing factors · rest; `sum` tells whether the text is a bare sum needing parentheses. */
+function formatFactored(p: QPoly, factors: readonly QPoly[]): { text: string; sum: boolean } {
+  const ring = p.ring;
+  if (p.coeffs.length <= 1) return { text: ring.format(p), sum: false };
+  const ts = terms(p);
+  const shift = Array.from({ length: ring.n }, (_, k) => Math.min(...ts.map((t) => t.exponents[k])));
+  let rest = fromTerms(ring, ts.map((t) => ({ coeff: t.coeff, exponents: t.exponents.map((x, k) => x - shift[k]) })));
+  const parts: string[] = [];
+  const mono = fromTerms(ring, [{ coeff: { num: 1n, den: 1n }, exponents: shift }]);
+  if (shift.some((x) => x > 0)) parts.push(ring.format(mono));
+  const seen = new Set<string>();
+  for (const f of factors) {
+    if (f.coeffs.length <= 1) continue;
+    const key = ring.format(primitive(f));
+    if (seen.has(key)) continue;
+    seen.add(key);
+    const g = primitive(f);
+    for (;;) {
+      if (rest.coeffs.length <= 1 || equalsPoly(rest, g)) break;
+      const q = exactQuotient(rest, g);
+      if (!q) break;
+      parts.push(`(${key})`);
+      rest = q;
+    }
+  }
+  if (parts.length === 0) return { text: ring.format(p), sum: true };
+  const restText = ring.format(rest);
+  if (restText === "-1") return { text: `-${parts.join("*")}`, sum: false };
+  if (restText !== "1") parts.unshift(rest.coeffs.length > 1 ? `(${restText})` : restText);
+  return { text: parts.join("*"), sum: false };
 }
 
 /**

@@ -1,10 +1,10 @@
 import type { GroebnerOptions } from "../algebra/index";
 import { groebnerBasis } from "../algebra/index";
-import { fromTerms, isZeroPoly, leadingMonomial, sub, terms } from "../algebra/index";
+import { eliminate, fromTerms, leadingMonomial, mul as mulPoly, sub, terms } from "../algebra/index";
 import type { Rational } from "../algebra/index";
 import { ZERO, add as addQ, div as divQ, fromInt, rational, sign, sub as subQ, toNumber } from "../algebra/rational";
 import { PolynomialRing } from "../algebra/index";
-import { QQ } from "../algebra/index";
+import { AlgebraError, QQ } from "../algebra/index";
 import {
   type RatPoly,
   evaluate as evaluateUni,
@@ -34,9 +34,9 @@ export interface ZeroDimensionalSolution {
  * Every solution with all coordinates positive of a polynomial system over Q (no parameters),
  * found exactly: saturate by the product of the variables (and `extraSaturation`), lex Gröbner
  * basis, check zero-dimensionality, bring the ideal into shape position (x_i − g_i(t), p(t))
- * — directly, or through a separating linear form t = x_n + Σ cᵢxᵢ with the square-free part of
- * its eliminant added (the radical then has the shape form; Gianni & Mora 1989, "Algebraic solution
- * of systems of polynomial equations using Gröbner bases"; Rouillier 1999 for separating forms) —
+ * — directly, or after passing to the radical (Seidenberg's lemma) and, if needed, a separating
+ * linear form t = x_n + Σ cᵢxᵢ (shape lemma: Gianni & Mora 1989, "Algebraic solution of systems of
+ * polynomial equations using Gröbner bases"; Rouillier 1999 for separating forms) —
  * then exact real-root isolation of p (Collins & Akritas 1976), refinement, and exact evaluation
  * of g_i at both interval ends until every coordinate has a certain sign and ≥ 1e-14 relative accuracy.
  * Example: {x·y − 2, x + y − 3} gives the points (1, 2) and (2, 1).
@@ -57,6 +57,19 @@ export function positiveSolutions(polys: readonly QPoly[], options: GroebnerOpti
   let shape = shapeOf(basis, n - 1);
   let coordinateOf: (point: number[]) => number[] = (pt) => pt;
   let shapeRing = lexRing;
+  let radical = basis;
+  if (!shape) {
+    // Seidenberg's lemma: adding the square-free part of each variable's eliminant gives the radical
+    // (Kreuzer & Robbiano, "Computational Commutative Algebra 1", 2000, Cor. 3.7.16 — recalled from memory),
+    // and a radical zero-dimensional ideal is in shape position after a generic linear change.
+    const extra = lexRing.vars.map((v) => {
+      const others = lexRing.vars.filter((w) => w !== v);
+      const [mu] = others.length > 0 ? eliminate(basis, others, options) : [basis[0]];
+      return fromUnivariate(lexRing, lexRing.indexOf(v), toRationalCoefficients(squareFreePart(univariateOf(mu, lexRing.indexOf(v))!)));
+    });
+    radical = groebnerBasis([...basis, ...extra], options);
+    shape = shapeOf(radical, n - 1);
+  }
   if (!shape) {
     const random = seededRandom(12345);
     for (let attempt = 0; attempt < 5 && !shape; attempt++) {
@@ -70,7 +83,7 @@ export function positiveSolutions(polys: readonly QPoly[], options: GroebnerOpti
         ...cs.map((c, i) => ({ coeff: fromInt(c), exponents: all.map((j) => (j === i ? 1 : 0)).concat([0]) })),
       ]);
       const linear = sub(big.variable(n), form);
-      let g = groebnerBasis([...basis.map(lift), linear], options);
+      let g = groebnerBasis([...radical.map(lift), linear], options);
       const eliminant = g[0];
       const uni = univariateOf(eliminant, n);
       if (!uni) continue;
@@ -82,14 +95,15 @@ export function positiveSolutions(polys: readonly QPoly[], options: GroebnerOpti
         coordinateOf = (pt) => pt.slice(0, n);
       }
     }
-    if (!shape) throw new Error("positiveSolutions: no separating linear form found in 5 attempts");
+    if (!shape) throw new AlgebraError("domain", "positive solutions: no separating linear form found in 5 attempts");
   }
   const last = shapeRing.n - 1;
   const points: number[][] = [];
   const roots = isolateRealRoots(shape.eliminant, { positiveOnly: true, deadline: options.deadline, signal: options.signal });
   for (const root of roots) {
     const coords = coordinatesAt(shape, root, last);
-    if (coords && coords.every((v) => v > 0)) points.push(coordinateOf(coords));
+    if (!coords) throw new AlgebraError("budget", "positive solutions: a coordinate's sign was not certified after refining a root to 1024 bits");
+    if (coords.every((v) => v > 0)) points.push(coordinateOf(coords));
   }
   points.sort((a, b) => a[n - 1] - b[n - 1]);
   return {
@@ -100,7 +114,6 @@ export function positiveSolutions(polys: readonly QPoly[], options: GroebnerOpti
   };
 }
 
-import { mul as mulPoly } from "../algebra/index";
 
 /** Zero-dimensional iff every variable has a pure power among the leading monomials (CLO ch. 5 §3, Theorem 6). */
 export function isZeroDimensional(basis: readonly QPoly[]): boolean {
@@ -119,7 +132,6 @@ interface Shape {
 
 /** Recognises the shape form {x_i − h_i(x_last)} ∪ {p(x_last)} of a reduced lex basis. */
 function shapeOf(basis: readonly QPoly[], last: number): Shape | null {
-  const n = basis[0].ring.n;
   if (basis.length !== last + 1) return null;
   const eliminant = univariateOf(basis[0], last);
   if (!eliminant) return null;
@@ -141,7 +153,6 @@ function shapeOf(basis: readonly QPoly[], last: number): Shape | null {
     }
     coordinates.push(fromRationalCoefficients(h));
   }
-  void n;
   return { eliminant, coordinates };
 }
 

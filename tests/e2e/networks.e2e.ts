@@ -89,6 +89,9 @@ describe.skipIf(!hasApp)("networks in headless chromium", () => {
     expect(await page.getByTestId("conservation-laws").innerText()).toContain("T + TL = total");
     expect(await page.locator("[data-testid=odes] .katex").count()).toBe(4);
     await shot(page, "03-saved-network-page");
+    await page.screenshot({ path: `${SHOTS}/03b-network-page-top.png` });
+    await page.locator("#odes").screenshot({ path: `${SHOTS}/03c-odes.png` });
+    await page.locator("#stoichiometric-matrix").screenshot({ path: `${SHOTS}/03d-matrix.png` });
   });
 
   it("uploads a second version and shows what changed", async () => {
@@ -118,9 +121,10 @@ describe.skipIf(!hasApp)("networks in headless chromium", () => {
     expect(second).toEqual([...first].reverse());
     expect(new Set(first).size).toBeGreaterThan(1);
     await shot(page, "05-table-sorted-by-deficiency");
-    // Search by species: only networks containing `Li` stay.
+    // Search by species: networks with a species named like `Li` stay, the demo enzyme network goes.
     await page.getByLabel("Has a species named").fill("Li");
-    await expect.poll(() => page.getByTestId("network-row").count()).toBe(1);
+    await expect.poll(() => page.getByTestId("network-row").filter({ hasText: "Invertase" }).count()).toBe(0);
+    expect(await page.getByTestId("network-row").filter({ hasText: name }).count()).toBe(1);
   });
 
   it("opens the complex graph drawing", async () => {
@@ -131,6 +135,32 @@ describe.skipIf(!hasApp)("networks in headless chromium", () => {
     expect(await graph.getByTestId("complex-node").count()).toBe(6);
     expect(await graph.getByTestId("linkage-class-frame").count()).toBe(Number(await page.getByTestId("stat-linkage").innerText()));
     await graph.screenshot({ path: `${SHOTS}/06-complex-graph.png` });
+  });
+
+  it("draws a network of 38 complexes readably (created through the JSON API with the session cookie)", async () => {
+    // Invented nine-site modification chain: a kinase K adds, a phosphatase F removes, one site at a time.
+    const rows = ["reaction,rate,reverse_rate"];
+    for (let i = 0; i < 9; i++) rows.push(`S${i} + K <-> S${i}K,a${i},d${i}`, `S${i}K -> S${i + 1} + K,c${i},`);
+    for (let i = 1; i <= 9; i++) rows.push(`S${i} + F <-> S${i}F,e${i},f${i}`, `S${i}F -> S${i - 1} + F,g${i},`);
+    const created = await editor.context.request.post(`/api${LAB}/networks`, { data: { name: `Nine-site chain ${Date.now().toString(36)}`, csv: rows.join("\n") + "\n" } });
+    expect(created.status()).toBe(201);
+    const body = (await created.json()) as { network: { id: string }; structure: { complexes: string[] } };
+    expect(body.structure.complexes).toHaveLength(38);
+    const { page } = await editor.page(`${LAB}/networks/${body.network.id}`);
+    const graph = page.getByTestId("complex-graph");
+    await graph.scrollIntoViewIfNeeded();
+    expect(await graph.getByTestId("complex-node").count()).toBe(38);
+    const boxes = await graph.getByTestId("complex-node").evaluateAll((nodes) => nodes.map((n) => (n as SVGGElement).getBoundingClientRect()).map((r) => ({ x: r.x, y: r.y, w: r.width, h: r.height })));
+    for (let i = 0; i < boxes.length; i++) {
+      for (let j = i + 1; j < boxes.length; j++) {
+        const [a, b] = [boxes[i]!, boxes[j]!];
+        const apart = a.x + a.w <= b.x || b.x + b.w <= a.x || a.y + a.h <= b.y || b.y + b.h <= a.y;
+        expect(apart, `complexes ${i} and ${j} overlap`).toBe(true);
+      }
+    }
+    // Boxes keep a legible size (not shrunk to fit): at least 20 px tall on screen.
+    expect(Math.min(...boxes.map((b) => b.h))).toBeGreaterThanOrEqual(20);
+    await graph.screenshot({ path: `${SHOTS}/07-complex-graph-38-complexes.png` });
   });
 
   it("shows the network read-only to the lab's viewer", async () => {

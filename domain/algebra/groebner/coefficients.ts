@@ -21,14 +21,6 @@ export interface EngineCoefficients<C> {
   reductionFactors(lcp: C, lcg: C): [C, C];
   /** In place: monic (field) or primitive with positive leading coefficient (Z). */
   normalize(coeffs: C[]): void;
-  /**
-   * Z only: divides coeffs[from..to) (and extra[0..extraLen)) by their common content, in place.
-   * Fraction-free reduction multiplies the working polynomial by a factor at every step; removing
-   * the content now and then keeps the coefficients at the size of the true remainder.
-   */
-  removeContent?(coeffs: C[], from: number, to: number, extra: C[], extraLen: number): void;
-  /** Z only: rough bit size of a scaling factor, to decide when content removal pays. */
-  bits?(a: C): number;
 }
 
 /** A field used directly (Z/p with numbers, or Q with Rationals). */
@@ -117,14 +109,5 @@ export const integerCoefficients: EngineCoefficients<bigint> = {
     if (coeffs[0] < 0n) g = -g;
     if (g === 1n) return;
     for (let i = 0; i < coeffs.length; i++) coeffs[i] /= g;
-  },
-  bits: (a) => (a < 0n ? -a : a) < 4294967296n ? 32 : a.toString(16).length * 4,
-  removeContent(coeffs, from, to, extra, extraLen) {
-    let g = 0n;
-    for (let i = from; i < to && g !== 1n; i++) g = gcdBig(g, coeffs[i]);
-    for (let i = 0; i < extraLen && g !== 1n; i++) g = gcdBig(g, extra[i]);
-    if (g <= 1n) return;
-    for (let i = from; i < to; i++) coeffs[i] /= g;
-    for (let i = 0; i < extraLen; i++) extra[i] /= g;
   },
 };

@@ -45,11 +45,8 @@ export function modularGroebnerQQ(polys: readonly Polynomial<Rational>[], strate
     }
     if (!lucky) continue;
     const trace: TraceEvent[] = [];
-    const T0 = performance.now();
     buchberger(modular, primeCoefficients(p), n, cmp, { strategy, limits, trace });
-    const T1 = performance.now();
     const G = replayOverZ(integer, trace, n, cmp, limits);
-    if (process.env.SP_DEBUG) console.error("modp", (T1 - T0).toFixed(0), "replay+verify", (performance.now() - T1).toFixed(0));
     if (G) return G.map((g) => fromEngine(ring, monicRational(g)));
   }
   return plainFractionFree(integer, ring, strategy, limits);
@@ -105,11 +102,8 @@ function replayOverZ(
     live.push(true);
     reducers = basis.filter((_, k) => live[k]).map((g) => toReducer(g, n));
   }
-  const T0 = performance.now();
   const G = reduceBasis(basis.filter((_, k) => live[k]), K, n, cmp, kernel);
-  const T1 = performance.now();
   if (!verifyGroebner(G, K, n, cmp, limits)) return null;
-  if (process.env.SP_DEBUG) console.error("interreduce", (T1 - T0).toFixed(0), "verify", (performance.now() - T1).toFixed(0));
   const Gred = G.map((g) => toReducer(g, n));
   const top = new ReductionKernel(K, n, cmp, () => limits.checkTime(), false);
   for (const f of inputs) if (top.reduce(f, Gred, false).coeffs.length !== 0) return null;

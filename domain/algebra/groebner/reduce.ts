@@ -15,13 +15,6 @@ export interface Reducer<C> {
   readonly mask: number;
 }
 
-/**
- * Fraction-free reduction multiplies the working polynomial by a factor at each step; once those
- * factors total this many bits the content is removed (a gcd pass is costly, so not every step:
- * measured on cyclic-6 / katsura-6, frequent removal was slower).
- */
-const CONTENT_BITS = Number(process.env.SP_CONTENT_BITS ?? 256);
-
 export function maskOf(e: Exponents, off: number, n: number): number {
   let mask = 0;
   for (let k = 1; k <= n; k++) if (e[off + k] !== 0) mask |= 1 << ((k - 1) & 31);
@@ -75,7 +68,6 @@ export class ReductionKernel<C> {
     const outC: C[] = [];
     let outLen = 0;
     let head = 0;
-    let scaleBits = 0;
     const nred = reducers.length;
     while (head < len) {
       const off = head * S;
@@ -143,10 +135,6 @@ export class ReductionKernel<C> {
       const tc = curC; curC = nxtC; nxtC = tc;
       head = 0;
       len = k;
-      if (!aOne && K.removeContent && (scaleBits += K.bits!(a)) > CONTENT_BITS) {
-        K.removeContent(curC, 0, len, outC, outLen);
-        scaleBits = 0;
-      }
     }
     this.curE = curE; this.nxtE = nxtE; this.curC = curC; this.nxtC = nxtC;
     // Result: the irreducible terms, then (top reduction) the untouched rest.

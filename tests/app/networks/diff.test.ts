@@ -1,0 +1,36 @@
+import { describe, expect, it } from "vitest";
+import { analyseStructure, parseNetworkCsv } from "@domain/network/index";
+import { diffNetworks } from "~/networks/diff";
+
+const s = (csv: string) => analyseStructure(parseNetworkCsv(csv));
+
+describe("diffNetworks", () => {
+  const v1 = s("reaction,label,rate,reverse_rate,rate_value\nE + S <-> C,binding,k1,k2,2\nC -> E + P,,k3,,1\n");
+
+  it("finds added and removed species and reactions, and changed rates and labels", () => {
+    const v2 = s("reaction,label,rate,reverse_rate,rate_value\nE + S <-> C,bind,k1,k2,5/2\nC -> E + Q,,k3,,1\n");
+    const d = diffNetworks(v1, v2);
+    expect(d.speciesAdded).toEqual(["Q"]);
+    expect(d.speciesRemoved).toEqual(["P"]);
+    expect(d.reactionsAdded.map((r) => `${r.reactant}>${r.product}`)).toEqual(["C>E + Q"]);
+    expect(d.reactionsRemoved.map((r) => `${r.reactant}>${r.product}`)).toEqual(["C>E + P"]);
+    expect(d.reactionsChanged.map((c) => [c.reaction, c.changes])).toEqual([
+      ["E + S → C", ["rate value 2 → 5/2", "label binding → bind"]],
+      ["C → E + S", ["label binding → bind"]],
+    ]);
+    expect(d.identical).toBe(false);
+  });
+
+  it("treats reordered rows and `<->` written as two rows as no change", () => {
+    const v2 = s("reaction,label,rate,rate_value\nC -> E + P,,k3,1\nC -> E + S,binding,k2,\nE + S -> C,binding,k1,2\n");
+    const d = diffNetworks(v1, v2);
+    expect(d.identical).toBe(true);
+  });
+
+  it("matches repeated copies of one reaction one by one", () => {
+    const a = s("reaction,rate\nA -> B,k\n");
+    const b = s("reaction,rate\nA -> B,k\nA -> B,k\n");
+    expect(diffNetworks(a, b).reactionsAdded).toHaveLength(1);
+    expect(diffNetworks(b, a).reactionsRemoved).toHaveLength(1);
+  });
+});

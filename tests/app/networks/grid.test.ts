@@ -1,0 +1,74 @@
+import { describe, expect, it } from "vitest";
+import { readFileSync } from "node:fs";
+import { parseNetworkCsv, tryParseNetworkCsv } from "@domain/network/index";
+import { checkGrid, csvToGrid, emptyRow, gridToCsv, moveRow } from "~/networks/grid";
+
+const row = (reaction: string, extra: Partial<Record<string, string>> = {}) => ({ ...emptyRow(), reaction, ...extra });
+
+describe("grid ↔ CSV", () => {
+  it("writes the columns in use with the header on line 1 and row i on line i + 2", () => {
+    const csv = gridToCsv([row("A -> B", { rate: "k1" }), row("B -> C", { label: "two, with comma" })]);
+    expect(csv).toBe('reaction,label,rate\nA -> B,,k1\nB -> C,"two, with comma",\n');
+    expect(parseNetworkCsv(csv).rows.map((r) => r.line)).toEqual([2, 3]);
+  });
+
+  it("keeps pasted newlines from shifting line numbers", () => {
+    const csv = gridToCsv([row("A -> B", { label: "one\ntwo" }), row("B -> ")]);
+    const result = tryParseNetworkCsv(csv);
+    expect(result.ok).toBe(false);
+    if (!result.ok) expect(result.problems[0]!.row).toBe(3);
+  });
+
+  it("reads a file into rows with their source lines, leaving out unknown columns with a notice", () => {
+    const g = csvToGrid("# comment\nreaction;notes;rate\nA -> B;x;k1\n\nB -> C;y;\n");
+    expect(g.rows.map((r) => [r.reaction, r.rate, r.sourceLine])).toEqual([
+      ["A -> B", "k1", 3],
+      ["B -> C", "", 5],
+    ]);
+    expect(g.notices.join(" ")).toMatch(/`notes`.*left out/);
+  });
+
+  it("reads a headerless file as reactions", () => {
+    const g = csvToGrid("A -> B\nB -> C\n");
+    expect(g.rows.map((r) => r.reaction)).toEqual(["A -> B", "B -> C"]);
+    expect(g.notices[0]).toMatch(/not a header/);
+  });
+
+  it("round-trips every valid fixture through the grid to the same network (labels on one line)", () => {
+    for (const name of ["michaelis-menten", "two-site-phosphorylation", "format-features", "cycle"]) {
+      const text = readFileSync(`tests/fixtures/networks/${name}.csv`, "utf8");
+      const original = parseNetworkCsv(text);
+      const again = parseNetworkCsv(gridToCsv(csvToGrid(text).rows));
+      expect(again.species, name).toEqual(original.species);
+      expect(again.reactions.map((r) => [r.rate, r.reactant, r.product, r.rateValue, r.label]), name).toEqual(
+        original.reactions.map((r) => [r.rate, r.reactant, r.product, r.rateValue, r.label?.replace(/\s*\n\s*/g, " ")]),
+      );
+    }
+  });
+});
+
+describe("checkGrid", () => {
+  it("maps each domain problem to its grid row, and header-level ones to general", () => {
+    const check = checkGrid([row("A -> B"), row("B => C"), row("C -> D", { rate_value: "-1" })]);
+    expect(check.ok).toBe(false);
+    expect([...check.byRow.keys()]).toEqual([1, 2]);
+    expect(check.byRow.get(1)![0]!.column).toBe("reaction");
+    expect(check.byRow.get(2)![0]!.column).toBe("rate_value");
+    expect(check.general).toEqual([]);
+  });
+
+  it("reports an empty grid as a general problem", () => {
+    const check = checkGrid([emptyRow()]);
+    expect(check.ok).toBe(false);
+    expect(check.general[0]!.message).toMatch(/no reactions/);
+  });
+
+  it("accepts a valid grid", () => {
+    expect(checkGrid([row("E + S <-> C"), row("C -> E + P")]).ok).toBe(true);
+  });
+
+  it("moves rows", () => {
+    expect(moveRow(["a", "b", "c"], 2, 0)).toEqual(["c", "a", "b"]);
+    expect(moveRow(["a", "b"], 0, -1)).toEqual(["a", "b"]);
+  });
+});

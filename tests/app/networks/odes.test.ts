@@ -1,0 +1,51 @@
+import { describe, expect, it } from "vitest";
+import { analyseStructure, parseNetworkCsv } from "@domain/network/index";
+import { massActionOdes, odesLatexDocument, odeToLatex, odeToText, rateTex, latexText } from "~/networks/odes";
+
+const structureOf = (csv: string) => analyseStructure(parseNetworkCsv(csv));
+
+describe("massActionOdes", () => {
+  it("writes the enzyme mechanism's ODEs (Horn & Jackson 1972, eq. 2.5; worked by hand)", () => {
+    const odes = massActionOdes(structureOf("reaction,rate,reverse_rate\nE + S <-> C,k1,k2\nC -> E + P,k3,\n"));
+    expect(odes.map(odeToText)).toEqual([
+      "dE/dt = -k1·E·S + k2·C + k3·C",
+      "dS/dt = -k1·E·S + k2·C",
+      "dC/dt = k1·E·S - k2·C - k3·C",
+      "dP/dt = k3·C",
+    ]);
+  });
+
+  it("uses coefficients as exponents and net change as the factor", () => {
+    // 2A -> B: dA/dt = −2·k·A², dB/dt = k·A²; A + B -> 2B: net +1 for B, −1 for A.
+    const odes = massActionOdes(structureOf("reaction,rate\n2A -> B,k\nA + B -> 2B,j\n"));
+    expect(odes.map(odeToText)).toEqual(["dA/dt = -2·k·A^2 - j·A·B", "dB/dt = k·A^2 + j·A·B"]);
+  });
+
+  it("merges terms with the same rate symbol and reactant, and handles inflow", () => {
+    // The same reaction written twice with one shared symbol doubles the term.
+    const odes = massActionOdes(structureOf("reaction,rate\n0 -> X,f\nX -> 0,d\nX -> 0,d\n"));
+    expect(odes.map(odeToText)).toEqual(["dX/dt = f - 2·d·X"]);
+  });
+
+  it("writes 0 for a species no reaction changes", () => {
+    // E is a catalyst: E + S -> E + P leaves E unchanged.
+    const odes = massActionOdes(structureOf("reaction,rate\nE + S -> E + P,k\n"));
+    expect(odeToText(odes[0]!)).toBe("dE/dt = 0");
+  });
+
+  it("typesets rate symbols and species for LaTeX", () => {
+    expect(rateTex("k1")).toBe("k_{1}");
+    expect(rateTex("k_on")).toBe("k_{\\mathrm{on}}");
+    expect(rateTex("kcat")).toBe("\\mathit{kcat}");
+    const [dA] = massActionOdes(structureOf("reaction,rate\n2A -> B,k1\n"));
+    expect(odeToLatex(dA!)).toBe("\\frac{d\\mathrm{A}}{dt} = -2\\,k_{1}\\,\\mathrm{A}^{2}");
+  });
+
+  it("makes a complete LaTeX document with escaped title", () => {
+    const doc = odesLatexDocument("R&D 50% _test_", massActionOdes(structureOf("reaction,rate\nA -> B,k1\n")));
+    expect(doc).toContain("\\begin{align*}");
+    expect(doc).toContain("\\section*{R\\&D 50\\% \\_test\\_}");
+    expect(doc).toContain("\\frac{d\\mathrm{A}}{dt} &= -k_{1}\\,\\mathrm{A}");
+    expect(latexText("a\\b^c~")).toBe("a\\textbackslash{}b\\textasciicircum{}c\\textasciitilde{}");
+  });
+});
