@@ -1,6 +1,7 @@
 import type { Migration } from "kysely";
 import * as initial from "./20261201220000_initial";
 import * as accounts from "./20261201230000_accounts";
+import * as analyses from "./20261201234500_analyses";
 
 /**
  * Every migration, keyed by its file name without extension, in the order they run.
@@ -10,4 +11,5 @@ import * as accounts from "./20261201230000_accounts";
 export const migrations: Record<string, Migration> = {
   "20261201220000_initial": initial,
   "20261201230000_accounts": accounts,
+  "20261201234500_analyses": analyses,
 };

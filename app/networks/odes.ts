@@ -64,6 +64,11 @@ export function speciesTex(name: string): string {
   return `\\mathrm{${escapeTex(name)}}`;
 }
 
+/** A concentration in brackets, so `[T][L]` and `[TL]` cannot be confused. */
+export function concentrationTex(name: string): string {
+  return `[${speciesTex(name)}]`;
+}
+
 /** A rate symbol: `k1` → `k_{1}`, `k_on` → `k_{\mathrm{on}}`, `kcat` → `\mathit{kcat}`. */
 export function rateTex(name: string): string {
   const digits = /^([A-Za-z])(\d+)$/.exec(name);
@@ -73,18 +78,23 @@ export function rateTex(name: string): string {
   return name.length === 1 ? name : `\\mathit{${escapeTex(name)}}`;
 }
 
-/** One equation in LaTeX: `\frac{d\mathrm{E}}{dt} = -k_{1}\,\mathrm{E}\,\mathrm{S} + …`. */
+/** One equation in LaTeX: `\frac{d[\mathrm{E}]}{dt} = -k_{1}\,[\mathrm{E}]\,[\mathrm{S}] + …`. */
 export function odeToLatex(ode: SpeciesOde): string {
   const rhs = ode.terms
     .map((t, i) => {
       const magnitude = Math.abs(t.coefficient);
-      const factors = t.factors.map((f) => (f.power === 1 ? speciesTex(f.species) : `${speciesTex(f.species)}^{${f.power}}`));
+      const factors = t.factors.map((f) => (f.power === 1 ? concentrationTex(f.species) : `${concentrationTex(f.species)}^{${f.power}}`));
       const body = [...(magnitude === 1 ? [] : [String(magnitude)]), rateTex(t.rate), ...factors].join("\\,");
       const sign = t.coefficient < 0 ? (i === 0 ? "-" : " - ") : i === 0 ? "" : " + ";
       return sign + body;
     })
     .join("");
-  return `\\frac{d${speciesTex(ode.species)}}{dt} = ${rhs === "" ? "0" : rhs}`;
+  return `\\frac{d${concentrationTex(ode.species)}}{dt} = ${rhs === "" ? "0" : rhs}`;
+}
+
+/** All equations in one `aligned` block, equals signs under each other (for display). */
+export function odesAlignedLatex(odes: SpeciesOde[]): string {
+  return `\\begin{aligned}\n${odes.map((o) => odeToLatex(o).replace(" = ", " &= ")).join(" \\\\[0.6em]\n")}\n\\end{aligned}`;
 }
 
 /** A complete LaTeX document with the ODEs in an `align*` block (the download). */

@@ -16,14 +16,20 @@
  * const g = R.fromTerms([{ coeff: QQ.one, exponents: [1, 0, 0, 0, 0] },
  *                       { coeff: rational(1n), exponents: [0, 1, 0, 0, 0] },
  *                       { coeff: rational(-1n), exponents: [0, 0, 0, 0, 1] }]);   // x1 + x2 - T
- * const G = groebnerBasis([f, g]);                    // reduced, monic, increasing leading monomial
- * // substitute rational values for parameters (0-based variable indices):
+ * const G = groebnerBasis([f, g]);  // reduced, monic, increasing LM: [x2*k1 + x2*k2 - k1*T, x1 + x2 - T]
+ * // substitute rational values for parameters (0-based variable indices): k1 = 3/2, k2 = 1
  * const h = substitute(G[0], new Map([[2, rational(3n, 2n)], [3, rational(1n)]]));
- * for (const t of terms(h)) console.log(t.coeff, t.exponents); // coeff is a Rational {num, den}
- * R.format(h);                                        // canonical text, e.g. "x1 - 2/3*T"
+ * for (const t of terms(h)) console.log(t.coeff, t.exponents); // {num: 5n, den: 2n} [0,1,0,0,0], ...
+ * R.format(h);                                        // "5/2*x2 - 3/2*T"
  * ```
  * A full lex basis is `new PolynomialRing(vars, QQ, "lex")`; block orders eliminate the first
- * block (`eliminate(polys, names)` does that for you). Long calls accept
+ * block (`eliminate(polys, names)` does that for you). For lex and block orders a zero-dimensional
+ * ideal is solved in grevlex first and converted by FGLM (`fglm: false` turns that off); over Q
+ * the default method learns the computation modulo a prime, replays the useful steps exactly and
+ * proves the result (Buchberger's criterion), so results are always exact.
+ * Coefficients: `terms(p)` gives `{coeff, exponents}` (a `Rational` over QQ); `coefficientOf(p, exps)`
+ * reads one; `evaluate(p, point)` evaluates; `mapPolynomial(p, otherRing, f)` changes field/order;
+ * `moveToRing(p, ring)` re-expresses p in a ring with the same variable names in another order. Long calls accept
  * `{ timeoutMs, deadline, maxBasisSize, maxPairs, maxTerms, signal, onProgress }` and throw
  * `AlgebraError` with code 'timeout' | 'budget' | 'cancelled'; parse errors have code 'parse'
  * and a `location` {line, column}.
@@ -54,4 +60,5 @@ export type { GroebnerOptions } from "./groebner";
 export type { LimitOptions, Progress } from "./groebner/limits";
 export { normalForm, isGroebner, isReduced, idealMembership, trackedGroebner } from "./ideal";
 export type { MembershipResult } from "./ideal";
+export { fglm } from "./fglm";
 export { eliminate, saturate, isZeroDimensional, standardMonomials, countSolutions, moveToRing } from "./elimination";

@@ -72,7 +72,7 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
   budget.progress("structure", "structure of the network");
   const structure = analyseStructure(network);
   warnings.push(...structure.warnings);
-  const suggested = defaultOrder(network);
+  const suggested = defaultOrder(network, structure.conservationLaws);
   const species = options.order ? resolveOrder(options.order, suggested.order) : suggested.order;
   if (options.initial)
     for (const s of options.initial.keys())
@@ -132,33 +132,6 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
       `The saturated ideal contains polynomials in the parameters alone (${parameterOnly.map((g) => kinT.ring.format(g)).join("; ")}): for parameter values where they do not vanish there is no positive steady state.`,
     );
 
-  // ACR and relations.
-  const acr = param ? acrSpecies(kin, param) : [];
-  // Species the elimination left as unknowns without a parametrisation: one block-order basis each.
-  if (param && !param.parametrisation && !param.infeasible)
-    for (const s of param.unknowns) {
-      try {
-        budget.progress("acr", `testing ${s} for absolute concentration robustness`);
-        const found = acrByGroebner(kin, odeRows, s, budget.groebner(0.2));
-        if (found) acr.push(found);
-      } catch (e) {
-        if (!isOutOfBudget(e)) throw e;
-        warnings.push(`ACR of ${s} not decided: ${(e as Error).message}.`);
-      }
-    }
-  acr.sort((a, b) => network.species.indexOf(a.species) - network.species.indexOf(b.species));
-  const relations: RelationResult[] = [];
-  for (const text of options.relations ?? []) {
-    try {
-      budget.progress("relations", `testing ${text}`);
-      relations.push(testRelation(text, kin, odeRows, budget.groebner(0.5)));
-    } catch (e) {
-      if (e instanceof AlgebraError && e.code === "parse") throw new SteadyStateInputError(`relation '${text}': ${e.message}`);
-      if (!isOutOfBudget(e)) throw e;
-      warnings.push(`Relation ${text} not decided: ${(e as Error).message}.`);
-    }
-  }
-
   // Numeric steady states.
   let steadyStates: NumericSteadyState[] | null = null;
   let eliminant: SteadyStateAnalysis["eliminant"] = null;
@@ -180,6 +153,33 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
         if (!isOutOfBudget(e) && !(e instanceof AlgebraError && e.code === "domain")) throw e;
         warnings.push(`Numeric steady states not finished: ${(e as Error).message}.`);
       }
+    }
+  }
+
+  // ACR and relations.
+  const acr = param ? acrSpecies(kin, param) : [];
+  // Species the elimination left as unknowns without a parametrisation: one block-order basis each.
+  if (param && param.complete && !param.parametrisation && !param.infeasible)
+    for (const s of param.unknowns) {
+      try {
+        budget.progress("acr", `testing ${s} for absolute concentration robustness`);
+        const found = acrByGroebner(kin, odeRows, s, budget.groebner(0.2));
+        if (found) acr.push(found);
+      } catch (e) {
+        if (!isOutOfBudget(e)) throw e;
+        warnings.push(`ACR of ${s} not decided: ${(e as Error).message}.`);
+      }
+    }
+  acr.sort((a, b) => network.species.indexOf(a.species) - network.species.indexOf(b.species));
+  const relations: RelationResult[] = [];
+  for (const text of options.relations ?? []) {
+    try {
+      budget.progress("relations", `testing ${text}`);
+      relations.push(testRelation(text, kin, odeRows, budget.groebner(0.5)));
+    } catch (e) {
+      if (e instanceof AlgebraError && e.code === "parse") throw new SteadyStateInputError(`relation '${text}': ${e.message}`);
+      if (!isOutOfBudget(e)) throw e;
+      warnings.push(`Relation ${text} not decided: ${(e as Error).message}.`);
     }
   }
 

@@ -115,11 +115,13 @@ export function linearElimination(kin: KineticsRing, equations: readonly QPoly[]
   return finish(null);
 
   function finish(infeasible: string | null): LinearEliminationResult {
+    // A pivot of one sign never vanishes at positive points; a mixed one qualifies the verdict.
+    const mixed = pivots.filter((p) => signPattern(p) === "mixed").map((p) => ring.format(p));
     return {
       eliminated: solved.map((s) => ({ species: kin.species[s.index], expression: { num: s.num, den: s.den }, pivot: s.pivot })),
       remainingSpecies: kin.species.filter((_, i) => !done.has(i)),
       remaining: eqs,
-      infeasible,
+      infeasible: infeasible && mixed.length > 0 ? `${infeasible} (wherever ${mixed.join(", ")} ≠ 0)` : infeasible,
     };
   }
 }

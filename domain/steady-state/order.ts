@@ -22,17 +22,27 @@ export function nonInteractingSpecies(network: Network): string[] {
 
 /**
  * The default elimination order with its reason: non-interacting species first (eliminated by
- * linear algebra), then the others in their order of appearance (the last ones kept free).
- * Example: E + S <-> C -> E + P gives [C, E, S, P].
+ * linear algebra), then the others in order of appearance, and last — kept free — one species per
+ * conservation law (its first species in order of appearance that is not non-interacting), so that
+ * the free species are like the totals' natural coordinates (enzymes, unmodified substrate).
+ * Example: E + S <-> C -> E + P with laws E + C and S + C + P gives [C, P, E, S].
  */
-export function defaultOrder(network: Network): { order: string[]; reason: string } {
+export function defaultOrder(network: Network, laws: readonly Record<string, number>[] = []): { order: string[]; reason: string } {
   const first = nonInteractingSpecies(network);
-  const order = [...first, ...network.species.filter((s) => !first.includes(s))];
-  const reason =
-    first.length > 0
-      ? `${first.join(", ")} never combine with another species, so they enter the steady-state equations linearly and are eliminated first by linear algebra (Feliu & Wiuf 2012); the remaining species follow in order of appearance, the last ones kept free`
-      : "species in order of appearance; the last ones are kept free";
-  return { order, reason };
+  const free: string[] = [];
+  for (const law of laws) {
+    const pick = network.species.find((s) => (law[s] ?? 0) !== 0 && !first.includes(s) && !free.includes(s));
+    if (pick) free.push(pick);
+  }
+  free.sort((a, b) => network.species.indexOf(a) - network.species.indexOf(b));
+  const middle = network.species.filter((s) => !first.includes(s) && !free.includes(s));
+  const order = [...first, ...middle, ...free];
+  const parts: string[] = [];
+  if (first.length > 0)
+    parts.push(`${first.join(", ")} never combine with another species, so they enter the steady-state equations linearly and are eliminated first by linear algebra (Feliu & Wiuf 2012)`);
+  parts.push("the other species follow in order of appearance");
+  if (free.length > 0) parts.push(`${free.join(", ")} come last to be kept free, one for each conservation law`);
+  return { order, reason: parts.join("; ") };
 }
 
 /**

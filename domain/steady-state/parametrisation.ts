@@ -1,5 +1,5 @@
 import { isZeroPoly, mul } from "../algebra/index";
-import type { Budget } from "./budget";
+import { type Budget, isOutOfBudget } from "./budget";
 import { monomialOf, saturate } from "./ideal";
 import type { KineticsRing, QPoly } from "./kinetics";
 import { type EliminatedSpecies, linearElimination } from "./linear-elimination";
@@ -28,6 +28,8 @@ export interface ParametrisationResult {
   /** Polynomials that must not vanish (pivots of the eliminations). */
   readonly pivots: readonly QPoly[];
   readonly infeasible: string | null;
+  /** False when the Gröbner step after linear elimination ran out of budget. */
+  readonly complete: boolean;
   readonly notes: string[];
 }
 
@@ -49,7 +51,7 @@ export function computeParametrisation(kin: KineticsRing, odeRows: readonly QPol
   if (first.eliminated.length > 0)
     notes.push(`Linear elimination (Feliu & Wiuf 2012) solved ${first.eliminated.map((e) => e.species).join(", ")}.`);
   if (first.infeasible)
-    return { parametrisation: null, eliminated: first.eliminated, unknowns: first.remainingSpecies, remaining: first.remaining, rootsNeeded: [], pivots, infeasible: first.infeasible, notes };
+    return { parametrisation: null, eliminated: first.eliminated, unknowns: first.remainingSpecies, remaining: first.remaining, rootsNeeded: [], pivots, infeasible: first.infeasible, complete: true, notes };
   let eliminated = [...first.eliminated];
   let unknowns = first.remainingSpecies;
   let remaining = first.remaining;
@@ -59,7 +61,16 @@ export function computeParametrisation(kin: KineticsRing, odeRows: readonly QPol
     const speciesIdx = unknowns.map((s) => ring.indexOf(s));
     let sat = monomialOf(ring, speciesIdx);
     for (const p of pivots) if ([...variablesOf(p)].some((k) => k < kin.species.length)) sat = mul(sat, p);
-    const basis = saturate(remaining, sat, budget.groebner(0.5));
+    let basis: QPoly[];
+    try {
+      basis = saturate(remaining, sat, budget.groebner(0.35));
+    } catch (e) {
+      if (!isOutOfBudget(e)) throw e;
+      // Keep what linear elimination found: the numeric solver can still work from it.
+      notes.push(`The lex Gröbner basis of the ${remaining.length} equation(s) left after linear elimination was not finished (${(e as Error).message}); no parametrisation.`);
+      const rootsNeeded: ParametrisationResult["rootsNeeded"] = [];
+      return { parametrisation: null, eliminated, unknowns, remaining, rootsNeeded, pivots, infeasible: null, complete: false, notes };
+    }
     notes.push(`A lex Gröbner basis of the remaining ${remaining.length} equation(s), saturated by the species product and the pivots, has ${basis.length} element(s).`);
     const second = linearElimination(kin, basis, { check: () => budget.check("linear elimination") });
     pivots.push(...second.eliminated.map((e) => e.pivot));
@@ -91,5 +102,5 @@ export function computeParametrisation(kin: KineticsRing, odeRows: readonly QPol
           positive: eliminated.every((e) => isPositiveExpression(e.expression)),
         }
       : null;
-  return { parametrisation, eliminated, unknowns, remaining, rootsNeeded, pivots, infeasible, notes };
+  return { parametrisation, eliminated, unknowns, remaining, rootsNeeded, pivots, infeasible, complete: true, notes };
 }

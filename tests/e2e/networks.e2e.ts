@@ -39,11 +39,14 @@ describe.skipIf(!hasApp)("networks in headless chromium", () => {
   let viewer: E2EBrowser;
   const name = `Ligand transport ${Date.now().toString(36)}`;
   let networkPath = "";
+  const consoleErrors: string[] = [];
 
   beforeAll(async () => {
     mkdirSync(SHOTS, { recursive: true });
     editor = await openBrowser();
     viewer = await openBrowser();
+    // Hydration mismatches and client exceptions show up here.
+    for (const b of [editor, viewer]) b.context.on("console", (m) => void (m.type() === "error" && consoleErrors.push(m.text())));
     const { page } = await editor.page("/sign-in");
     await signInWithCode(page, "editor@halvorsen.test");
     await page.close();
@@ -87,7 +90,8 @@ describe.skipIf(!hasApp)("networks in headless chromium", () => {
     expect(await page.getByTestId("stat-species").innerText()).toBe("4");
     expect(await page.getByTestId("stat-reactions").innerText()).toBe("4");
     expect(await page.getByTestId("conservation-laws").innerText()).toContain("T + TL = total");
-    expect(await page.locator("[data-testid=odes] .katex").count()).toBe(4);
+    expect(await page.locator("[data-testid=odes] .katex-display").count()).toBe(1);
+    expect(await page.getByTestId("ode-text").allTextContents()).toContain("dLi/dt = krel·TL - kuse·Li");
     await shot(page, "03-saved-network-page");
     await page.screenshot({ path: `${SHOTS}/03b-network-page-top.png` });
     await page.locator("#odes").screenshot({ path: `${SHOTS}/03c-odes.png` });
@@ -96,7 +100,14 @@ describe.skipIf(!hasApp)("networks in headless chromium", () => {
 
   it("uploads a second version and shows what changed", async () => {
     const { page } = await editor.page(`${networkPath}/edit`);
-    await page.getByTestId("file-input").setInputFiles({ name: "transport-v2.csv", mimeType: "text/csv", buffer: Buffer.from(SECOND_UPLOAD) });
+    // Dropped onto the drop zone this time, as a person dragging the file from their desktop.
+    const transfer = await page.evaluateHandle((text) => {
+      const dt = new DataTransfer();
+      dt.items.add(new File([text], "transport-v2.csv", { type: "text/csv" }));
+      return dt;
+    }, SECOND_UPLOAD);
+    await page.getByTestId("drop-zone").dispatchEvent("drop", { dataTransfer: transfer });
+    await expect.poll(() => page.getByTestId("grid-row").count()).toBe(4);
     await expect.poll(() => page.getByTestId("grid-status").innerText()).toMatch(/Looks valid/);
     await page.getByLabel(/^Change note/).fill("Ligand supply added; faster loading.");
     await page.getByRole("button", { name: "Save as new version" }).click();
@@ -163,6 +174,22 @@ describe.skipIf(!hasApp)("networks in headless chromium", () => {
     await graph.screenshot({ path: `${SHOTS}/07-complex-graph-38-complexes.png` });
   });
 
+  it("starts a new network from a demo and edits the grid (add, reorder, remove)", async () => {
+    const { page } = await editor.page(`${LAB}/networks/new`);
+    await page.getByRole("button", { name: "Three-state channel" }).click();
+    const rows = page.getByTestId("grid-row");
+    await expect.poll(() => rows.count()).toBe(3);
+    await expect.poll(() => page.getByTestId("grid-status").innerText()).toMatch(/Looks valid: 3 rows/);
+    await page.getByRole("button", { name: "+ Add a reaction" }).click();
+    await page.getByLabel("Reaction, row 4").fill("Open -> Gone");
+    await page.getByRole("button", { name: "Move row 4 up" }).click();
+    expect(await page.getByLabel("Reaction, row 3").inputValue()).toBe("Open -> Gone");
+    await page.getByRole("button", { name: "Remove row 1" }).click();
+    await expect.poll(() => rows.count()).toBe(3);
+    expect(await page.getByLabel("Reaction, row 2").inputValue()).toBe("Open -> Gone");
+    await shot(page, "08-demo-in-grid");
+  });
+
   it("shows the network read-only to the lab's viewer", async () => {
     const { page } = await viewer.page("/sign-in");
     await signInWithCode(page, "viewer@halvorsen.test");
@@ -172,5 +199,10 @@ describe.skipIf(!hasApp)("networks in headless chromium", () => {
     expect(await page.getByRole("button", { name: "Save details" }).count()).toBe(0);
     const edit = await page.goto(`${networkPath}/edit`);
     expect(edit?.status()).toBe(403);
+  });
+
+  it("logged no errors in the browser console", () => {
+    // A refused save answers 400 and a viewer's edit page 403; the browser logs those loads.
+    expect(consoleErrors.filter((e) => !/status of (400|403)/.test(e))).toEqual([]);
   });
 });

@@ -229,6 +229,12 @@ export function NetworkEditor({
                         <input
                           value={row[c.key]}
                           onChange={(e) => update(i, c.key, e.target.value)}
+                          // Enter in a cell should not save half-typed work; it adds a row below the last one.
+                          onKeyDown={(e) => {
+                            if (e.key !== "Enter") return;
+                            e.preventDefault();
+                            if (i === rows.length - 1) edit((rs) => [...rs, emptyRow()]);
+                          }}
                           placeholder={rows.length === 1 && GRID_COLUMNS.every((k) => row[k.key] === "") ? c.placeholder : undefined}
                           aria-label={`${c.label}, row ${i + 1}`}
                           aria-invalid={bad.has(c.key)}

@@ -1,24 +1,28 @@
 import katex from "katex";
 import "katex/dist/katex.min.css";
-import { odeToLatex, odeToText, type SpeciesOde } from "../odes";
+import { odesAlignedLatex, odeToText, type SpeciesOde } from "../odes";
 
 /**
- * The ODEs typeset by KaTeX (fonts come from node_modules through Vite; no CDN). Rendered to
- * HTML+MathML strings, the same on the server and in the browser; the plain-text form is kept
- * as the accessible label and for copying.
+ * The ODEs typeset by KaTeX in one aligned block (fonts come from node_modules through Vite; no
+ * CDN). Rendered to an HTML+MathML string, the same on the server and in the browser; the
+ * plain-text forms follow for copying and screen readers.
  */
 export function OdesView({ odes }: { odes: SpeciesOde[] }) {
+  const html = katex.renderToString(odesAlignedLatex(odes), { displayMode: true, throwOnError: false, output: "htmlAndMathml" });
   return (
-    <div className="space-y-1" data-testid="odes">
-      {odes.map((ode) => (
-        <div
-          key={ode.species}
-          className="overflow-x-auto py-1"
-          title={odeToText(ode)}
-          // KaTeX escapes every symbol it is given; names come from the validated CSV.
-          dangerouslySetInnerHTML={{ __html: katex.renderToString(odeToLatex(ode), { displayMode: true, throwOnError: false, output: "htmlAndMathml" }) }}
-        />
-      ))}
+    <div data-testid="odes">
+      {/* KaTeX escapes every symbol it is given; names come from the validated CSV. */}
+      <div className="overflow-x-auto rounded-md border border-line bg-surface px-4 py-2" dangerouslySetInnerHTML={{ __html: html }} />
+      <details className="mt-2 text-sm">
+        <summary className="cursor-pointer text-muted">As plain text</summary>
+        <ul className="mt-1 font-mono text-xs">
+          {odes.map((o) => (
+            <li key={o.species} data-testid="ode-text">
+              {odeToText(o)}
+            </li>
+          ))}
+        </ul>
+      </details>
     </div>
   );
 }

@@ -1,4 +1,5 @@
 import type { Route } from "./+types/lab-members";
+import { apiError } from "~/permissions/api-errors";
 import { db } from "~/db.server";
 import { listMembers } from "~/labs/memberships.server";
 import { requireApiLabRole } from "~/permissions/permissions.server";
@@ -10,4 +11,10 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   return Response.json({
     members: members.map((m) => ({ email: m.email, displayName: m.displayName, role: m.role, since: m.since.toISOString() })),
   });
+}
+
+/** Read-only resource: other methods get the JSON error shape (after the same permission check). */
+export async function action({ request, params }: Route.ActionArgs) {
+  await requireApiLabRole(request, params.labSlug, "viewer");
+  throw apiError("method_not_allowed", "This resource is read-only; use GET.", undefined, { Allow: "GET" });
 }

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { analyseStructure, parseNetworkCsv } from "@domain/network/index";
-import { massActionOdes, odesLatexDocument, odeToLatex, odeToText, rateTex, latexText } from "~/networks/odes";
+import { massActionOdes, odesAlignedLatex, odesLatexDocument, odeToLatex, odeToText, rateTex, latexText } from "~/networks/odes";
 
 const structureOf = (csv: string) => analyseStructure(parseNetworkCsv(csv));
 
@@ -38,14 +38,25 @@ describe("massActionOdes", () => {
     expect(rateTex("k_on")).toBe("k_{\\mathrm{on}}");
     expect(rateTex("kcat")).toBe("\\mathit{kcat}");
     const [dA] = massActionOdes(structureOf("reaction,rate\n2A -> B,k1\n"));
-    expect(odeToLatex(dA!)).toBe("\\frac{d\\mathrm{A}}{dt} = -2\\,k_{1}\\,\\mathrm{A}^{2}");
+    // Concentrations in brackets, so [T][L] (two species) and [TL] (one) read differently.
+    expect(odeToLatex(dA!)).toBe("\\frac{d[\\mathrm{A}]}{dt} = -2\\,k_{1}\\,[\\mathrm{A}]^{2}");
+  });
+
+  it("aligns all equations at their equals signs for display", () => {
+    const block = odesAlignedLatex(massActionOdes(structureOf("reaction,rate\nA -> B,k1\n")));
+    expect(block.split("\n")).toEqual([
+      "\\begin{aligned}",
+      "\\frac{d[\\mathrm{A}]}{dt} &= -k_{1}\\,[\\mathrm{A}] \\\\[0.6em]",
+      "\\frac{d[\\mathrm{B}]}{dt} &= k_{1}\\,[\\mathrm{A}]",
+      "\\end{aligned}",
+    ]);
   });
 
   it("makes a complete LaTeX document with escaped title", () => {
     const doc = odesLatexDocument("R&D 50% _test_", massActionOdes(structureOf("reaction,rate\nA -> B,k1\n")));
     expect(doc).toContain("\\begin{align*}");
     expect(doc).toContain("\\section*{R\\&D 50\\% \\_test\\_}");
-    expect(doc).toContain("\\frac{d\\mathrm{A}}{dt} &= -k_{1}\\,\\mathrm{A}");
+    expect(doc).toContain("\\frac{d[\\mathrm{A}]}{dt} &= -k_{1}\\,[\\mathrm{A}]");
     expect(latexText("a\\b^c~")).toBe("a\\textbackslash{}b\\textasciicircum{}c\\textasciitilde{}");
   });
 });

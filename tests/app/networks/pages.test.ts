@@ -75,11 +75,18 @@ describe.skipIf(!hasTestDatabase)("network pages", () => {
     const csv = await run(download.loader, makeRequest(`${page()}/download/network.csv`, { cookie: cookies.viewer }), { ...lab, networkId, file: "network.csv" });
     expect(csv.body).toBe("reaction,rate,reverse_rate\nA <-> B,k1,k2\nB -> C,k3,\n");
     const tex = await run(download.loader, makeRequest(`${page()}/download/odes.tex`, { cookie: cookies.viewer }), { ...lab, networkId, file: "odes.tex" });
-    expect(String(tex.body)).toContain("\\frac{d\\mathrm{C}}{dt} &= k_{3}\\,\\mathrm{B}");
+    expect(String(tex.body)).toContain("\\frac{d[\\mathrm{C}]}{dt} &= k_{3}\\,[\\mathrm{B}]");
     const matrix = await run(download.loader, makeRequest(`${page()}/download/stoichiometric-matrix.csv?v=1`, { cookie: cookies.viewer }), { ...lab, networkId, file: "stoichiometric-matrix.csv" });
     expect(matrix.body).toBe("species,r1,r2\nA,-1,1\nB,1,-1\n");
     const outsider = await run(show.loader, makeRequest(page(), { cookie: cookies.outsider }), { ...lab, networkId });
     expect(outsider.status).toBe(404);
+    const anonymous = await run(show.loader, makeRequest(page()), { ...lab, networkId });
+    expect(anonymous.status).toBe(302);
+    expect(anonymous.location).toMatch(/^\/sign-in\?returnTo=/);
+    const anonymousSave = await run(edit.action, makeRequest(`${page()}/edit`, { form: { csv: "reaction\nA -> B\n" } }), { ...lab, networkId });
+    expect(anonymousSave.status).toBe(302);
+    const outsiderDownload = await run(download.loader, makeRequest(`${page()}/download/network.csv`, { cookie: cookies.outsider }), { ...lab, networkId, file: "network.csv" });
+    expect(outsiderDownload.status).toBe(404);
   });
 
   it("restores an old version as a new one, marking where it came from", async () => {

@@ -141,9 +141,14 @@ describe.skipIf(!hasTestDatabase)("permission matrix", () => {
     { name: "GET /api/labs/alpha", route: () => import("~/routes/api/lab"), kind: "loader", path: "/api/labs/alpha", params: alpha, api: true, expect: labMember(200, "viewer", 401) },
     { name: "GET /api/labs/alpha/members", route: () => import("~/routes/api/lab-members"), kind: "loader", path: "/api/labs/alpha/members", params: alpha, api: true, expect: labMember(200, "viewer", 401) },
     { name: "GET /api/labs/alpha/audit", route: () => import("~/routes/api/lab-audit"), kind: "loader", path: "/api/labs/alpha/audit", params: alpha, api: true, expect: labMember(200, "owner", 401) },
+    // Read-only API resources answer other methods with 405 in the JSON error shape, after the same check.
+    { name: "POST /api/me", route: () => import("~/routes/api/me"), kind: "action", path: "/api/me", api: true, json: {}, expect: signInOr(405, { anonymous: 401 }) },
+    { name: "POST /api/labs/alpha", route: () => import("~/routes/api/lab"), kind: "action", path: "/api/labs/alpha", params: alpha, api: true, json: { name: "x" }, expect: labMember(405, "viewer", 401) },
+    { name: "POST /api/labs/alpha/members", route: () => import("~/routes/api/lab-members"), kind: "action", path: "/api/labs/alpha/members", params: alpha, api: true, json: {}, expect: labMember(405, "viewer", 401) },
+    { name: "POST /api/labs/alpha/audit", route: () => import("~/routes/api/lab-audit"), kind: "action", path: "/api/labs/alpha/audit", params: alpha, api: true, json: {}, expect: labMember(405, "owner", 401) },
   ];
 
-  const isRefusal = (o: Outcome) => [401, 403, 404, 409].includes(o.status) || (o.status === 302 && (o.location ?? "").startsWith("/sign-in"));
+  const isRefusal = (o: Outcome) => [401, 403, 404, 405, 409].includes(o.status) || (o.status === 302 && (o.location ?? "").startsWith("/sign-in"));
 
   async function call(c: Case, p: Persona, via: "cookie" | "bearer") {
     const mod = await c.route();

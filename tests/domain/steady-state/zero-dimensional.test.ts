@@ -34,4 +34,13 @@ describe("positive solutions of zero-dimensional systems", () => {
     const R = ring(["x"]);
     expect(positiveSolutions([R.parse("(x - 1)^2*(x - 3)")]).points).toEqual([[1], [3]]);
   });
+
+  it("non-radical ideals: multiple points are passed to the radical first (Seidenberg's lemma)", () => {
+    const R = ring(["x", "y", "z"]);
+    expect(positiveSolutions(["(x-1)^2", "(y-2)^2*(y-3)", "z*x - y"].map((t) => R.parse(t))).points).toEqual([[1, 2, 2], [1, 3, 3]]);
+    const r = positiveSolutions(["(x-1)^2*(x-2)", "(y-x)^3", "z^2-x"].map((t) => R.parse(t))).points;
+    expect(r).toHaveLength(2);
+    expect(r[0]).toEqual([1, 1, 1]);
+    expect(r[1][2]).toBeCloseTo(Math.SQRT2, 15);
+  });
 });

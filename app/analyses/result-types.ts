@@ -1,0 +1,58 @@
+/** The stored analysis result: the CLI's `analyse --json` object (domain/cli/analyse.ts `toJson`), typed for the pages. */
+export interface StoredSteadyState {
+  concentrations: Record<string, number>;
+  stable: boolean | null;
+  verdict: string;
+  eigenvalues: (number | { re: number; im: number })[];
+  residual: number;
+}
+
+export interface AnalysisResult {
+  species: string[];
+  complexes: string[];
+  reactions: number;
+  rank: number;
+  linkageClasses: number;
+  deficiency: number;
+  weaklyReversible: boolean;
+  conservationLaws: Record<string, number>[];
+  groebnerBasis: string[];
+  groebnerBasisComplete: boolean;
+  parametrisation: { free: string[]; expressions: Record<string, string>; positive: boolean } | null;
+  acr: { species: string; value: string }[];
+  steadyStates: StoredSteadyState[] | null;
+  warnings: string[];
+  order: { species: string[]; suggested: string[]; reason: string; userGiven: boolean };
+  ordering: string;
+  genericConditions: string[];
+  triangularForm: { species: string | null; polynomials: string[] }[];
+  rootsNeeded: { species: string; polynomial: string; degree: number }[];
+  nonVanishing: string[];
+  relations: { expression: string; inIdeal: boolean; vanishes: boolean; remainder: string }[];
+  eliminant: { variable: string; polynomial: string } | null;
+  steadyStateSet: "finite" | "continuum" | null;
+  positiveSteadyStatesExist: boolean | null;
+  parameters: { rateConstants: string[]; totals: string[]; values: Record<string, string> };
+}
+
+export interface ScanResult {
+  parameter: { kind: "rate" | "initial"; name: string };
+  spacing: "linear" | "log";
+  species: string[];
+  points: { value: number; states: { concentrations: Record<string, number>; verdict: string }[] | null; note?: string }[];
+}
+
+export interface RelationJobResult {
+  relation: { expression: string; inIdeal: boolean; vanishes: boolean; remainder: string } | null;
+  warnings: string[];
+}
+
+export interface TimeCourseResult {
+  species: string[];
+  endTime: number;
+  completed: boolean;
+  note: string | null;
+  method: string;
+  t: number[];
+  y: number[][];
+}

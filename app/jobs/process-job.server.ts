@@ -1,0 +1,138 @@
+/**
+ * One job, start to finish, on a worker: claim the row atomically, run the computation in a child
+ * process, heartbeat progress into analyses.progress, obey the cancel flag and the time limit,
+ * write the outcome, and e-mail the starter if asked. Every write after the claim is guarded by
+ * `worker_id = me AND status = 'running'`, so a row the sweeper has taken back is never overwritten.
+ */
+import { sql } from "kysely";
+import type { AnalysisParams } from "~/analyses/params";
+import { findJobById } from "~/analyses/repository.server";
+import type { AnalysesDb, JobRow } from "~/analyses/schema";
+import type { JsonObject } from "~/db/schema";
+import type { JobPayload } from "./compute";
+import { notifyStarter } from "./notify.server";
+import { parseProgress, type JobProgress } from "./progress";
+import { runInChild, type ChildOutcome } from "./run-child.server";
+
+export interface ProcessOptions {
+  workerId: string;
+  heartbeatMs: number;
+  /** Extra time after the limit before the child is killed (the engine stops itself at the limit). */
+  graceMs: number;
+  /** The engine's own deadline as a multiple of the limit (1; tests raise it to exercise the hard kill). */
+  engineDeadlineFactor: number;
+  /** Called once the child runs (tests use it to crash the worker mid-run). */
+  onChildStarted?: (analysisId: string, pid: number | undefined) => void;
+}
+
+async function claim(db: AnalysesDb, id: string, workerId: string): Promise<JobRow | undefined> {
+  return db
+    .updateTable("analyses")
+    .set({
+      status: "running",
+      attempts: sql`attempts + 1`,
+      worker_id: workerId,
+      heartbeat_at: sql`now()`,
+      started_at: sql`coalesce(started_at, now())`,
+      error: null,
+      progress: { stage: "starting", message: "job process starting" },
+    })
+    .where("id", "=", id)
+    .where("status", "=", "queued")
+    .where("cancel_requested_at", "is", null)
+    .returningAll()
+    .executeTakeFirst();
+}
+
+async function payloadFor(db: AnalysesDb, row: JobRow): Promise<JobPayload> {
+  const version = await db.selectFrom("network_versions").select("csv").where("id", "=", row.network_version_id).executeTakeFirstOrThrow();
+  const parent = row.parent_id ? await findJobById(db, row.parent_id) : undefined;
+  const parentParams = parent?.params as unknown as AnalysisParams;
+  switch (row.kind) {
+    case "analysis":
+      return { kind: "analysis", csv: version.csv, params: row.params as unknown as AnalysisParams };
+    case "scan":
+      return { kind: "scan", csv: version.csv, params: row.params as never, parent: parentParams };
+    case "relation":
+      return { kind: "relation", csv: version.csv, params: row.params as never, parent: parentParams };
+    case "timecourse":
+      return { kind: "timecourse", csv: version.csv, params: row.params as never, parent: parentParams, parentResult: parent?.result ?? null };
+  }
+}
+
+const seconds = (ms: number) => `${Math.round(ms / 100) / 10} s`;
+
+/** Processes job `id` if it is still queued; returns the final status it wrote (or null if not claimed). */
+export async function processJob(db: AnalysesDb, id: string, options: ProcessOptions): Promise<string | null> {
+  const row = await claim(db, id, options.workerId);
+  if (!row) return null;
+  const started = Date.now();
+  const limitMs = row.time_limit_seconds * 1000;
+  let progress: JobProgress = { stage: "starting", message: "job process starting", elapsedMs: 0 };
+  const mine = () => db.updateTable("analyses").where("id", "=", id).where("worker_id", "=", options.workerId).where("status", "=", "running");
+
+  let outcome: ChildOutcome;
+  let lostRow = false;
+  let cancelled = false;
+  try {
+    const payload = await payloadFor(db, row);
+    const child = runInChild(payload, {
+      engineTimeoutMs: limitMs * options.engineDeadlineFactor,
+      onProgress: (p) => {
+        progress = parseProgress(p, Date.now() - started);
+      },
+    });
+    options.onChildStarted?.(id, child.pid);
+    const beat = async () => {
+      const r = await mine()
+        .set({ heartbeat_at: sql`now()`, progress: { ...progress, elapsedMs: Date.now() - started } as unknown as JsonObject })
+        .returning("cancel_requested_at")
+        .executeTakeFirst()
+        .catch(() => undefined);
+      if (!r) {
+        lostRow = true;
+        child.stop("the job was taken back by the sweeper");
+      } else if (r.cancel_requested_at) {
+        cancelled = true;
+        child.stop("cancelled");
+      }
+    };
+    const heartbeat = setInterval(() => void beat(), options.heartbeatMs);
+    const limit = setTimeout(() => child.stop("time limit"), limitMs + options.graceMs);
+    try {
+      outcome = await child.outcome;
+    } finally {
+      clearInterval(heartbeat);
+      clearTimeout(limit);
+    }
+  } catch (e) {
+    outcome = { kind: "crashed", message: `could not start the job: ${(e as Error).message}` };
+  }
+  if (lostRow) return null;
+
+  const elapsed = Date.now() - started;
+  const timings = { ...row.timings, [`attempt${row.attempts}`]: elapsed, totalMs: elapsed };
+  let update;
+  if (outcome.kind === "result") {
+    update = { status: "succeeded" as const, result: outcome.result as JsonObject, error: null, progress: { stage: "done", message: "finished", elapsedMs: elapsed } };
+  } else if (outcome.kind === "stopped" && cancelled) {
+    update = { status: "cancelled" as const, error: `Cancelled after ${seconds(elapsed)} (during ${progress.stage}).`, progress: { ...progress, stage: "cancelled", elapsedMs: elapsed } };
+  } else if (outcome.kind === "stopped") {
+    const where = progress.basisSize !== undefined ? `; Gröbner basis had ${progress.basisSize} polynomials with ${progress.pairsLeft ?? "?"} pairs left` : "";
+    update = {
+      status: "failed" as const,
+      error: `Stopped: the time limit of ${row.time_limit_seconds} s was exceeded during ${progress.stage}${where}. Try a longer limit (up to the lab's maximum), numeric rate constants, or another elimination order.`,
+      progress: { ...progress, stage: "stopped", elapsedMs: elapsed },
+    };
+  } else {
+    const message = outcome.kind === "error" && outcome.code === "cancelled" ? "Cancelled." : outcome.message;
+    update = { status: "failed" as const, error: message, progress: { ...progress, stage: "failed", elapsedMs: elapsed } };
+  }
+  const written = await mine()
+    .set({ ...update, progress: update.progress as unknown as JsonObject, timings, finished_at: sql`now()`, heartbeat_at: sql`now()` })
+    .returning("id")
+    .executeTakeFirst();
+  if (!written) return null;
+  if (row.notify_by_email) await notifyStarter(db, id).catch((e) => console.error(`[worker] mail for ${id} failed:`, (e as Error).message));
+  return update.status;
+}

@@ -1,0 +1,73 @@
+/**
+ * Runs one job in a forked child process (app/jobs/child.ts, TypeScript through tsx's loader) and
+ * turns whatever happens into one outcome. `stop(reason)` kills the child with SIGKILL: it works
+ * even while the child is deep inside a Gröbner basis computation that never yields.
+ */
+import { fork } from "node:child_process";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+import type { ChildMessage } from "./child";
+import type { JobPayload } from "./compute";
+
+export type ChildOutcome =
+  | { kind: "result"; result: Record<string, unknown> }
+  | { kind: "error"; message: string; code?: string }
+  | { kind: "stopped"; reason: string }
+  | { kind: "crashed"; message: string };
+
+export interface ChildRun {
+  outcome: Promise<ChildOutcome>;
+  stop(reason: string): void;
+  pid: number | undefined;
+}
+
+const CHILD = path.join(path.dirname(fileURLToPath(import.meta.url)), "child.ts");
+
+export function runInChild(payload: JobPayload, options: { engineTimeoutMs: number; onProgress?: (p: { phase: string; message: string }) => void }): ChildRun {
+  const child = fork(CHILD, [], {
+    execArgv: ["--import", "tsx"],
+    stdio: ["ignore", "ignore", "pipe", "ipc"],
+    // Bounded memory: a blown-up basis fails this child, not the machine (common practice).
+    env: { ...process.env, NODE_OPTIONS: "--max-old-space-size=1536" },
+  });
+  let settled: ChildOutcome | undefined;
+  let stopReason: string | undefined;
+  let stderr = "";
+  child.stderr?.on("data", (d: Buffer) => {
+    stderr = (stderr + d.toString()).slice(-4000);
+  });
+  const outcome = new Promise<ChildOutcome>((resolve) => {
+    child.on("message", (m: ChildMessage) => {
+      if (m.type === "progress") options.onProgress?.({ phase: m.phase, message: m.message });
+      else if (m.type === "result") settled ??= { kind: "result", result: m.result };
+      else if (m.type === "error") settled ??= { kind: "error", message: m.message, code: m.code };
+    });
+    child.on("error", (e) => {
+      settled ??= { kind: "crashed", message: `could not run the job process: ${e.message}` };
+    });
+    child.on("exit", (code, signal) => {
+      if (stopReason !== undefined) resolve({ kind: "stopped", reason: stopReason });
+      else if (settled) resolve(settled);
+      else {
+        const tail = stderr.trim().split("\n").slice(-3).join(" ");
+        const oom = /heap out of memory/i.test(stderr);
+        resolve({
+          kind: "crashed",
+          message: oom
+            ? "The computation ran out of memory (1.5 GB per job); try a smaller size budget or another elimination order."
+            : `The job process ended unexpectedly (${signal ? `signal ${signal}` : `exit code ${code}`})${tail ? `: ${tail}` : ""}.`,
+        });
+      }
+    });
+  });
+  child.send({ payload, engineTimeoutMs: options.engineTimeoutMs });
+  return {
+    outcome,
+    pid: child.pid,
+    stop(reason) {
+      if (stopReason !== undefined || child.exitCode !== null) return;
+      stopReason = reason;
+      child.kill("SIGKILL");
+    },
+  };
+}

@@ -1,0 +1,93 @@
+/**
+ * The background worker: `npm run worker` (npm start starts one). It takes job ids from the
+ * pg-boss queue, runs each job in a child process (process-job.server.ts), and sweeps jobs whose
+ * worker died. Any number of workers, on any machines, may share one database: claims and sweeps
+ * are single atomic UPDATEs. Run more with `DATABASE_URL=… npm run worker` in another shell.
+ */
+import { hostname } from "node:os";
+import { randomBytes } from "node:crypto";
+import { pathToFileURL } from "node:url";
+import { createDb } from "~/db.server";
+import { getEnv } from "~/env.server";
+import { asAnalysesDb } from "~/analyses/schema";
+import { enqueue, getBoss, QUEUE, stopBosses, type JobMessage } from "./queue.server";
+import { processJob, type ProcessOptions } from "./process-job.server";
+import { orphanedQueuedJobs, sweepStaleJobs } from "./sweeper.server";
+
+export interface WorkerOptions extends Partial<Omit<ProcessOptions, "workerId">> {
+  databaseUrl: string;
+  /** Jobs run at once by this worker (each in its own process; default 1, as the machine has 2 cores). */
+  concurrency?: number;
+  sweepEveryMs?: number;
+  staleAfterMs?: number;
+  pollSeconds?: number;
+  log?: (line: string) => void;
+}
+
+export interface RunningWorker {
+  id: string;
+  stop(): Promise<void>;
+}
+
+export async function startWorker(options: WorkerOptions): Promise<RunningWorker> {
+  const id = `${hostname()}:${process.pid}:${randomBytes(3).toString("hex")}`;
+  const log = options.log ?? ((line: string) => console.log(`[worker ${id}] ${line}`));
+  const db = asAnalysesDb(createDb(options.databaseUrl, { max: 4 }));
+  const boss = await getBoss(options.databaseUrl, { supervise: true });
+  const processOptions: ProcessOptions = {
+    workerId: id,
+    heartbeatMs: options.heartbeatMs ?? 1000,
+    graceMs: options.graceMs ?? 5000,
+    engineDeadlineFactor: options.engineDeadlineFactor ?? 1,
+    onChildStarted: options.onChildStarted,
+  };
+  const staleAfterMs = options.staleAfterMs ?? 30_000;
+
+  const workIds: string[] = [];
+  for (let i = 0; i < (options.concurrency ?? 1); i++) {
+    workIds.push(
+      await boss.work<JobMessage>(QUEUE, { batchSize: 1, pollingIntervalSeconds: options.pollSeconds ?? 1 }, async ([job]) => {
+        if (!job) return;
+        const status = await processJob(db, job.data.analysisId, processOptions);
+        if (status) log(`${job.data.analysisId}: ${status}`);
+      }),
+    );
+  }
+
+  const sweep = async () => {
+    try {
+      const { requeued, failed } = await sweepStaleJobs(db, staleAfterMs);
+      for (const r of requeued) {
+        log(`${r.id}: its worker stopped responding; queued again`);
+        await enqueue(options.databaseUrl, r.id, r.timeLimitSeconds);
+      }
+      for (const f of failed) log(`${f}: its worker stopped responding; no attempts left, marked failed`);
+      for (const r of await orphanedQueuedJobs(db, 5 * 60_000)) await enqueue(options.databaseUrl, r.id, r.timeLimitSeconds);
+    } catch (e) {
+      log(`sweep failed: ${(e as Error).message}`);
+    }
+  };
+  const sweeper = setInterval(() => void sweep(), options.sweepEveryMs ?? 10_000);
+  void sweep();
+  log("ready");
+
+  return {
+    id,
+    async stop() {
+      clearInterval(sweeper);
+      for (const w of workIds) await boss.offWork({ id: w }).catch(() => undefined);
+      await stopBosses();
+      await db.destroy();
+    },
+  };
+}
+
+if (import.meta.url === pathToFileURL(process.argv[1] ?? "").href) {
+  const worker = await startWorker({ databaseUrl: getEnv().databaseUrl, concurrency: Number(process.env.WORKER_CONCURRENCY ?? 1) });
+  const shutdown = async () => {
+    await worker.stop().catch(() => undefined);
+    process.exit(0);
+  };
+  process.on("SIGINT", () => void shutdown());
+  process.on("SIGTERM", () => void shutdown());
+}

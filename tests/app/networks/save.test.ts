@@ -1,0 +1,36 @@
+import { describe, expect, it } from "vitest";
+import { checkCsv, parseChangeNote, parseDetails, parseTags } from "~/networks/save.server";
+
+describe("network input checks", () => {
+  it("normalises tags and refuses odd ones", () => {
+    expect(parseTags(" Enzyme, teaching ,enzyme,, ")).toEqual({ ok: true, tags: ["enzyme", "teaching"] });
+    expect(parseTags(["a-b", "c.d"])).toEqual({ ok: true, tags: ["a-b", "c.d"] });
+    expect(parseTags("ok, <script>").ok).toBe(false);
+    expect(parseTags(Array.from({ length: 13 }, (_, i) => `t${i}`)).ok).toBe(false);
+    expect(parseTags(42).ok).toBe(false);
+  });
+
+  it("needs a name and keeps field messages", () => {
+    const r = parseDetails({ name: "  ", description: "x".repeat(5001), tags: "fine" });
+    expect(r.ok).toBe(false);
+    if (!r.ok) expect(Object.keys(r.details!.fields!).sort()).toEqual(["description", "name"]);
+    expect(parseDetails({ name: " Cycle ", tags: "a" })).toEqual({ ok: true, details: { name: "Cycle", description: "", tags: ["a"] } });
+  });
+
+  it("fills an empty change note and bounds its length", () => {
+    expect(parseChangeNote("", "First version.")).toEqual({ ok: true, note: "First version." });
+    expect(parseChangeNote("x".repeat(501), "-").ok).toBe(false);
+  });
+
+  it("accepts only CSV that parses without a problem, within the size limit", () => {
+    expect(checkCsv("reaction\nA -> B\n").ok).toBe(true);
+    const bad = checkCsv("reaction\nA -> A\n");
+    expect(bad.ok).toBe(false);
+    if (!bad.ok) expect(bad.details!.problems![0]).toMatchObject({ row: 2, column: "reaction" });
+    expect(checkCsv("").ok).toBe(false);
+    expect(checkCsv(undefined).ok).toBe(false);
+    const huge = checkCsv("reaction\n" + "A -> B\n".repeat(40_000));
+    expect(huge.ok).toBe(false);
+    if (!huge.ok) expect(huge.message).toMatch(/256 KB/);
+  });
+});
