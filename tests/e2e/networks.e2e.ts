@@ -197,6 +197,8 @@ describe.skipIf(!hasApp)("networks in headless chromium", () => {
     expect(await page.getByTestId("network-name").innerText()).toContain(name);
     expect(await page.getByRole("link", { name: "Edit as new version" }).count()).toBe(0);
     expect(await page.getByRole("button", { name: "Save details" }).count()).toBe(0);
+    expect(await page.getByRole("button", { name: /restore/i }).count()).toBe(0);
+    await page.screenshot({ path: `${SHOTS}/09-viewer-read-only.png` });
     const edit = await page.goto(`${networkPath}/edit`);
     expect(edit?.status()).toBe(403);
   });

@@ -29,10 +29,14 @@ function renderCode(text: string) {
   );
 }
 
-export function Stat({ label, value, testId }: { label: string; value: React.ReactNode; testId?: string }) {
+export function Stat({ label, symbol, value, testId }: { label: string; symbol?: string; value: React.ReactNode; testId?: string }) {
   return (
     <div className="rounded-md border border-line bg-surface px-4 py-3">
-      <dt className="text-xs uppercase tracking-wide text-muted">{label}</dt>
+      <dt className="text-xs uppercase tracking-wide text-muted">
+        {label}
+        {/* Upper-casing would turn δ into Δ, a different symbol. */}
+        {symbol && <span className="ml-1 font-serif text-sm normal-case italic">{symbol}</span>}
+      </dt>
       <dd className="mt-1 text-xl font-semibold tabular-nums" data-testid={testId}>
         {value}
       </dd>

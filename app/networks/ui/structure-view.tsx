@@ -23,11 +23,11 @@ export function StructureView({ structure, name }: { structure: NetworkStructure
     <div className="space-y-8" data-testid="structure">
       <dl className="grid grid-cols-2 gap-3 sm:grid-cols-4 lg:grid-cols-7">
         <Stat label="Species" value={s.species.length} testId="stat-species" />
-        <Stat label="Complexes" value={s.complexes.length} testId="stat-complexes" />
+        <Stat label="Complexes" symbol="n" value={s.complexes.length} testId="stat-complexes" />
         <Stat label="Reactions" value={s.reactions} testId="stat-reactions" />
-        <Stat label="Rank s" value={s.rank} testId="stat-rank" />
-        <Stat label="Linkage classes ℓ" value={s.linkageClasses} testId="stat-linkage" />
-        <Stat label="Deficiency δ" value={s.deficiency} testId="stat-deficiency" />
+        <Stat label="Rank" symbol="s" value={s.rank} testId="stat-rank" />
+        <Stat label="Linkage classes" symbol="ℓ" value={s.linkageClasses} testId="stat-linkage" />
+        <Stat label="Deficiency" symbol="δ" value={s.deficiency} testId="stat-deficiency" />
         <Stat label="Weakly reversible" value={s.weaklyReversible ? "yes" : "no"} testId="stat-weakly-reversible" />
       </dl>
       {s.warnings.length > 0 && (

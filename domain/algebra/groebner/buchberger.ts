@@ -83,7 +83,7 @@ export function buchberger<C>(
     pairs.pop();
     limits.progress({ pairsLeft: pairs.length, basisSize: live.length, degree: pair.lcm[0], reductions: kernel.steps });
     const s = sPolynomialHead(basis[pair.i].poly, pair.lcm, n);
-    const h = kernel.reduce(s, live, (globalThis as any).FULL ?? true, basis[pair.j].poly);
+    const h = kernel.reduce(s, live, true, basis[pair.j].poly);
     if (h.coeffs.length === 0) continue;
     trace?.push({ kind: "pair", i: pair.i, j: pair.j, lm: h.exps.slice(0, n + 1) });
     if (h.exps[0] === 0) return unit();

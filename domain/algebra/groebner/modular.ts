@@ -94,7 +94,7 @@ function replayOverZ(
     limits.checkTime();
     const h = ev.kind === "input"
       ? kernel.reduce(inputs[ev.input], reducers, true)
-      : kernel.reduce(sPolynomialHead(basis[ev.i], lcm(basis[ev.i].exps, 0, basis[ev.j].exps, 0, n), n), reducers, (globalThis as any).FULL ?? true, basis[ev.j]);
+      : kernel.reduce(sPolynomialHead(basis[ev.i], lcm(basis[ev.i].exps, 0, basis[ev.j].exps, 0, n), n), reducers, true, basis[ev.j]);
     if (h.coeffs.length === 0 || !monomialEquals(h.exps, 0, ev.lm, 0, n)) return null;
     if (h.exps[0] === 0) return [{ coeffs: [1n], exps: new Int32Array(n + 1) }]; // 1 is in the ideal, by construction
     for (let k = 0; k < basis.length; k++) if (live[k] && dividesLm(h, basis[k], n)) live[k] = false;

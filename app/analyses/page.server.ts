@@ -1,0 +1,31 @@
+/** Everything the analysis page (and its read-only shared copy) shows, as plain JSON. */
+import { rateSymbols } from "./params";
+import type { AnalysisParams } from "./params";
+import { presentResult } from "./present";
+import { jobJson, listJobs, type JobRecord } from "./repository.server";
+import type { AnalysisResult } from "./result-types";
+import type { AnalysesDb } from "./schema";
+import { networkOf } from "./service.server";
+
+export async function analysisPageData(db: AnalysesDb, job: JobRecord, options: { sharedView: boolean }) {
+  const children = await listJobs(db, job.lab_id, { parentId: job.id });
+  const visible = options.sharedView ? children.filter((c) => c.status === "succeeded") : children;
+  const version = await db.selectFrom("network_versions").select("csv").where("id", "=", job.network_version_id).executeTakeFirstOrThrow();
+  const network = networkOf(version.csv);
+  const params = job.params as unknown as AnalysisParams;
+  const result = job.status === "succeeded" ? (job.result as unknown as AnalysisResult) : null;
+  const childJson = (kind: string) => visible.filter((c) => c.kind === kind).map((c) => jobJson(c, { result: c.status === "succeeded" }));
+  return {
+    job: jobJson(job),
+    params,
+    result,
+    view: result ? presentResult(result, params) : null,
+    rates: rateSymbols(network),
+    species: [...network.species],
+    numeric: params.rateMode === "numeric" && params.initial !== null,
+    relations: childJson("relation"),
+    scans: childJson("scan"),
+    timeCourses: childJson("timecourse"),
+  };
+}
+export type AnalysisPageData = Awaited<ReturnType<typeof analysisPageData>>;

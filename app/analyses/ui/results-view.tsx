@@ -1,0 +1,157 @@
+import type { ResultView } from "~/analyses/present";
+import type { AnalysisResult } from "~/analyses/result-types";
+import { ParametrisationTable } from "./parametrisation-table";
+import { Tex } from "./tex";
+
+function Block({ id, title, children }: { id: string; title: string; children: React.ReactNode }) {
+  return (
+    <section id={id} aria-labelledby={`${id}-title`} className="space-y-3 border-t border-line pt-5">
+      <h2 id={`${id}-title`} className="text-lg font-semibold tracking-tight">
+        {title}
+      </h2>
+      {children}
+    </section>
+  );
+}
+
+/** The assumptions every result below rests on, stated once beside the results. */
+export function Assumptions({ numeric }: { numeric: boolean }) {
+  return (
+    <aside className="rounded-md bg-sunken px-4 py-3 text-sm leading-relaxed text-muted" data-testid="assumptions">
+      <p className="mb-1 text-xs font-semibold uppercase tracking-wide text-faint">Assumptions</p>
+      <ul className="ml-4 list-disc">
+        <li>Mass-action kinetics: each reaction's rate is its rate constant times the product of its reactant concentrations.</li>
+        <li>Only positive steady states: every concentration is strictly positive (solutions with a zero concentration are removed by saturation).</li>
+        {numeric ? (
+          <li>Numeric rate constants and totals as given, read as exact fractions; eigenvalues and concentrations are then floating-point (12 digits).</li>
+        ) : (
+          <li>Symbolic rate constants and totals are generic: results hold except where the listed leading coefficients vanish.</li>
+        )}
+        <li>Stability is judged on the stoichiometric compatibility class (eigenvalues of the Jacobian restricted to the stoichiometric subspace).</li>
+      </ul>
+    </aside>
+  );
+}
+
+export function ResultsView({ view, result }: { view: ResultView; result: AnalysisResult }) {
+  return (
+    <div className="space-y-6" data-testid="results">
+      <Block id="triangular" title="Triangular system (lex Gröbner basis)">
+        <p className="text-sm text-muted">
+          Ring order {result.ordering}. {result.groebnerBasisComplete ? `${result.groebnerBasis.length} polynomials, grouped by leading species.` : "Not finished within the budget (see the notes)."}
+        </p>
+        {view.triangular.map((b, i) => (
+          <div key={i} className="rounded-md border border-line bg-surface px-4 py-2">
+            <p className="text-xs uppercase tracking-wide text-faint">{b.species === null ? "parameters only" : `leading species ${b.species}`}</p>
+            {b.tex.map((t, j) => (
+              <div key={j} data-testid="triangular-polynomial" title={b.text[j]}>
+                <Tex tex={t} display />
+              </div>
+            ))}
+          </div>
+        ))}
+        {result.genericConditions.length > 0 && (
+          <p className="text-sm">
+            Valid for generic parameters; these leading coefficients must not vanish: <span className="font-mono">{result.genericConditions.join("; ")}</span>
+          </p>
+        )}
+      </Block>
+      <Block id="parametrisation" title="Parametrisation of the positive steady states">
+        {view.parametrisation ? (
+          <>
+            <p className="text-sm">
+              Free: <span className="font-mono">{view.parametrisation.free.join(", ") || "(none)"}</span>.{" "}
+              {view.parametrisation.positive ? <b className="text-ok">Positive parametrisation: every coefficient is positive.</b> : "Not every coefficient is positive."}
+              {result.nonVanishing.length > 0 && <> Valid where these do not vanish: <span className="font-mono">{result.nonVanishing.join("; ")}</span>.</>}
+            </p>
+            <ParametrisationTable rows={view.parametrisation.rows} />
+          </>
+        ) : result.rootsNeeded.length > 0 ? (
+          <ul className="text-sm">
+            {result.rootsNeeded.map((r) => (
+              <li key={r.species}>
+                <span className="font-mono">{r.species}</span> needs a root of a degree-{r.degree} polynomial: <span className="font-mono">{r.polynomial} = 0</span>
+              </li>
+            ))}
+          </ul>
+        ) : (
+          <p className="text-sm text-muted">No rational parametrisation was found.</p>
+        )}
+      </Block>
+      <Block id="conservation" title="Conservation laws and totals">
+        {view.conservation.length === 0 ? (
+          <p className="text-sm text-muted">None: the stoichiometric matrix has full row rank.</p>
+        ) : (
+          <ul className="space-y-1 font-mono text-sm" data-testid="conservation">
+            {view.conservation.map((c, i) => (
+              <li key={i}>
+                {c.text} = {c.total ?? `T${i + 1}`}
+              </li>
+            ))}
+          </ul>
+        )}
+      </Block>
+      <Block id="acr" title="Absolute concentration robustness">
+        {view.acr.length === 0 ? (
+          <p className="text-sm text-muted">No species has the same value at every positive steady state for every choice of totals.</p>
+        ) : (
+          <ul data-testid="acr">
+            {view.acr.map((a) => (
+              <li key={a.species}>
+                <Tex tex={a.tex} /> at every positive steady state
+              </li>
+            ))}
+          </ul>
+        )}
+      </Block>
+      {view.steadyStates && (
+        <Block id="steady-states" title={`Positive steady states in this class (${view.steadyStates.length})`}>
+          {result.eliminant && (
+            <p className="text-sm text-muted">
+              From the real roots of <span className="font-mono">{result.eliminant.polynomial}</span> in {result.eliminant.variable}, isolated exactly.
+            </p>
+          )}
+          <div className="overflow-x-auto rounded-card border border-line bg-surface">
+            <table className="w-full text-left text-sm" data-testid="steady-states">
+              <thead className="border-b border-line bg-sunken text-xs uppercase tracking-wide text-muted">
+                <tr>
+                  <th className="px-3 py-2">#</th>
+                  {view.species.map((s) => (
+                    <th key={s} className="px-3 py-2 font-mono normal-case">
+                      {s}
+                    </th>
+                  ))}
+                  <th className="px-3 py-2">Stability</th>
+                  <th className="px-3 py-2">Eigenvalues</th>
+                </tr>
+              </thead>
+              <tbody>
+                {view.steadyStates.map((s) => (
+                  <tr key={s.index} className="border-b border-line last:border-0" data-testid="steady-state-row">
+                    <td className="px-3 py-2 tabular-nums">{s.index}</td>
+                    {view.species.map((sp) => (
+                      <td key={sp} className="px-3 py-2 tabular-nums" data-testid={`conc-${sp}`}>
+                        {s.concentrations[sp]?.toPrecision(12)}
+                      </td>
+                    ))}
+                    <td className={`px-3 py-2 font-medium ${s.verdict === "stable" ? "text-ok" : s.verdict === "unstable" ? "text-danger" : "text-muted"}`}>{s.verdict}</td>
+                    <td className="px-3 py-2 font-mono text-xs">{s.eigenvalues.join(", ") || "(none)"}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+        </Block>
+      )}
+      {result.steadyStateSet === "continuum" && <p className="text-sm">The steady states of this class form a continuum; none are listed.</p>}
+      {result.relations.length > 0 && null}
+      <Block id="notes" title="Notes and warnings">
+        <ul className="ml-5 list-disc space-y-1 text-sm text-muted" data-testid="warnings">
+          {result.warnings.map((w, i) => (
+            <li key={i}>{w}</li>
+          ))}
+        </ul>
+      </Block>
+    </div>
+  );
+}
