@@ -27,6 +27,15 @@ export default [
   route("labs/:labSlug/networks/:networkId/edit", "routes/networks-edit.tsx"),
   route("labs/:labSlug/networks/:networkId/versions", "routes/networks-versions.tsx"),
   route("labs/:labSlug/networks/:networkId/download/:file", "routes/networks-download.ts"),
+  // Analyses (issue 7).
+  route("analyses", "routes/analyses-home.ts"),
+  route("labs/:labSlug/analyses", "routes/analyses.tsx"),
+  route("labs/:labSlug/analyses/compare", "routes/analyses-compare.tsx"),
+  route("labs/:labSlug/analyses/:analysisId", "routes/analysis.tsx"),
+  route("labs/:labSlug/analyses/:analysisId/export/:file", "routes/analysis-export.ts"),
+  route("labs/:labSlug/networks/:networkId/analyse", "routes/analyses-new.tsx"),
+  route("share/:token", "routes/share.tsx"),
+  route("share/:token/export/:file", "routes/share-export.ts"),
   ...prefix("api", [
     route("health", "routes/api/health.ts"),
     // Accounts and labs (issue 5): bearer token or session cookie.
@@ -40,6 +49,13 @@ export default [
     route("labs/:labSlug/networks/:networkId", "routes/api/networks-item.ts"),
     route("labs/:labSlug/networks/:networkId/versions", "routes/api/networks-versions.ts"),
     route("labs/:labSlug/networks/:networkId/versions/:number", "routes/api/networks-version.ts"),
+    // Analyses and scans (issue 7).
+    route("labs/:labSlug/analyses", "routes/api/analyses.ts"),
+    route("labs/:labSlug/analyses/:analysisId", "routes/api/analyses-item.ts"),
+    route("labs/:labSlug/analyses/:analysisId/cancel", "routes/api/analyses-cancel.ts"),
+    route("labs/:labSlug/analyses/:analysisId/scans", "routes/api/scans.ts"),
+    route("labs/:labSlug/scans/:scanId", "routes/api/scans-item.ts"),
+    route("labs/:labSlug/scans/:scanId/cancel", "routes/api/scans-cancel.ts"),
   ]),
   route("*", "routes/not-found.tsx"),
 ] satisfies RouteConfig;

@@ -4,6 +4,7 @@ import { db } from "~/db.server";
 import { runNetworkAction } from "~/networks/actions.server";
 import { networkPageData, requireNetwork } from "~/networks/pages.server";
 import { networkPath } from "~/networks/paths";
+import { analysesPath, newAnalysisPath } from "~/analyses/paths";
 import { NetworkHeader } from "~/networks/ui/network-header";
 import { NetworkSettings } from "~/networks/ui/network-settings";
 import { StructureView } from "~/networks/ui/structure-view";
@@ -42,6 +43,16 @@ export default function NetworkPage({ loaderData, actionData }: Route.ComponentP
   return (
     <div className="space-y-8">
       <NetworkHeader data={d} result={actionData} />
+      <p className="flex flex-wrap gap-4 text-sm">
+        {d.canEdit && (
+          <Link to={newAnalysisPath(d.lab.slug, d.network.id, d.version.number)} className="rounded-md bg-accent px-3 py-1.5 font-medium text-accent-ink hover:bg-accent-strong" data-testid="start-analysis">
+            Start analysis of version {d.version.number}
+          </Link>
+        )}
+        <Link to={analysesPath(d.lab.slug)} className="self-center text-accent-strong hover:underline">
+          Analyses of this lab
+        </Link>
+      </p>
       <VersionList base={base} versions={d.versions} current={d.version.number} latest={d.latestNumber} canEdit={d.canEdit} />
       <nav aria-label="On this page" className="flex flex-wrap gap-x-4 gap-y-1 text-sm">
         {SECTIONS.map(([id, label]) => (

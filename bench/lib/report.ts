@@ -39,6 +39,11 @@ export function wallTable(results: readonly SystemResult[], repeat: number, time
 const megabytes = (t: ToolSummary | undefined): string =>
   t?.status === "ok" && t.maxRssKb !== undefined ? `${formatNumber(t.maxRssKb / 1024)} MB` : "–";
 
+/** No bound from a timeout here: the timeout limits wall time, not the CPU time a killed run had used. */
+function cpuRatio(ours: ToolSummary, reference: ToolSummary, timeout: number): string {
+  return ours.status === "ok" && reference.status === "ok" ? formatRatio(ratioOf(ours, reference, timeout)) : "–";
+}
+
 export function cpuTable(results: readonly SystemResult[], timeout: number): string {
   const cpu = (r: SystemResult, id: ToolId) => cpuView(r.tools[id] ?? NA);
   const rows = results.map((r) => [
@@ -46,8 +51,8 @@ export function cpuTable(results: readonly SystemResult[], timeout: number): str
     formatTiming(cpu(r, "ours"), timeout),
     formatTiming(cpu(r, "sympy"), timeout),
     formatTiming(cpu(r, "singular"), timeout),
-    formatRatio(ratioOf(cpu(r, "ours"), cpu(r, "sympy"), timeout)),
-    formatRatio(ratioOf(cpu(r, "ours"), cpu(r, "singular"), timeout)),
+    cpuRatio(cpu(r, "ours"), cpu(r, "sympy"), timeout),
+    cpuRatio(cpu(r, "ours"), cpu(r, "singular"), timeout),
     megabytes(r.tools.ours),
     megabytes(r.tools.sympy),
     megabytes(r.tools.singular),

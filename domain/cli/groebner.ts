@@ -25,4 +25,4 @@ export function run(args: readonly string[], io: CliIO): number {
   return 0;
 }
 
-export const command: CommandModule = { run, summary: "groebner FILE [--field p]   reduced Gröbner basis, one polynomial per line" };
+export const command: CommandModule = { run, summary: "groebner FILE [--field p] [--timeout SECONDS]   reduced Gröbner basis, one polynomial per line" };

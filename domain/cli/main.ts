@@ -15,8 +15,13 @@ export async function main(argv: readonly string[], io: CliIO = processIO): Prom
   const [name, ...rest] = argv;
   if (name === undefined || name === "--help" || name === "-h" || name === "help") {
     const summaries = await Promise.all(Object.values(commands).map((load) => load().then((m) => m.summary)));
-    io.stderr(`usage: npm run -s cli -- <command> ...\n${summaries.map((s) => `  ${s}`).join("\n")}\n`);
-    return name === undefined ? 2 : 0;
+    const usage = `usage: npm run -s cli -- <command> ...\n${summaries.map((s) => `  ${s}`).join("\n")}\n`;
+    if (name === undefined) {
+      io.stderr(usage);
+      return 2;
+    }
+    io.stdout(usage);
+    return 0;
   }
   const load = commands[name];
   if (!load) {

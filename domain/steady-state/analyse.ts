@@ -144,7 +144,12 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
     else if (!numericRates) warnings.push(`Numeric steady states need a value for every rate constant; missing: ${kin.rateParameters.join(", ")}.`);
     else if (param) {
       try {
-        const numeric = numericSteadyStates(network, withTotals, param, budget);
+        // A pivot of mixed sign might vanish at a positive steady state, which the reduction would
+        // then miss: for the complete list, eliminate only through pivots of one sign.
+        const complete = param.pivots.some((p) => signPattern(p) === "mixed")
+          ? computeParametrisation(kin, odeRows, budget, { definitePivotsOnly: true })
+          : param;
+        const numeric = numericSteadyStates(network, withTotals, complete, budget);
         steadyStates = numeric.states;
         eliminant = numeric.eliminant;
         steadyStateSet = numeric.status === "finite" ? "finite" : "continuum";

@@ -30,6 +30,11 @@ export interface LinearEliminationOptions {
   onStep?: (species: string) => void;
   /** Throws when called if the budget is exhausted. */
   check?: () => void;
+  /**
+   * Use only pivots a whose coefficients have one sign (a ≠ 0 at every positive point), so that no
+   * positive steady state is lost where a pivot vanishes — needed when every state must be found.
+   */
+  definitePivotsOnly?: boolean;
 }
 
 /**
@@ -80,6 +85,7 @@ export function linearElimination(kin: KineticsRing, equations: readonly QPoly[]
         const [b, a] = coefficientsIn(e, x);
         if (isZeroPoly(b) || isZeroPoly(a)) continue;
         const sa = signPattern(a);
+        if (options.definitePivotsOnly && sa === "mixed") continue;
         const sb = signPattern(b);
         const definite = (sa === "positive" && sb === "negative") || (sa === "negative" && sb === "positive");
         const score = [definite ? 0 : 1, x, a.coeffs.length + b.coeffs.length];

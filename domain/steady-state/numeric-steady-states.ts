@@ -9,7 +9,7 @@ import { floatSystem, evaluateFloat } from "./float-eval";
 import { mapToRing } from "./ideal";
 import type { QPoly } from "./kinetics";
 import type { ParametrisationResult } from "./parametrisation";
-import { exactQuotient, normaliseEquation, substituteFraction, variablesOf } from "./poly-tools";
+import { exactQuotient, mayVanishAtPositivePoints, normaliseEquation, substituteFraction, variablesOf } from "./poly-tools";
 import { stoichiometricRows, type SteadyStateSystem } from "./system";
 import { positiveSolutions } from "./zero-dimensional";
 import type { Network } from "../network/index";
@@ -51,12 +51,14 @@ export function numericSteadyStates(network: Network, sys: SteadyStateSystem, pa
   const warnings: string[] = [];
   const unknownIdx = param.unknowns.map((s) => ring.indexOf(s));
   const dens: QPoly[] = [];
-  // Saturating also by the numerators keeps every eliminated species away from 0, so its sign is certain.
+  // Saturating also by numerators and denominators that may vanish keeps every eliminated species
+  // away from 0 and ∞, so its sign is certain (ones of one sign are positive at positive points anyway).
   const nonZero: QPoly[] = [];
   for (const e of param.eliminated) {
     const d = e.expression.den;
     if ([...variablesOf(d)].length > 0 && !dens.some((x) => equals(x, d))) dens.push(d);
-    for (const q of [e.expression.num, d]) if ([...variablesOf(q)].length > 0 && !nonZero.some((x) => equals(x, q))) nonZero.push(q);
+    for (const q of [e.expression.num, d])
+      if ([...variablesOf(q)].length > 0 && mayVanishAtPositivePoints(q) && !nonZero.some((x) => equals(x, q))) nonZero.push(q);
   }
   const isSpecies = (k: number) => k < kin.species.length;
   const reduced: QPoly[] = [...param.remaining];

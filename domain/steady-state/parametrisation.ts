@@ -3,7 +3,7 @@ import { type Budget, isOutOfBudget } from "./budget";
 import { monomialOf, saturate } from "./ideal";
 import type { KineticsRing, QPoly } from "./kinetics";
 import { type EliminatedSpecies, linearElimination } from "./linear-elimination";
-import { degreeIn, variablesOf } from "./poly-tools";
+import { degreeIn, mayVanishAtPositivePoints, variablesOf } from "./poly-tools";
 import { type RationalExpression, composeExpression, isPositiveExpression } from "./rational-expression";
 
 export interface Parametrisation {
@@ -42,11 +42,16 @@ export interface ParametrisationResult {
  * Example: A <-> B (k1, k2) in the order B, A gives free [A] and B = k1*A/k2 (positive); for E + S <-> C -> E + P it reports
  * that no positive steady state exists (dS/dt + dC/dt = −k3·C < 0 once C is eliminated).
  */
-export function computeParametrisation(kin: KineticsRing, odeRows: readonly QPoly[], budget: Budget): ParametrisationResult {
+export function computeParametrisation(
+  kin: KineticsRing,
+  odeRows: readonly QPoly[],
+  budget: Budget,
+  options: { definitePivotsOnly?: boolean } = {},
+): ParametrisationResult {
   const ring = kin.ring;
   const notes: string[] = [];
   budget.progress("linear-elimination", "eliminating species that enter linearly");
-  const first = linearElimination(kin, odeRows, { check: () => budget.check("linear elimination") });
+  const first = linearElimination(kin, odeRows, { check: () => budget.check("linear elimination"), ...options });
   const pivots = first.eliminated.map((e) => e.pivot);
   if (first.eliminated.length > 0)
     notes.push(`Linear elimination (Feliu & Wiuf 2012) solved ${first.eliminated.map((e) => e.species).join(", ")}.`);
@@ -60,7 +65,8 @@ export function computeParametrisation(kin: KineticsRing, odeRows: readonly QPol
     budget.progress("parametrisation", `lex Gröbner basis of the ${remaining.length} remaining equations`);
     const speciesIdx = unknowns.map((s) => ring.indexOf(s));
     let sat = monomialOf(ring, speciesIdx);
-    for (const p of pivots) if ([...variablesOf(p)].some((k) => k < kin.species.length)) sat = mul(sat, p);
+    // Pivots of one sign cannot vanish at positive points: saturating by them would only cost time.
+    for (const p of pivots) if ([...variablesOf(p)].some((k) => k < kin.species.length) && mayVanishAtPositivePoints(p)) sat = mul(sat, p);
     let basis: QPoly[];
     try {
       basis = saturate(remaining, sat, budget.groebner(0.35));
@@ -72,7 +78,7 @@ export function computeParametrisation(kin: KineticsRing, odeRows: readonly QPol
       return { parametrisation: null, eliminated, unknowns, remaining, rootsNeeded, pivots, infeasible: null, complete: false, notes };
     }
     notes.push(`A lex Gröbner basis of the remaining ${remaining.length} equation(s), saturated by the species product and the pivots, has ${basis.length} element(s).`);
-    const second = linearElimination(kin, basis, { check: () => budget.check("linear elimination") });
+    const second = linearElimination(kin, basis, { check: () => budget.check("linear elimination"), ...options });
     pivots.push(...second.eliminated.map((e) => e.pivot));
     for (const later of second.eliminated) {
       const k = ring.indexOf(later.species);

@@ -102,3 +102,12 @@ export function substituteFraction(p: QPoly, k: number, num: QPoly, den: QPoly):
   }
   return { value: acc, power: d };
 }
+
+/**
+ * Whether saturating by p can remove anything at positive points: a monomial, or a polynomial whose
+ * coefficients all have one sign, never vanishes when every variable is positive, so saturating by
+ * it only removes non-positive components and costs time. Example: x*(y + 2*z) needs none; x − y does.
+ */
+export function mayVanishAtPositivePoints(p: QPoly): boolean {
+  return signPattern(p) === "mixed";
+}

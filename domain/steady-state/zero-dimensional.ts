@@ -62,10 +62,11 @@ export function positiveSolutions(polys: readonly QPoly[], options: GroebnerOpti
     // Seidenberg's lemma: adding the square-free part of each variable's eliminant gives the radical
     // (Kreuzer & Robbiano, "Computational Commutative Algebra 1", 2000, Cor. 3.7.16 — recalled from memory),
     // and a radical zero-dimensional ideal is in shape position after a generic linear change.
-    const extra = lexRing.vars.map((v) => {
+    const extra = lexRing.vars.flatMap((v) => {
       const others = lexRing.vars.filter((w) => w !== v);
       const [mu] = others.length > 0 ? eliminate(basis, others, options) : [basis[0]];
-      return fromUnivariate(lexRing, lexRing.indexOf(v), toRationalCoefficients(squareFreePart(univariateOf(mu, lexRing.indexOf(v))!)));
+      const uni = mu ? univariateOf(mu, lexRing.indexOf(v)) : null;
+      return uni ? [fromUnivariate(lexRing, lexRing.indexOf(v), toRationalCoefficients(squareFreePart(uni)))] : [];
     });
     radical = groebnerBasis([...basis, ...extra], options);
     shape = shapeOf(radical, n - 1);

@@ -139,7 +139,7 @@ export function ScanPanel({ jobs, canEdit, rates, species, csvHref, available }:
               <p className="text-sm">
                 {p.parameter?.name} from {p.from} to {p.to}, {p.points} points ({p.spacing})
               </p>
-              <ScanChart scan={j.result as ScanResult} csvHref={csvHref(j.id)} />
+              <ScanChart scan={j.result as unknown as ScanResult} csvHref={csvHref(j.id)} />
             </JobLine>
           );
         })}
@@ -163,7 +163,7 @@ export function TimeCoursePanel({ jobs, canEdit, steadyStates, available }: { jo
       <ul className="space-y-2">
         {jobs.map((j) => (
           <JobLine key={j.id} job={j} canEdit={canEdit}>
-            <TimeCourseChart course={j.result as TimeCourseResult} steadyStates={steadyStates} />
+            <TimeCourseChart course={j.result as unknown as TimeCourseResult} steadyStates={steadyStates} />
           </JobLine>
         ))}
       </ul>

@@ -45,6 +45,7 @@ export function NetworkEditor({
   const [dragging, setDragging] = useState(false);
   const fileInput = useRef<HTMLInputElement>(null);
   const check = useMemo(() => checkGrid(rows), [rows]);
+  const blank = rows.every((r) => GRID_COLUMNS.every((c) => r[c.key].trim() === ""));
   const navigation = useNavigation();
   const saving = navigation.state === "submitting";
   // Server problems refer to the CSV the grid wrote, so they map to rows the same way; after
@@ -188,11 +189,15 @@ export function NetworkEditor({
       <div className="space-y-2">
         <div className="flex items-baseline justify-between gap-4">
           <h2 className="text-lg font-semibold">Reactions</h2>
-          <p className={`text-sm ${check.ok ? "text-ok" : "text-danger"}`} aria-live="polite" data-testid="grid-status">
-            {check.ok ? `Looks valid: ${rows.filter((r) => r.reaction.trim() !== "").length} rows.` : `${check.count} problem${check.count === 1 ? "" : "s"} to fix before saving.`}
+          <p className={`text-sm ${blank ? "text-muted" : check.ok ? "text-ok" : "text-danger"}`} aria-live="polite" data-testid="grid-status">
+            {blank
+              ? "Type a reaction such as E + S <-> C, upload a file, or start from a demo."
+              : check.ok
+                ? `Looks valid: ${rows.filter((r) => r.reaction.trim() !== "").length} rows.`
+                : `${check.count} problem${check.count === 1 ? "" : "s"} to fix before saving.`}
           </p>
         </div>
-        {check.general.length > 0 && (
+        {check.general.length > 0 && !blank && (
           <ul className="rounded-md bg-danger-soft px-4 py-2 text-sm text-danger">
             {check.general.map((p, i) => (
               <li key={i}>{p.message}{p.expected ? ` (expected ${p.expected})` : ""}</li>

@@ -106,6 +106,15 @@ describe("limits: deadline, budget, cancellation, progress", () => {
     const c = code(() => groebnerBasis(F, { signal: ac.signal, onProgress: () => { if (++calls === 20) ac.abort(); } }));
     expect(c).toBe("cancelled");
   });
+  it("limits apply on the exact path over Q too", () => {
+    const Rq = new PolynomialRing(sys.vars, QQ, "grevlex");
+    const Fq = sys.polys.map((s) => Rq.parse(s));
+    expect(code(() => groebnerBasis(Fq, { timeoutMs: 1 }))).toBe("timeout");
+    expect(code(() => groebnerBasis(Fq, { method: "buchberger", maxBasisSize: 5 }))).toBe("budget");
+    const ac = new AbortController();
+    ac.abort();
+    expect(code(() => groebnerBasis(Fq, { signal: ac.signal }))).toBe("cancelled");
+  });
   it("reports progress", () => {
     const seen: Progress[] = [];
     groebnerBasis(F, { onProgress: (p) => seen.push(p) });

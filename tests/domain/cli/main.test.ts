@@ -95,3 +95,24 @@ describe("cli as a whole process (npm run -s cli)", () => {
     expect(bad.stderr).toMatch(/^error: .*line 2, column 3/);
   }, 60_000);
 });
+
+describe("cli usage", () => {
+  it("--help prints the commands on stdout; no command is a usage error", async () => {
+    const help = await cli(["--help"], {});
+    expect(help.code).toBe(0);
+    expect(help.out).toMatch(/groebner FILE/);
+    expect(help.out).toMatch(/divide FILE/);
+    const none = await cli([], {});
+    expect(none.code).toBe(2);
+    expect(none.err).toMatch(/^usage:/);
+  });
+  it("--timeout turns a long computation into a clear error", async () => {
+    const sys = "vars: a, b, c, d, e, f\n" + [
+      "a+b+c+d+e+f", "a*b+b*c+c*d+d*e+e*f+f*a", "a*b*c+b*c*d+c*d*e+d*e*f+e*f*a+f*a*b",
+      "a*b*c*d+b*c*d*e+c*d*e*f+d*e*f*a+e*f*a*b+f*a*b*c", "a*b*c*d*e+b*c*d*e*f+c*d*e*f*a+d*e*f*a*b+e*f*a*b*c+f*a*b*c*d", "a*b*c*d*e*f-1",
+    ].join("\n");
+    const r = await cli(["groebner", "c6", "--timeout", "0.001"], { c6: sys });
+    expect(r.code).toBe(2);
+    expect(r.err).toMatch(/deadline exceeded/);
+  });
+});

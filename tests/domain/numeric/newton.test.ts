@@ -1,11 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { newton } from "@domain/numeric/newton";
-import { multistartPositiveSolutions } from "@domain/numeric/multistart";
 
-const cubic = (x: number[]) => ({
-  f: [(x[0] - 1) * (x[0] - 2) * (x[0] - 3)],
-  jacobian: [[3 * x[0] * x[0] - 12 * x[0] + 11]],
-});
 
 describe("damped Newton", () => {
   it("finds √2 to 1e-14", () => {
@@ -25,13 +20,5 @@ describe("damped Newton", () => {
   it("reports failure on a system without real solutions (x² + 1 = 0)", () => {
     const r = newton((x) => ({ f: [x[0] * x[0] + 1], jacobian: [[2 * x[0]]] }), [0.3]);
     expect(r.converged).toBe(false);
-  });
-});
-
-describe("multistart search", () => {
-  it("finds the three positive roots 1, 2, 3 of (x−1)(x−2)(x−3)", () => {
-    const roots = multistartPositiveSolutions(cubic, { low: [0.1], high: [10], starts: 100 });
-    expect(roots.map((r) => r[0])).toHaveLength(3);
-    roots.forEach((r, i) => expect(r[0]).toBeCloseTo(i + 1, 10));
   });
 });

@@ -1,0 +1,84 @@
+import { Link } from "react-router";
+import type { Route } from "./+types/analyses-compare";
+import { db } from "~/db.server";
+import { analysisPath } from "~/analyses/paths";
+import { findJob, jobJson } from "~/analyses/repository.server";
+import type { AnalysisParams } from "~/analyses/params";
+import { presentResult } from "~/analyses/present";
+import type { AnalysisResult } from "~/analyses/result-types";
+import { asAnalysesDb } from "~/analyses/schema";
+import { Tex } from "~/analyses/ui/tex";
+import { requireLabRole } from "~/permissions/permissions.server";
+
+export const meta: Route.MetaFunction = () => [{ title: "Compare analyses · Stillpoint" }];
+
+/** ?a=<id>&b=<id>: two finished analyses of one network side by side. */
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const access = await requireLabRole(request, params.labSlug, "viewer");
+  const url = new URL(request.url);
+  const adb = asAnalysesDb(db());
+  const [a, b] = await Promise.all([findJob(adb, access.lab.id, url.searchParams.get("a") ?? undefined), findJob(adb, access.lab.id, url.searchParams.get("b") ?? undefined)]);
+  if (!a || !b || a.kind !== "analysis" || b.kind !== "analysis") throw new Response("Not found", { status: 404 });
+  if (a.network_id !== b.network_id) throw new Response("Only two analyses of the same network can be compared.", { status: 400 });
+  const side = (j: typeof a) => {
+    const result = j.status === "succeeded" ? (j.result as unknown as AnalysisResult) : null;
+    return { job: jobJson(j), params: j.params as unknown as AnalysisParams, result, view: result ? presentResult(result, j.params as unknown as AnalysisParams) : null };
+  };
+  return { lab: access.lab, a: side(a), b: side(b) };
+}
+
+type Side = Route.ComponentProps["loaderData"]["a"];
+
+function Column({ s, labSlug }: { s: Side; labSlug: string }) {
+  const r = s.result;
+  return (
+    <div className="min-w-0 space-y-3 rounded-card border border-line bg-surface p-4" data-testid="compare-column">
+      <p className="text-sm">
+        <Link to={analysisPath(labSlug, s.job.id)} className="font-medium text-accent-strong hover:underline">
+          {s.job.createdAt.slice(0, 16).replace("T", " ")}
+        </Link>{" "}
+        · version {s.job.network.version} · engine {s.job.engineVersion}
+      </p>
+      <p className="text-sm text-muted">
+        {s.params.rateMode} rates; order {r?.order.species.join(" > ") ?? s.params.order?.join(" > ") ?? "suggested"}
+        {s.params.initial ? `; initial ${Object.entries(s.params.initial).map(([k, v]) => `${k}=${v}`).join(", ")}` : ""}
+      </p>
+      {!r || !s.view ? (
+        <p className="text-sm text-muted">No result ({s.job.status}).</p>
+      ) : (
+        <>
+          <h3 className="font-semibold">Parametrisation</h3>
+          {s.view.parametrisation ? s.view.parametrisation.rows.map((row) => <div key={row.species}><Tex tex={row.tex} /></div>) : <p className="text-sm text-muted">none</p>}
+          <h3 className="font-semibold">Triangular system</h3>
+          <p className="text-sm">{r.groebnerBasisComplete ? `${r.groebnerBasis.length} polynomials` : "not finished"}</p>
+          <h3 className="font-semibold">ACR</h3>
+          <p className="text-sm">{r.acr.length === 0 ? "none" : r.acr.map((x) => `${x.species} = ${x.value}`).join("; ")}</p>
+          <h3 className="font-semibold">Positive steady states</h3>
+          {r.steadyStates ? (
+            <ul className="text-sm tabular-nums">
+              {r.steadyStates.map((st, i) => (
+                <li key={i}>
+                  {st.verdict}: {Object.entries(st.concentrations).map(([k, v]) => `${k}=${v.toPrecision(6)}`).join(", ")}
+                </li>
+              ))}
+            </ul>
+          ) : (
+            <p className="text-sm text-muted">not computed (no initial concentrations)</p>
+          )}
+        </>
+      )}
+    </div>
+  );
+}
+
+export default function Compare({ loaderData: d }: Route.ComponentProps) {
+  return (
+    <div className="space-y-4">
+      <h1 className="text-2xl font-semibold tracking-tight">Compare two analyses of {d.a.job.network.name}</h1>
+      <div className="grid gap-4 md:grid-cols-2">
+        <Column s={d.a} labSlug={d.lab.slug} />
+        <Column s={d.b} labSlug={d.lab.slug} />
+      </div>
+    </div>
+  );
+}
