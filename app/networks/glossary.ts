@@ -22,6 +22,8 @@ export const GLOSSARY = {
     "A network is weakly reversible when every reaction lies on a cycle of arrows: whenever you can go from one complex to another, you can also come back, maybe by a longer route.",
   deficiencyZero:
     "A theorem that decides, from structure alone, what the steady states look like when the deficiency is 0. The assumptions listed are part of the statement: it says nothing outside them.",
+  deficiencyOne:
+    "A companion theorem for networks whose linkage classes each have deficiency 0 or 1, adding up to the whole network's deficiency, with one terminal strong linkage class in each. Where it applies, no compatibility class holds more than one positive steady state, whatever the rate constants.",
   conservation:
     "A conservation law is a weighted sum of concentrations that no reaction changes, so it keeps its starting value forever. Each total is fixed by the initial concentrations, e.g. the enzyme is either free (E) or bound (C).",
   graph:

@@ -19,6 +19,7 @@ const SECTIONS = [
   ["graph", "Complex graph"],
   ["rank", "Rank and deficiency"],
   ["deficiency-zero", "Deficiency zero theorem"],
+  ["deficiency-one", "Deficiency one theorem"],
   ["conservation", "Conservation laws"],
   ["odes", "ODEs"],
 ] as const;

@@ -1,6 +1,6 @@
 /**
  * Small dense float matrices as plain `number[][]` (row-major). Floats are for numerics only
- * (eigenvalues, Newton, time courses); exact algebra lives in domain/algebra.
+ * (eigenvalues, Newton, trajectories); exact algebra lives in domain/algebra.
  */
 export type Matrix = number[][];
 export type Vector = number[];

@@ -16,7 +16,7 @@ export interface IntegrateOptions {
   onStep?: (t: number, y: Vector) => boolean | void;
 }
 
-export interface TimeCourse {
+export interface Trajectory {
   t: number[];
   y: Vector[];
   /** False when maxSteps was hit or the step size underflowed before t1. */
@@ -24,14 +24,14 @@ export interface TimeCourse {
 }
 
 /**
- * Stiff time courses with the linearly implicit Rosenbrock pair of order 2(3) behind MATLAB's ode23s
+ * Stiff trajectories with the linearly implicit Rosenbrock pair of order 2(3) behind MATLAB's ode23s
  * (Shampine & Reichelt, "The MATLAB ODE Suite", SIAM J. Sci. Comput. 18, 1997, §3): L-stable,
  * one Jacobian and one matrix factorisation per step, error estimate from the third-order companion,
  * step-size control with the usual safety factor 0.8 and growth limited to 5× (common practice).
  * Example: integrateStiff(linearProblem([[-1, 0], [0, -1e4]]), [1, 1], 0, 5) follows e^(−t) in a few hundred
  * steps, where an explicit method would need about 10⁵ (step size bounded by 2/10⁴).
  */
-export function integrateStiff(problem: OdeProblem, y0: Vector, t0: number, t1: number, options: IntegrateOptions = {}): TimeCourse {
+export function integrateStiff(problem: OdeProblem, y0: Vector, t0: number, t1: number, options: IntegrateOptions = {}): Trajectory {
   const rtol = options.rtol ?? 1e-6;
   const atol = options.atol ?? 1e-9;
   const maxSteps = options.maxSteps ?? 100_000;

@@ -56,9 +56,10 @@ describe.skipIf(!hasApp)("analyses in headless chromium", () => {
     await page.waitForURL(/\/analyse/);
     await expect.poll(() => page.getByTestId("order-item").count()).toBe(6);
     // Reorder with the buttons: move the second species up.
-    const second = await page.getByTestId("order-item").nth(1).innerText();
-    await page.getByRole("button", { name: /^Move .* up$/ }).nth(0).click();
-    expect(await page.getByTestId("order-item").nth(0).innerText()).toBe(second);
+    const nameAt = async (i: number) => (await page.getByTestId("order-item").nth(i).innerText()).split("\n")[1];
+    const second = await nameAt(1);
+    await page.getByRole("button", { name: /^Move .* up$/ }).nth(1).click();
+    expect(await nameAt(0)).toBe(second);
     await page.getByRole("button", { name: "Back to the suggested order" }).click();
     await page.getByLabel("Initial concentration of S0").fill("1");
     await page.getByLabel("Initial concentration of K").fill("1/10");

@@ -1,7 +1,7 @@
 import { mkdirSync } from "node:fs";
 import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { type E2EBrowser, hasApp, openBrowser } from "./support/browser";
+import { type E2EBrowser, baseUrl, hasApp, openBrowser } from "./support/browser";
 import { signInWithCode } from "./accounts-helpers";
 
 /**
@@ -139,7 +139,11 @@ describe.skipIf(!hasApp)("networks in headless chromium", () => {
   });
 
   it("opens the complex graph drawing", async () => {
-    const { page } = await editor.page(networkPath);
+    const { page, requests } = await editor.page(networkPath);
+    // KaTeX's fonts come from our own server (bundled from node_modules), never a CDN.
+    expect(requests.filter((u) => !u.startsWith(baseUrl))).toEqual([]);
+    expect(requests.some((u) => /KaTeX_Main-Regular.*\.woff2$/.test(u))).toBe(true);
+    expect(await page.evaluate(() => document.fonts.check("16px KaTeX_Main"))).toBe(true);
     const graph = page.getByTestId("complex-graph");
     await graph.scrollIntoViewIfNeeded();
     // Version 2: complexes T + L, TL, T + Li, Li, 0 and L; one or more linkage classes, each framed.

@@ -1,4 +1,4 @@
-import type { NetworkStructure } from "@domain/network/index";
+import type { NetworkStructure, TheoremVerdict } from "@domain/network/index";
 import { lawsAsEquations } from "../conservation-text";
 import { GLOSSARY } from "../glossary";
 import { layoutComplexGraph } from "../graph-layout";
@@ -180,30 +180,11 @@ export function StructureView({ structure, name }: { structure: NetworkStructure
       </Section>
 
       <Section id="deficiency-zero" title="Deficiency zero theorem" help={GLOSSARY.deficiencyZero}>
-        <div className={`rounded-md px-4 py-3 text-sm ${dz.applies ? "bg-ok-soft" : "bg-sunken"}`} data-testid="deficiency-zero">
-          <p className="font-medium">{dz.applies ? "Applies." : "Does not decide this network."} {dz.reason}</p>
-          {dz.conclusions.length > 0 && (
-            <>
-              <p className="mt-2 font-medium">Conclusions</p>
-              <ul className="list-disc pl-5">
-                {dz.conclusions.map((c) => (
-                  <li key={c}>{c}</li>
-                ))}
-              </ul>
-            </>
-          )}
-          {dz.assumptions.length > 0 && (
-            <>
-              <p className="mt-2 font-medium">Under these assumptions</p>
-              <ul className="list-disc pl-5">
-                {dz.assumptions.map((a) => (
-                  <li key={a}>{a}</li>
-                ))}
-              </ul>
-            </>
-          )}
-          <p className="mt-2 text-xs text-muted">Sources: {dz.sources.join("; ")}.</p>
-        </div>
+        <VerdictView verdict={dz} testId="deficiency-zero" />
+      </Section>
+
+      <Section id="deficiency-one" title="Deficiency one theorem" help={GLOSSARY.deficiencyOne}>
+        <VerdictView verdict={s.deficiencyOneTheorem} testId="deficiency-one" />
       </Section>
 
       <Section id="conservation" title="Conservation laws" help={GLOSSARY.conservation}>
@@ -228,6 +209,38 @@ export function StructureView({ structure, name }: { structure: NetworkStructure
       <Section id="odes" title="Mass-action ODEs" help={GLOSSARY.odes}>
         <OdesView odes={odes} />
       </Section>
+    </div>
+  );
+}
+
+/** A theorem's verdict: whether it applies and why, its conclusions, its assumptions, its sources. */
+function VerdictView({ verdict, testId }: { verdict: TheoremVerdict; testId: string }) {
+  return (
+    <div className={`rounded-md px-4 py-3 text-sm ${verdict.applies ? "bg-ok-soft" : "bg-sunken"}`} data-testid={testId}>
+      <p className="font-medium">
+        {verdict.applies ? "Applies." : "Does not decide this network."} {verdict.reason}
+      </p>
+      {verdict.conclusions.length > 0 && (
+        <>
+          <p className="mt-2 font-medium">Conclusions</p>
+          <ul className="list-disc pl-5">
+            {verdict.conclusions.map((c) => (
+              <li key={c}>{c}</li>
+            ))}
+          </ul>
+        </>
+      )}
+      {verdict.assumptions.length > 0 && (
+        <>
+          <p className="mt-2 font-medium">Under these assumptions</p>
+          <ul className="list-disc pl-5">
+            {verdict.assumptions.map((a) => (
+              <li key={a}>{a}</li>
+            ))}
+          </ul>
+        </>
+      )}
+      <p className="mt-2 text-xs text-muted">Sources: {verdict.sources.join("; ")}.</p>
     </div>
   );
 }
