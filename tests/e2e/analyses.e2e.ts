@@ -61,9 +61,9 @@ describe.skipIf(!hasApp)("analyses in headless chromium", () => {
     await page.getByRole("button", { name: /^Move .* up$/ }).nth(1).click();
     expect(await nameAt(0)).toBe(second);
     await page.getByRole("button", { name: "Back to the suggested order" }).click();
-    await page.getByLabel("Initial concentration of S0").fill("1");
-    await page.getByLabel("Initial concentration of K").fill("1/10");
-    await page.getByLabel("Initial concentration of F").fill("1/10");
+    await page.getByLabel("Initial concentration of S0", { exact: true }).fill("1");
+    await page.getByLabel("Initial concentration of K", { exact: true }).fill("1/10");
+    await page.getByLabel("Initial concentration of F", { exact: true }).fill("1/10");
     await shot(page, "01-new-analysis");
     await page.getByRole("button", { name: "Start analysis" }).click();
     await page.waitForURL(/\/analyses\/[0-9a-f-]{36}$/);

@@ -96,6 +96,9 @@ describe.skipIf(!hasApp)("networks in headless chromium", () => {
     await page.screenshot({ path: `${SHOTS}/03b-network-page-top.png` });
     await page.locator("#odes").screenshot({ path: `${SHOTS}/03c-odes.png` });
     await page.locator("#stoichiometric-matrix").screenshot({ path: `${SHOTS}/03d-matrix.png` });
+    await page.locator("#deficiency-zero").screenshot({ path: `${SHOTS}/03e-deficiency-zero.png` });
+    await page.locator("#conservation").screenshot({ path: `${SHOTS}/03f-conservation.png` });
+    expect(await page.getByTestId("deficiency-zero").innerText()).toMatch(/no positive steady state[\s\S]*Every rate constant is positive/);
   });
 
   it("uploads a second version and shows what changed", async () => {
