@@ -1,13 +1,12 @@
 /**
  * Polynomials and rational expressions in the CLI's syntax (`k1*A^2 - 3/2*B`) as LaTeX, through
- * mathjs' parser (server side only). Species and rate names keep their spelling; a trailing number
- * becomes a subscript (k12 → k_{12}).
+ * mathjs' parser (server side only). Species and rate names keep their exact spelling
+ * (k12 stays k12: a subscript would make S0 and S0K look unrelated).
  */
 import { parse, type MathNode } from "mathjs";
 
 export function nameTex(name: string): string {
-  const m = /^([A-Za-z]+)(\d+)$/.exec(name);
-  return m ? `\\mathit{${m[1]}}_{${m[2]}}` : `\\mathit{${name.replace(/_/g, "\\_")}}`;
+  return `\\mathit{${name.replace(/_/g, "\\_")}}`;
 }
 
 const handler = (node: MathNode) => (node.type === "SymbolNode" ? nameTex((node as unknown as { name: string }).name) : undefined);

@@ -14,9 +14,11 @@ export async function analysisPageData(db: AnalysesDb, job: JobRecord, options: 
   const network = networkOf(version.csv);
   const params = job.params as unknown as AnalysisParams;
   const result = job.status === "succeeded" ? (job.result as unknown as AnalysisResult) : null;
-  const childJson = (kind: string) => visible.filter((c) => c.kind === kind).map((c) => jobJson(c, { result: c.status === "succeeded" }));
+  // A share link shows no member names or e-mail to people outside the lab.
+  const redact = <T extends { startedBy: string | null }>(j: T): T => (options.sharedView ? { ...j, startedBy: null } : j);
+  const childJson = (kind: string) => visible.filter((c) => c.kind === kind).map((c) => redact(jobJson(c, { result: c.status === "succeeded" })));
   return {
-    job: jobJson(job),
+    job: redact(jobJson(job)),
     params,
     result,
     view: result ? presentResult(result, params) : null,

@@ -39,6 +39,8 @@ export interface RelationParams {
 
 export interface TimeCourseParams {
   endTime: number;
+  /** Other initial concentrations than the analysis' (null: the same). */
+  initial: Record<string, string> | null;
   timeLimitSeconds: number;
 }
 
@@ -189,12 +191,20 @@ export function parseRelationParams(input: Record<string, unknown>, limits: Limi
   return problems.length > 0 ? { ok: false, problems } : { ok: true, value: { expression, timeLimitSeconds } };
 }
 
-export function parseTimeCourseParams(input: Record<string, unknown>, limits: Limits): Parsed<TimeCourseParams> {
+export function parseTimeCourseParams(input: Record<string, unknown>, network: Network, limits: Limits): Parsed<TimeCourseParams> {
   const problems: Problems = [];
   const endTime = input.endTime === undefined || input.endTime === "" ? 50 : Number(input.endTime);
   if (!Number.isFinite(endTime) || endTime <= 0 || endTime > 1e9) problems.push({ field: "endTime", message: "expected a positive end time" });
+  let initial: Record<string, string> | null = null;
+  if (input.initial !== undefined && input.initial !== null && input.initial !== "") {
+    initial = record(input.initial);
+    for (const [k, v] of Object.entries(initial)) {
+      if (!network.species.includes(k)) problems.push({ field: `initial.${k}`, message: `'${k}' is not a species of this network` });
+      else if (!nonNegative(v)) problems.push({ field: `initial.${k}`, message: `expected a non-negative decimal or fraction, got '${v}'` });
+    }
+  }
   const timeLimitSeconds = timeLimit(input.timeLimitSeconds ?? 30, limits, problems);
-  return problems.length > 0 ? { ok: false, problems } : { ok: true, value: { endTime, timeLimitSeconds } };
+  return problems.length > 0 ? { ok: false, problems } : { ok: true, value: { endTime, initial, timeLimitSeconds } };
 }
 
 /** Scan grid: `points` values from `from` to `to`, evenly spaced or evenly spaced in log. */

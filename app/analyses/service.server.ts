@@ -57,7 +57,7 @@ export async function startFollowUp(db: AnalysesDb, access: LabAccess, parent: J
       ? parseScanParams(input, network, parentParams, limits)
       : kind === "relation"
         ? parseRelationParams(input, limits)
-        : parseTimeCourseParams(input, limits);
+        : parseTimeCourseParams(input, network, limits);
   if (!parsed.ok) return parsed;
   if (kind === "timecourse" && (parentParams.rateMode !== "numeric" || !parentParams.initial))
     return { ok: false, problems: [{ field: "endTime", message: "a time course needs an analysis with numeric rate constants and initial concentrations" }] };

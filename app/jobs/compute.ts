@@ -66,7 +66,7 @@ export function computeJob(payload: JobPayload, options: ComputeOptions): Record
       return computeScan(payload, options);
     case "timecourse": {
       const network = networkFor(payload.csv, payload.parent);
-      return simulateTimeCourse(network, payload.parent.initial ?? {}, payload.params.endTime, options);
+      return simulateTimeCourse(network, payload.params.initial ?? payload.parent.initial ?? {}, payload.params.endTime, options);
     }
   }
 }

@@ -68,7 +68,7 @@ describe.skipIf(!hasApp)("analyses in headless chromium", () => {
     await page.getByRole("button", { name: "Start analysis" }).click();
     await page.waitForURL(/\/analyses\/[0-9a-f-]{36}$/);
     analysisUrl = new URL(page.url()).pathname;
-    await page.getByText("succeeded", { exact: true }).first().waitFor({ timeout: 90_000 });
+    await expect.poll(() => page.getByTestId("status").first().innerText(), { timeout: 90_000, interval: 500 }).toBe("succeeded");
     await page.getByTestId("steady-states").waitFor();
     await shot(page, "02-finished");
 
@@ -113,6 +113,13 @@ describe.skipIf(!hasApp)("analyses in headless chromium", () => {
     expect(await chart.getByRole("link", { name: "Plot data (CSV)" }).getAttribute("href")).toMatch(/\/export\/scan-[0-9a-f-]{36}\.csv$/);
     await chart.scrollIntoViewIfNeeded();
     await shot(page, "04-scan");
+    // Time course from the same initial concentrations, with the steady state overlaid.
+    await page.getByTestId("timecourse-form").getByRole("button", { name: "Simulate" }).click();
+    const course = page.getByTestId("time-course-chart");
+    await course.waitFor({ timeout: 60_000 });
+    await expect.poll(() => course.locator("path.recharts-curve").count()).toBe(6);
+    await course.scrollIntoViewIfNeeded();
+    await shot(page, "04b-time-course");
   }, 120_000);
 
   it("runs relation tests with exact verdicts", async () => {
@@ -137,6 +144,8 @@ describe.skipIf(!hasApp)("analyses in headless chromium", () => {
     await signInWithCode(signIn, "owner@halvorsen.test");
     await signIn.close();
     const { page } = await owner.page(analysisUrl);
+    const starter = /Started by (.+?) on /.exec(await page.locator("header").last().innerText())?.[1];
+    expect(starter).toBeTruthy();
     await page.getByRole("button", { name: "Create read-only link" }).click();
     const link = page.getByTestId("share-url");
     await link.waitFor();
@@ -148,6 +157,8 @@ describe.skipIf(!hasApp)("analyses in headless chromium", () => {
     expect(await shared.getByTestId("steady-state-row").count()).toBe(1);
     expect(await shared.getByTestId("relation-form").count()).toBe(0);
     expect(await shared.getByTestId("scan-chart").count()).toBe(1);
+    // No member names leave the lab through a share link.
+    expect(await shared.locator("main").innerText()).not.toContain(starter!);
     await shot(shared, "06-shared-signed-out");
     // The lab's own page stays closed to the signed-out browser.
     const { page: closed } = await stranger.page(analysisUrl);

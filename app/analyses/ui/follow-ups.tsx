@@ -16,7 +16,8 @@ function JobLine({ job, canEdit, children }: { job: Child; canEdit: boolean; chi
     <li className="space-y-2 rounded-md border border-line bg-surface px-4 py-3" data-testid={`${job.kind}-job`}>
       <div className="flex flex-wrap items-center gap-3 text-sm">
         <StatusBadge status={job.status} />
-        <span className="text-muted">{new Date(job.createdAt).toISOString().slice(0, 16).replace("T", " ")} · {job.startedBy ?? "former member"}</span>
+        <span className="text-muted">{new Date(job.createdAt).toISOString().slice(0, 16).replace("T", " ")}
+          {job.startedBy ? ` · ${job.startedBy}` : ""}</span>
         {isUnfinished(job.status) && <span className="text-muted">{String((job.progress as { message?: string }).message ?? "")}</span>}
         {isUnfinished(job.status) && canEdit && (
           <fetcher.Form method="post" className="ml-auto">
@@ -157,12 +158,20 @@ export function TimeCoursePanel({ jobs, canEdit, steadyStates, available }: { jo
             <span className="block">End time</span>
             <input name="endTime" className={`${field} w-28`} defaultValue="50" />
           </label>
+          <label className="flex-1 space-y-0.5 text-sm">
+            <span className="block">Initial concentrations (empty: the analysis' own)</span>
+            <input name="initial" className={`${field} w-full font-mono`} placeholder="e.g. X=2.5" />
+          </label>
         </StartForm>
       )}
       {!available && <p className="text-sm text-muted">A time course needs numeric rate constants and initial concentrations.</p>}
       <ul className="space-y-2">
         {jobs.map((j) => (
           <JobLine key={j.id} job={j} canEdit={canEdit}>
+            <p className="text-sm">
+              Until t = {(j.params as { endTime?: number }).endTime}, from{" "}
+              <span className="font-mono">{Object.entries((j.params as { initial?: Record<string, string> | null }).initial ?? {}).map(([k, v]) => `${k}=${v}`).join(", ") || "the analysis' initial concentrations"}</span>
+            </p>
             <TimeCourseChart course={j.result as unknown as TimeCourseResult} steadyStates={steadyStates} />
           </JobLine>
         ))}

@@ -62,7 +62,7 @@ export function ScanChart({ scan, csvHref }: { scan: ScanResult; csvHref: string
         <LineChart width={760} height={140} data={chart.counts.map((c) => ({ x: c.value, count: c.count }))} margin={{ top: 5, right: 20, bottom: 20, left: 10 }}>
           <CartesianGrid stroke="#eeede6" />
           {xAxis}
-          <YAxis allowDecimals={false} label={{ value: "# positive", angle: -90, position: "insideLeft" }} domain={[0, "dataMax"]} />
+          <YAxis allowDecimals={false} label={{ value: "count", angle: -90, position: "insideLeft" }} domain={[0, "dataMax"]} />
           <Line dataKey="count" type="stepAfter" stroke={COLOURS[2]} strokeWidth={2} dot={{ r: 2 }} isAnimationActive={false} />
         </LineChart>
       </div>

@@ -30,12 +30,12 @@ export function TimeCourseChart({ course, steadyStates }: { course: TimeCourseRe
           ))}
           {steadyStates.flatMap((st, k) =>
             course.species.map((s, j) => (
-              <ReferenceLine key={`${k}-${s}`} y={st.concentrations[s]} stroke={COLOURS[j % COLOURS.length]} strokeDasharray={st.verdict === "stable" ? "2 3" : "8 4"} strokeOpacity={0.7} />
+              <ReferenceLine key={`${k}-${s}`} y={st.concentrations[s]} stroke={COLOURS[j % COLOURS.length]} strokeDasharray={st.verdict === "stable" ? "2 3" : "8 4"} strokeOpacity={0.7} ifOverflow="extendDomain" />
             )),
           )}
         </LineChart>
       </div>
-      <p className="text-xs text-muted">Dotted lines: stable steady states of this class; long dashes: unstable ones (from the analysis above).</p>
+      <p className="text-xs text-muted">Dotted lines: stable steady states of the analysis' class; long dashes: unstable ones. A time course from other initial concentrations may lie in another class (other totals).</p>
     </div>
   );
 }

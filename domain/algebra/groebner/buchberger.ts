@@ -5,6 +5,7 @@ import type { BasisEntry, CriticalPair } from "./pairs";
 import { updatePairs } from "./pairs";
 import type { EPoly, Reducer } from "./reduce";
 import { ReductionKernel, toReducer } from "./reduce";
+import type { Kernel } from "./reduce";
 
 export type SelectionStrategy = "sugar" | "normal";
 
@@ -142,7 +143,7 @@ export function reduceBasis<C>(
   K: EngineCoefficients<C>,
   n: number,
   cmp: MonomialComparator,
-  kernel: ReductionKernel<C> = new ReductionKernel(K, n, cmp),
+  kernel: Kernel<C> = new ReductionKernel(K, n, cmp),
 ): EPoly<C>[] {
   let minimal = polys.filter((p) => p.coeffs.length > 0);
   minimal = minimal.filter((p, i) =>

@@ -23,13 +23,19 @@ export function maskOf(e: Exponents, off: number, n: number): number {
 
 export const toReducer = <C>(poly: EPoly<C>, n: number): Reducer<C> => ({ poly, mask: maskOf(poly.exps, 0, n) });
 
+/** What the algorithms need from a reduction kernel. */
+export interface Kernel<C> {
+  steps: number;
+  reduce(f: EPoly<C>, reducers: readonly Reducer<C>[], full: boolean, forced?: EPoly<C> | null): EPoly<C>;
+}
+
 /**
  * Reduction of a polynomial by a set of reducers (Cox, Little, O'Shea, ch. 2 §3; Becker and
  * Weispfenning, "Gröbner Bases", 1993, §5.1 "reduction"). The working polynomial lives in two
  * reusable scratch buffers; each step merges the tail of p with −b·m·g into the other buffer.
  * `full` reduces every term (normal form); otherwise only the head (top reduction).
  */
-export class ReductionKernel<C> {
+export class ReductionKernel<C> implements Kernel<C> {
   private curE: Int32Array = new Int32Array(1024);
   private nxtE: Int32Array = new Int32Array(1024);
   private outE: Int32Array = new Int32Array(1024);

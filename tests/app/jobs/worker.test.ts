@@ -55,6 +55,22 @@ describe.skipIf(!hasTestDatabase)("background worker", () => {
     expect((done.result as { steadyStates: { concentrations: { X: number } }[] }).steadyStates.map((s) => s.concentrations.X)).toEqual([1, 2, 3]);
   }, 90_000);
 
+  it("e-mails the starter who asked for it when the job ends", async () => {
+    const { captureMail } = await import("~/mail/mailer.server");
+    const mail = captureMail();
+    try {
+      const r = await makeJob(t.db, { kind: "analysis", labId: team.lab.id, networkVersionId: nets.cubic, params: analysisParams(), startedBy: team.owner.id, timeLimitSeconds: 30, notify: true });
+      await enqueue(t.url, r.id, 30);
+      expect((await finished(r.id, 30_000)).status).toBe("succeeded");
+      await waitFor(async () => mail.outbox.length > 0, 5000, "the e-mail");
+      expect(mail.outbox[0]!.to).toBe("owner@alpha.test");
+      expect(mail.outbox[0]!.subject).toBe("Stillpoint: Analysis of cubic (version 1) has finished");
+      expect(mail.outbox[0]!.text).toContain(`/labs/alpha/analyses/${r.id}`);
+    } finally {
+      mail.restore();
+    }
+  }, 40_000);
+
   it("cancels a running job: the child process is killed and the row says so", async () => {
     const id = await job(nets.twoSite, analysisParams({ rateMode: "symbolic" }), 60);
     await waitFor(async () => (await row(id)).status === "running", 20_000, "running");

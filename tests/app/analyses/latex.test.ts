@@ -1,0 +1,25 @@
+import { describe, expect, it } from "vitest";
+import { degreeIn, namesIn, toTex } from "~/analyses/latex";
+import katex from "katex";
+
+describe("formulas as LaTeX", () => {
+  it("typesets polynomials and quotients in the CLI's syntax", () => {
+    expect(toTex("X^3 - 6*X^2 + 11*X - 6")).toBe("{\\mathit{X}}^{3}-6\\,{\\mathit{X}}^{2}+11\\,\\mathit{X}-6");
+    expect(toTex("S0*E*k1/(km1 + k2)")).toMatch(/^\\frac\{/);
+    // E is a species here, not Euler's number.
+    expect(toTex("E")).toBe("\\mathit{E}");
+  });
+
+  it("produces LaTeX that KaTeX accepts", () => {
+    for (const e of ["(lm3 + l4)*S0*E^2*k1/((km3 + k4)*F*l3)", "-3/2*A*B + k_1*E", "2/5*S0*K"]) {
+      expect(() => katex.renderToString(toTex(e), { throwOnError: true })).not.toThrow();
+    }
+  });
+
+  it("lists names and the degree in the free species", () => {
+    expect(namesIn("k1*A/(k2 + A)")).toEqual(["k1", "A", "k2"]);
+    expect(degreeIn("S0*E^2*k1/(F*l3)", ["S0", "E", "F"])).toBe(3);
+    expect(degreeIn("(lm3 + l4)*S0*E*k1*k2/((km1 + k2)*F^2*l3*l4)", ["S0", "E", "F"])).toBe(2);
+    expect(degreeIn("4/3*S0*K/F", ["S0", "K", "F"])).toBe(2);
+  });
+});
