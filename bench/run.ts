@@ -14,7 +14,9 @@ import { cpuTable, wallTable } from "./lib/report";
 import { formatSystemFile, parseSystemFile, type SystemFile } from "./lib/system-file";
 import { selectSystems, standardSystems, type BenchSystem } from "./lib/systems";
 import { formatTiming } from "./lib/table";
-import { oursTool, singularTool, sympyTool } from "./lib/tools";
+import { oursStart, oursTool, singularTool, sympyTool } from "./lib/tools";
+import { measureAnalyseTarget, targetTable } from "./lib/analyse-target";
+import { phosphorylationTwoSiteSymbolicNetwork } from "./lib/systems";
 
 const root = join(dirname(fileURLToPath(import.meta.url)), "..");
 
@@ -32,6 +34,7 @@ async function main(): Promise<number> {
     console.log(USAGE);
     return 0;
   }
+  if (o.analyse) return analyseTarget(o);
   const tools = [oursTool(root, o.launcher), sympyTool(root), singularTool(root)].filter((t) => o.tools.includes(t.id));
   const systems = selectSystems(standardSystems(), o.only, o.quick);
   const cores = cpus().length;
@@ -44,7 +47,8 @@ async function main(): Promise<number> {
   const scratch = mkdtempSync(join(tmpdir(), "stillpoint-bench-"));
   const results: SystemResult[] = [];
   try {
-    // One untimed run per program first, so tsx's transform cache and Python's bytecode are warm.
+    // One untimed run per program first, so our CLI's bundle is built (scripts/cli.mjs), tsx's
+    // transform cache and Python's bytecode are warm before any timing.
     const warm = standardSystems()[0];
     for (const t of tools.filter((t) => !t.unavailable)) {
       const inv = t.invocation(`bench/systems/${warm.name}.txt`, readSystem(warm), scratch, o.prime);
@@ -84,6 +88,31 @@ async function main(): Promise<number> {
   writeFileSync(join(resultsDir, "latest.json"), JSON.stringify(json, null, 2) + "\n");
   console.log(`\nwritten: bench/results/latest.json (${results.length} systems)`);
   return disagreements.length > 0 ? 1 : 0;
+}
+
+/** `--analyse`: the issue-4 target, parametrisation (ours) against brute force (Singular). */
+async function analyseTarget(o: ReturnType<typeof parseBenchOptions>): Promise<number> {
+  const network = phosphorylationTwoSiteSymbolicNetwork();
+  const system = readSystem(standardSystems().find((s) => s.name === network.name)!);
+  const singular = singularTool(root);
+  const ours = oursTool(root, o.launcher);
+  console.log(`issue-4 target: ${network.name} (${network.reactions.length} reactions, ${network.rates.length} symbolic rate constants); timeout ${o.timeout} s, repeat ${o.repeat}`);
+  console.log(`  ours: ${ours.unavailable ?? ours.version}\n  Singular: ${singular.unavailable ?? singular.version}`);
+  console.log(`load average (1 min) at start: ${loadavg()[0].toFixed(2)}\n`);
+  const scratch = mkdtempSync(join(tmpdir(), "stillpoint-bench-"));
+  try {
+    const rows = await measureAnalyseTarget(
+      network, system,
+      o.tools.includes("ours") && !ours.unavailable ? oursStart(root, o.launcher) : undefined,
+      o.tools.includes("singular") ? singular : { ...singular, unavailable: "not selected" },
+      o.repeat, o.timeout, root, scratch,
+    );
+    console.log(`Whole process, wall clock and CPU (user + system) seconds:\n${targetTable(rows, o.timeout)}`);
+    console.log(`load average (1 min) at end: ${loadavg()[0].toFixed(2)}`);
+    return rows.some((r) => r.program === "ours" && !r.ok) ? 1 : 0;
+  } finally {
+    rmSync(scratch, { recursive: true, force: true });
+  }
 }
 
 main().then(

@@ -61,7 +61,7 @@ export function presentResult(r: AnalysisResult, params: Pick<AnalysisParams, "i
           rows: Object.entries(r.parametrisation.expressions).map(([species, expression]) => ({
             species,
             expression,
-            tex: `${nameOnly(species)} = ${toTex(expression)}`,
+            tex: `${toTex(species)} = ${toTex(expression)}`,
             dependsOn: namesIn(expression),
             degree: degreeIn(expression, free),
             positive: !expression.includes("-"),
@@ -69,10 +69,8 @@ export function presentResult(r: AnalysisResult, params: Pick<AnalysisParams, "i
         }
       : null,
     conservation: r.conservationLaws.map((law) => ({ text: lawText(law), total: params.initial ? totalOf(law, params.initial) : null })),
-    acr: r.acr.map((a) => ({ ...a, tex: `${nameOnly(a.species)} = ${toTex(a.value)}` })),
+    acr: r.acr.map((a) => ({ ...a, tex: `${toTex(a.species)} = ${toTex(a.value)}` })),
     steadyStates:
       r.steadyStates?.map((s, i) => ({ index: i + 1, concentrations: s.concentrations, verdict: s.verdict, eigenvalues: s.eigenvalues.map(formatEigenvalue) })) ?? null,
   };
 }
-
-const nameOnly = (s: string) => toTex(s);

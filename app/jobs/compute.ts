@@ -6,7 +6,8 @@
 import { parseRational, type Rational } from "@domain/algebra/rational";
 import { toJson } from "@domain/cli/analyse";
 import { parseNetworkCsv, type Network } from "@domain/network/index";
-import { analyseNetwork, defaultOrder, type AnalysisProgress } from "@domain/steady-state/index";
+import { analyseNetwork, type AnalysisProgress } from "@domain/steady-state/index";
+import { suggestedOrder } from "~/analyses/suggested-order";
 import type { AnalysisParams, RelationParams, ScanParams, TimeCourseParams } from "~/analyses/params";
 import { decimalText, effectiveOrder, scanGrid } from "~/analyses/params";
 import { simulateTimeCourse } from "./time-course";
@@ -42,7 +43,7 @@ export function initialMap(initial: Record<string, string> | null): Map<string, 
 
 function analysisOptions(network: Network, params: AnalysisParams, options: ComputeOptions) {
   return {
-    order: effectiveOrder(params, defaultOrder(network).order),
+    order: effectiveOrder(params, suggestedOrder(network).order),
     timeoutMs: options.engineTimeoutMs,
     maxBasisSize: params.maxBasisSize,
     maxTerms: params.maxTerms,

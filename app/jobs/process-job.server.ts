@@ -60,12 +60,28 @@ async function payloadFor(db: AnalysesDb, row: JobRow): Promise<JobPayload> {
   }
 }
 
+/** Child processes of the jobs this process is running, so a shutting-down worker can stop them. */
+const running = new Set<{ stop(reason: string): void }>();
+export function stopAllChildren(reason: string): void {
+  for (const c of running) c.stop(reason);
+}
+
 const seconds = (ms: number) => `${Math.round(ms / 100) / 10} s`;
 
 /** Processes job `id` if it is still queued; returns the final status it wrote (or null if not claimed). */
 export async function processJob(db: AnalysesDb, id: string, options: ProcessOptions): Promise<string | null> {
   const row = await claim(db, id, options.workerId);
-  if (!row) return null;
+  if (!row) {
+    // Cancelled while waiting (e.g. after a requeue): settle it rather than leave it queued.
+    await db
+      .updateTable("analyses")
+      .set({ status: "cancelled", finished_at: sql`now()`, error: "Cancelled before a worker started it.", progress: { stage: "cancelled" } })
+      .where("id", "=", id)
+      .where("status", "=", "queued")
+      .where("cancel_requested_at", "is not", null)
+      .execute();
+    return null;
+  }
   const started = Date.now();
   const limitMs = row.time_limit_seconds * 1000;
   let progress: JobProgress = { stage: "starting", message: "job process starting", elapsedMs: 0 };
@@ -82,6 +98,8 @@ export async function processJob(db: AnalysesDb, id: string, options: ProcessOpt
         progress = parseProgress(p, Date.now() - started);
       },
     });
+    running.add(child);
+    void child.outcome.then(() => running.delete(child));
     options.onChildStarted?.(id, child.pid);
     const beat = async () => {
       const r = await mine()

@@ -11,8 +11,8 @@ import { createDb } from "~/db.server";
 import { getEnv } from "~/env.server";
 import { asAnalysesDb } from "~/analyses/schema";
 import { enqueue, getBoss, QUEUE, stopBosses, type JobMessage } from "./queue.server";
-import { processJob, type ProcessOptions } from "./process-job.server";
-import { orphanedQueuedJobs, sweepStaleJobs } from "./sweeper.server";
+import { processJob, stopAllChildren, type ProcessOptions } from "./process-job.server";
+import { orphanedQueuedJobs, releaseRunningJobs, sweepStaleJobs } from "./sweeper.server";
 
 export interface WorkerOptions extends Partial<Omit<ProcessOptions, "workerId">> {
   databaseUrl: string;
@@ -61,7 +61,7 @@ export async function startWorker(options: WorkerOptions): Promise<RunningWorker
         log(`${r.id}: its worker stopped responding; queued again`);
         await enqueue(options.databaseUrl, r.id, r.timeLimitSeconds);
       }
-      for (const f of failed) log(`${f}: its worker stopped responding; no attempts left, marked failed`);
+      for (const f of failed) log(`${f}: its worker stopped responding; settled (no attempts left, or cancelled)`);
       for (const r of await orphanedQueuedJobs(db, 5 * 60_000)) await enqueue(options.databaseUrl, r.id, r.timeLimitSeconds);
     } catch (e) {
       log(`sweep failed: ${(e as Error).message}`);
@@ -76,6 +76,13 @@ export async function startWorker(options: WorkerOptions): Promise<RunningWorker
     async stop() {
       clearInterval(sweeper);
       for (const w of workIds) await boss.offWork({ id: w }).catch(() => undefined);
+      // Hand running jobs back before killing their processes, so no final write can land.
+      const released = await releaseRunningJobs(db, id).catch(() => []);
+      stopAllChildren("the worker is stopping");
+      for (const r of released) {
+        log(`${r.id}: handed back to the queue`);
+        await enqueue(options.databaseUrl, r.id, r.timeLimitSeconds).catch(() => undefined);
+      }
       await stopBosses();
       await db.destroy();
     },

@@ -1,8 +1,8 @@
 import { Form, Link, redirect, useNavigation } from "react-router";
 import type { Route } from "./+types/analyses-new";
 import { db } from "~/db.server";
-import { defaultOrder } from "@domain/steady-state/index";
 import { analysisInputFromForm } from "~/analyses/form.server";
+import { suggestedOrder } from "~/analyses/suggested-order";
 import { fileRateValues, rateSymbols } from "~/analyses/params";
 import { analysisPath } from "~/analyses/paths";
 import { labLimits } from "~/analyses/repository.server";
@@ -21,7 +21,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const network = await requireNetwork(db(), access, params.networkId);
   const version = await requireVersion(db(), network, new URL(request.url).searchParams.get("v"));
   const parsed = networkOf(version.csv);
-  const suggestion = defaultOrder(parsed);
+  const suggestion = suggestedOrder(parsed);
   return {
     lab: access.lab,
     network: { id: network.id, name: network.name },

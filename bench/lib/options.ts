@@ -4,7 +4,7 @@
  * Example: parseBenchOptions(["--only", "katsura-5,cyclic-5", "--repeat", "5"]) gives
  * only ["katsura-5", "cyclic-5"], repeat 5 and the defaults for the rest.
  */
-import { TOOL_IDS, type ToolId } from "./tools";
+import { LAUNCHERS, TOOL_IDS, type Launcher, type ToolId } from "./tools";
 
 export interface BenchOptions {
   readonly only: readonly string[] | undefined;
@@ -15,8 +15,10 @@ export interface BenchOptions {
   readonly quick: boolean;
   readonly prime: bigint | undefined;
   readonly tools: readonly ToolId[];
-  /** How our CLI starts: `tsx` (as `npm run cli` does) or `node` (`node --import tsx`, one process less). */
-  readonly launcher: "tsx" | "node";
+  /** How our CLI starts: `bundle` (`node scripts/cli.mjs`, as `npm run cli` does), `tsx` or `node` (`node --import tsx`). */
+  readonly launcher: Launcher;
+  /** Run the issue-4 target (analyse with symbolic rates vs Singular's brute force) instead of the systems. */
+  readonly analyse: boolean;
   readonly help: boolean;
 }
 
@@ -28,7 +30,8 @@ export const DEFAULT_OPTIONS: BenchOptions = {
   quick: false,
   prime: undefined,
   tools: TOOL_IDS,
-  launcher: "tsx",
+  launcher: "bundle",
+  analyse: false,
   help: false,
 };
 
@@ -40,7 +43,11 @@ export const USAGE = `npm run bench -- [options]
   --long S          a run longer than S seconds is not repeated (default 30)
   --field P         compute over Z/P instead of Q (all three programs)
   --tools a,b       subset of ours,sympy,singular (default all)
-  --launcher L      start our CLI with "tsx" (default, as npm run cli does) or "node" (node --import tsx)
+  --launcher L      start our CLI with "bundle" (default: node scripts/cli.mjs, as npm run cli does),
+                    "tsx" (tsx domain/cli/main.ts) or "node" (node --import tsx domain/cli/main.ts)
+  --analyse         instead of the systems: our analyse of the two-site phosphorylation cycle with
+                    twelve symbolic rate constants (parametrisation, checked) next to Singular's
+                    brute-force block-order std of the same steady-state system
   --help            this text`;
 
 export class BenchOptionError extends Error {}
@@ -91,10 +98,13 @@ export function parseBenchOptions(argv: readonly string[]): BenchOptions {
       }
       case "--launcher": {
         const v = value();
-        if (v !== "tsx" && v !== "node") throw new BenchOptionError(`--launcher needs tsx or node, got ${v ?? "nothing"}`);
-        o = { ...o, launcher: v };
+        if (!LAUNCHERS.includes(v as Launcher)) throw new BenchOptionError(`--launcher needs ${LAUNCHERS.join(", ")}, got ${v ?? "nothing"}`);
+        o = { ...o, launcher: v as Launcher };
         break;
       }
+      case "--analyse":
+        o = { ...o, analyse: true };
+        break;
       case "--help":
       case "-h":
         o = { ...o, help: true };

@@ -1,7 +1,8 @@
 /**
  * The three programs the benchmark runs, each as a whole process:
- * - ours: `node_modules/.bin/tsx domain/cli/main.ts groebner FILE` — exactly what
- *   `npm run -s cli -- groebner FILE` starts, minus npm's own start-up;
+ * - ours: `node scripts/cli.mjs groebner FILE` — exactly what `npm run -s cli -- groebner FILE`
+ *   starts, minus npm's own start-up (the launcher runs a cached bundle of domain/cli/main.ts;
+ *   run.ts builds it before any timing);
  * - SymPy: Debian's `/usr/bin/python3` running bench/reference/sympy_groebner.py;
  * - Singular: `/usr/bin/Singular -q SCRIPT` with a script from singular-script.ts (written
  *   before the clock starts).
@@ -41,19 +42,33 @@ function tryRun(command: string, args: string[], cwd: string): string | undefine
 
 const fieldArgs = (prime?: bigint): string[] => (prime === undefined ? [] : ["--field", `${prime}`]);
 
+export type Launcher = "bundle" | "tsx" | "node";
+export const LAUNCHERS: readonly Launcher[] = ["bundle", "tsx", "node"];
+
 /**
- * launcher "tsx": the tsx binary (it starts a second Node process with its loader), exactly as
- * `npm run cli` does; "node": `node --import tsx`, a single process.
+ * launcher "bundle": `node scripts/cli.mjs`, exactly as `npm run cli` does (a cached esbuild
+ * bundle, rebuilt when domain/ changes); "tsx": the tsx binary (it starts a second Node process
+ * with its loader); "node": `node --import tsx`, a single process transpiling on the fly.
  */
-export function oursTool(root: string, launcher: "tsx" | "node" = "tsx"): Tool {
+export function oursStart(root: string, launcher: Launcher = "bundle"): Invocation & { label: string } {
   const tsx = join(root, "node_modules", ".bin", "tsx");
   const main = join(root, "domain", "cli", "main.ts");
-  const start = launcher === "tsx" ? { command: tsx, args: [main] } : { command: process.execPath, args: ["--import", "tsx", main] };
+  const starts: Record<Launcher, Invocation & { label: string }> = {
+    bundle: { command: process.execPath, args: [join(root, "scripts", "cli.mjs")], label: "node scripts/cli.mjs (bundle built before timing)" },
+    tsx: { command: tsx, args: [main], label: "node_modules/.bin/tsx" },
+    node: { command: process.execPath, args: ["--import", "tsx", main], label: "node --import tsx" },
+  };
+  return starts[launcher];
+}
+
+export function oursTool(root: string, launcher: Launcher = "bundle"): Tool {
+  const main = join(root, "domain", "cli", "main.ts");
+  const start = oursStart(root, launcher);
   return {
     id: "ours",
     label: "ours",
     unavailable: existsSync(main) ? undefined : "domain/cli/main.ts does not exist yet",
-    version: `node ${process.version}, started by ${launcher === "tsx" ? "node_modules/.bin/tsx" : "node --import tsx"}`,
+    version: `node ${process.version}, started by ${start.label}`,
     invocation: (systemPath, _s, _d, prime) => ({ command: start.command, args: [...start.args, "groebner", systemPath, ...fieldArgs(prime)] }),
   };
 }

@@ -80,6 +80,7 @@ export function fglm<C>(G: readonly Polynomial<C>[], target: PolynomialRing<C>, 
     const out = new Array<C>(D).fill(F.zero);
     for (let b = 0; b < D; b++) {
       if (F.isZero(pv[b])) continue;
+      limits.checkTime(); // D² products of possibly huge rationals per candidate
       const eb = basis[b].slice();
       eb[k]++;
       const col = normalVector(eb);
@@ -110,6 +111,7 @@ export function fglm<C>(G: readonly Polynomial<C>[], target: PolynomialRing<C>, 
     for (const row of rows) {
       const c = v[row.pivot];
       if (F.isZero(c)) continue;
+      limits.checkTime();
       for (let r = 0; r < D; r++) if (!F.isZero(row.vec[r])) v[r] = F.sub(v[r], F.mul(c, row.vec[r]));
       for (let r = 0; r < row.comb.length; r++) if (!F.isZero(row.comb[r])) comb[r] = F.sub(comb[r], F.mul(c, row.comb[r]));
     }

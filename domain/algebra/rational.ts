@@ -4,6 +4,8 @@
  *
  * Example: rational(6n, -4n) is { num: -3n, den: 2n }; add(r(1,2), r(1,3)) is 5/6.
  */
+import { isHuge, lehmerGcd } from "./lehmer-gcd";
+
 export interface Rational {
   readonly num: bigint;
   readonly den: bigint;
@@ -14,6 +16,8 @@ const SAFE = 9007199254740991n;
 export function gcdBig(a: bigint, b: bigint): bigint {
   if (a < 0n) a = -a;
   if (b < 0n) b = -b;
+  // Huge operands (coefficient growth over Q): Lehmer's method, which finishes through this function.
+  if (isHuge(a) && isHuge(b)) return lehmerGcd(a, b, gcdBig);
   while (b !== 0n) {
     // Once both parts are below 2^53 finish in doubles: much cheaper than bigint division.
     if (a <= SAFE && b <= SAFE) {

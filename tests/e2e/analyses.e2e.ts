@@ -1,5 +1,5 @@
 import { execFile } from "node:child_process";
-import { mkdirSync, writeFileSync } from "node:fs";
+import { mkdirSync, readFileSync, writeFileSync } from "node:fs";
 import { promisify } from "node:util";
 import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -24,7 +24,11 @@ const CYCLE_CSV = [
   "",
 ].join("\n");
 
-const shot = (page: Page, name: string) => page.screenshot({ path: `${SHOTS}/${name}.png`, fullPage: true });
+async function shot(page: Page, name: string) {
+  // KaTeX's fonts block text until loaded; wait so the screenshot shows the formulas.
+  await page.evaluate(() => document.fonts.ready);
+  await page.screenshot({ path: `${SHOTS}/${name}.png`, fullPage: true });
+}
 
 describe.skipIf(!hasApp)("analyses in headless chromium", () => {
   let editor: E2EBrowser;
@@ -110,7 +114,16 @@ describe.skipIf(!hasApp)("analyses in headless chromium", () => {
     const chart = page.getByTestId("scan-chart");
     await chart.waitFor({ timeout: 90_000 });
     await expect.poll(() => chart.locator("path.recharts-curve").count()).toBeGreaterThan(0);
-    expect(await chart.getByRole("link", { name: "Plot data (CSV)" }).getAttribute("href")).toMatch(/\/export\/scan-[0-9a-f-]{36}\.csv$/);
+    const csvHref = await chart.getByRole("link", { name: "Plot data (CSV)" }).getAttribute("href");
+    expect(csvHref).toMatch(/\/export\/scan-[0-9a-f-]{36}\.csv$/);
+    const csv = await (await page.request.get(csvHref!)).text();
+    expect(csv.split("\n")[0]).toBe("c1,state,count,verdict,S0,K,S0K,S1,F,S1F");
+    expect(csv.trim().split("\n")).toHaveLength(9);
+    const [download] = await Promise.all([page.waitForEvent("download"), chart.getByRole("button", { name: "Chart (SVG)" }).click()]);
+    expect(download.suggestedFilename()).toBe("scan-c1-S0.svg");
+    const svg = readFileSync((await download.path())!, "utf8");
+    expect(svg).toMatch(/^<svg[^>]*xmlns="http:\/\/www.w3.org\/2000\/svg"/);
+    expect(svg).toContain("recharts-curve");
     await chart.scrollIntoViewIfNeeded();
     await shot(page, "04-scan");
     // Time course from the same initial concentrations, with the steady state overlaid.
@@ -137,6 +150,26 @@ describe.skipIf(!hasApp)("analyses in headless chromium", () => {
     expect(verdicts[1]).toMatch(/holds at every positive steady state/);
     await page.getByTestId("relation-verdict").first().scrollIntoViewIfNeeded();
     await shot(page, "05-relations");
+  }, 120_000);
+
+  it("compares a symbolic analysis of the same version side by side with the numeric one", async () => {
+    const { page } = await editor.page(analysisUrl);
+    await page.getByRole("link", { name: "new analysis of this version" }).click();
+    await page.waitForURL(/\/analyse/);
+    await page.getByLabel("all symbolic").check();
+    await page.getByRole("button", { name: "Start analysis" }).click();
+    await page.waitForURL(/\/analyses\/[0-9a-f-]{36}$/);
+    await expect.poll(() => page.getByTestId("status").first().innerText(), { timeout: 90_000, interval: 500 }).toBe("succeeded");
+    expect(await page.getByTestId("settings").innerText()).toMatch(/Rate constants: symbolic/);
+    const first = analysisUrl.split("/").pop()!;
+    await page.locator("select[name=b]").selectOption(first);
+    await page.getByRole("button", { name: "Compare" }).click();
+    await page.waitForURL(/\/analyses\/compare\?/);
+    const columns = page.getByTestId("compare-column");
+    expect(await columns.count()).toBe(2);
+    expect(await columns.nth(0).innerText()).toMatch(/symbolic rates/);
+    expect(await columns.nth(1).innerText()).toMatch(/numeric rates/);
+    await shot(page, "05b-compare");
   }, 120_000);
 
   it("lets the owner share the analysis read-only with a link that works signed out", async () => {

@@ -144,7 +144,6 @@ export function ResultsView({ view, result }: { view: ResultView; result: Analys
         </Block>
       )}
       {result.steadyStateSet === "continuum" && <p className="text-sm">The steady states of this class form a continuum; none are listed.</p>}
-      {result.relations.length > 0 && null}
       <Block id="notes" title="Notes and warnings">
         <ul className="ml-5 list-disc space-y-1 text-sm text-muted" data-testid="warnings">
           {result.warnings.map((w, i) => (

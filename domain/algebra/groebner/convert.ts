@@ -24,11 +24,12 @@ export function clearDenominators(p: EPoly<Rational>): EPoly<bigint> {
   return { coeffs: p.coeffs.map((c) => c.num * (l / c.den)), exps: p.exps };
 }
 
-/** Integer polynomial scaled to be monic over Q. */
-export function monicRational(p: EPoly<bigint>): EPoly<Rational> {
+/** Integer polynomial scaled to be monic over Q; `tick` (a deadline check) runs between coefficients. */
+export function monicRational(p: EPoly<bigint>, tick?: () => void): EPoly<Rational> {
   const lc = p.coeffs[0];
   return {
     coeffs: p.coeffs.map((c) => {
+      tick?.();
       let num = c, den = lc;
       if (den < 0n) { num = -num; den = -den; }
       const g = gcdBig(num, den);

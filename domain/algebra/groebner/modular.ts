@@ -47,14 +47,14 @@ export function modularGroebnerQQ(polys: readonly Polynomial<Rational>[], strate
     const trace: TraceEvent[] = [];
     buchberger(modular, primeCoefficients(p), n, cmp, { strategy, limits, trace });
     const G = replayOverZ(integer, trace, n, cmp, limits);
-    if (G) return G.map((g) => fromEngine(ring, monicRational(g)));
+    if (G) return G.map((g) => fromEngine(ring, monicRational(g, () => limits.checkTime())));
   }
   return plainFractionFree(integer, ring, strategy, limits);
 }
 
 export function plainFractionFree(integer: EPoly<bigint>[], ring: Polynomial<Rational>["ring"], strategy: SelectionStrategy, limits: Limits): Polynomial<Rational>[] {
   const basis = buchberger(integer, integerCoefficients, ring.n, ring.cmp, { strategy, limits });
-  return basis.map((p) => fromEngine(ring, monicRational(p)));
+  return basis.map((p) => fromEngine(ring, monicRational(p, () => limits.checkTime())));
 }
 
 function reduceModP(f: EPoly<bigint>, P: bigint, n: number): EPoly<number> {

@@ -74,6 +74,11 @@ export class ReductionKernel<C> implements Kernel<C> {
     const outC: C[] = [];
     let outLen = 0;
     let head = 0;
+    // Deadline checks by terms merged, not by steps: over Z one step on long polynomials with
+    // huge coefficients can take seconds (the modular replay's coefficients can double per
+    // reduction), so counting steps alone overran deadlines several-fold.
+    let work = 0;
+    const termsPerTick = K.termsPerTick;
     const nred = reducers.length;
     while (head < len) {
       const off = head * S;
@@ -100,9 +105,13 @@ export class ReductionKernel<C> implements Kernel<C> {
         head++;
         continue;
       }
-      if (++this.steps % 2048 === 0) this.tick();
       const gC = g.coeffs, gE = g.exps, glen = gC.length;
-      const [a, b] = K.reductionFactors(curC[head], gC[0]);
+      this.steps++;
+      if (++work >= termsPerTick) {
+        work = 0;
+        this.tick();
+      }
+      const [a, b] = K.reductionFactors(curC[head], gC[0], this.tick);
       const aOne = K.isOne(a);
       for (let k = 0; k <= n; k++) q[k] = curE[off + k] - gE[k];
       const need = (len - head - 1 + glen - 1) * S;
@@ -110,6 +119,10 @@ export class ReductionKernel<C> implements Kernel<C> {
       let i = head + 1, j = 1, k = 0;
       if (j < glen) for (let t = 0; t <= n; t++) tm[t] = gE[S + t] + q[t];
       while (i < len || j < glen) {
+        if (++work >= termsPerTick) {
+          work = 0;
+          this.tick();
+        }
         const c = i >= len ? -1 : j >= glen ? 1 : cmp(curE, i * S, tm, 0);
         const ko = k * S;
         if (c > 0) {
@@ -136,7 +149,10 @@ export class ReductionKernel<C> implements Kernel<C> {
           }
         }
       }
-      if (!aOne) for (let t = 0; t < outLen; t++) outC[t] = K.mul(a, outC[t]);
+      if (!aOne) {
+        for (let t = 0; t < outLen; t++) outC[t] = K.mul(a, outC[t]);
+        work += outLen;
+      }
       const te = curE; curE = nxtE; nxtE = te;
       const tc = curC; curC = nxtC; nxtC = tc;
       head = 0;
@@ -153,7 +169,7 @@ export class ReductionKernel<C> implements Kernel<C> {
     for (let t = 0; t < rest; t++) coeffs[outLen + t] = curC[head + t];
     exps.set(curE.subarray(head * S, len * S), outLen * S);
     curC.length = 0; nxtC.length = 0;
-    if (this.normalizeResults) K.normalize(coeffs);
+    if (this.normalizeResults) K.normalize(coeffs, this.tick);
     return { coeffs, exps };
   }
 }

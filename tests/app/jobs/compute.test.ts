@@ -74,6 +74,15 @@ describe("job computations (what the child process runs)", () => {
     expect((num.steadyStates as unknown[]).length).toBe(1);
   });
 
+  it("the form's suggested order is the one the engine uses", async () => {
+    const { suggestedOrder } = await import("~/analyses/suggested-order");
+    const csv = fixtureCsv("two-site-phosphorylation");
+    const r = computeJob({ kind: "analysis", csv, params: analysisParams({ rateMode: "symbolic" }) }, { engineTimeoutMs: 3000 }) as { order: { species: string[]; reason: string } };
+    const s = suggestedOrder(parseNetworkCsv(csv));
+    expect(s.order).toEqual(r.order.species);
+    expect(s.reason).toBe(r.order.reason);
+  }, 30_000);
+
   it("reads the engine's progress lines", () => {
     expect(parseProgress({ phase: "groebner", message: "Gröbner basis: 12 polynomials, 40 pairs left, degree 5" }, 7)).toEqual({
       stage: "groebner", message: "Gröbner basis: 12 polynomials, 40 pairs left, degree 5", elapsedMs: 7, basisSize: 12, pairsLeft: 40, degree: 5,

@@ -10,9 +10,6 @@ import { makeLab, makeUser } from "../auth/fixtures";
 
 export const fixtureCsv = (name: string) => readFileSync(`tests/fixtures/networks/${name}.csv`, "utf8");
 
-/** Autocatalytic switch of the demo seed, with rate values chosen (by us) so that it is bistable. */
-export const SWITCH_CSV = "reaction,rate,reverse_rate,rate_value,reverse_rate_value\nA + 2X <-> 3X,k1,k2,1,1\nX <-> B,k3,k4,1,1/10\n";
-
 export const analysisParams = (over: Partial<AnalysisParams> = {}): AnalysisParams => ({
   order: null,
   free: [],

@@ -110,6 +110,22 @@ describe.skipIf(!hasTestDatabase)("background worker", () => {
     worker = undefined;
   }, 40_000);
 
+  it("a worker stopped cleanly hands its running job back without using up an attempt", async () => {
+    worker = await startWorker({ databaseUrl: t.url, heartbeatMs: 200, graceMs: 1000, sweepEveryMs: 500, staleAfterMs: 3000, pollSeconds: 0.5, log: () => {} });
+    const id = await job(nets.twoSite, analysisParams({ rateMode: "symbolic" }), 3);
+    await waitFor(async () => (await row(id)).status === "running", 20_000, "running");
+    await worker.stop();
+    worker = undefined;
+    const back = await row(id);
+    expect([back.status, back.attempts, back.worker_id]).toEqual(["queued", 0, null]);
+    worker = await startWorker({ databaseUrl: t.url, heartbeatMs: 200, graceMs: 1000, sweepEveryMs: 500, staleAfterMs: 3000, pollSeconds: 0.5, log: () => {} });
+    const done = await finished(id, 30_000);
+    expect(done.attempts).toBe(1);
+    expect(["succeeded", "failed"]).toContain(done.status);
+    await worker.stop();
+    worker = undefined;
+  }, 60_000);
+
   it("recovers jobs whose worker process was killed mid-run: retried, or failed with the reason", async () => {
     const retried = await job(nets.twoSite, analysisParams({ rateMode: "symbolic" }), 3);
     const lastTry = await job(nets.twoSite, analysisParams({ rateMode: "symbolic" }), 3);

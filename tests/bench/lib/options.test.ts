@@ -7,6 +7,9 @@ describe("parseBenchOptions", () => {
     expect(DEFAULT_OPTIONS.repeat).toBe(3);
     expect(DEFAULT_OPTIONS.timeout).toBe(120);
     expect(DEFAULT_OPTIONS.tools).toEqual(["ours", "sympy", "singular"]);
+    // Our CLI starts as `npm run cli` does: node scripts/cli.mjs (the bundled launcher).
+    expect(DEFAULT_OPTIONS.launcher).toBe("bundle");
+    expect(parseBenchOptions(["--launcher", "tsx"]).launcher).toBe("tsx");
   });
   it("reads every option", () => {
     const o = parseBenchOptions(["--only", "katsura-5,cyclic-5", "--repeat", "5", "--timeout", "60", "--quick", "--field", "32003", "--tools", "sympy,singular", "--long", "10", "--launcher", "node"]);

@@ -1,0 +1,39 @@
+import { describe, expect, it } from "vitest";
+import { exportAnalysis } from "~/analyses/exports";
+import { presentResult, totalOf } from "~/analyses/present";
+import type { AnalysisResult } from "~/analyses/result-types";
+import { computeJob } from "~/jobs/compute";
+import { analysisParams } from "../jobs/fixtures";
+
+// Invertase binding and turnover with a feed of S and outflow of P, so a positive steady state exists (invented).
+const CSV = "reaction,rate,reverse_rate,rate_value,reverse_rate_value\nE + S <-> C,kon,koff,2,1\nC -> E + P,kcat,,3,\n0 -> S,kin,,1,\nP -> 0,kout,,1,\n";
+const params = analysisParams({ initial: { E: "1/2" } });
+const result = computeJob({ kind: "analysis", csv: CSV, params }, { engineTimeoutMs: 20_000 }) as unknown as AnalysisResult;
+const meta = { network: "Invertase", version: 3, engineVersion: "0.1.0+test", analysisId: "id" };
+
+describe("exports and the page's view of a result", () => {
+  it("JSON carries the pin (network version, engine version) and the whole result", () => {
+    const out = exportAnalysis("result.json", result, meta);
+    expect(JSON.parse(out.body)).toEqual({ ...meta, result });
+  });
+
+  it("CSV tables and a LaTeX document that compiles the same formulas", () => {
+    const params = exportAnalysis("parametrisation.csv", result, meta).body.split("\n");
+    expect(params[0]).toBe("species,expression,free");
+    expect(params.length - 2).toBe(Object.keys(result.parametrisation!.expressions).length);
+    const states = exportAnalysis("steady-states.csv", result, meta).body.split("\n");
+    expect(states[0]).toBe(`state,${result.species.join(",")},verdict,eigenvalues`);
+    expect(states.length - 2).toBe(result.steadyStates!.length);
+    const tex = exportAnalysis("formulas.tex", result, meta).body;
+    expect(tex).toMatch(/\\begin\{document\}[\s\S]*\\begin\{align\*\}[\s\S]*\\end\{document\}/);
+    expect(tex).toContain("version 3, engine 0.1.0+test");
+  });
+
+  it("conservation totals are exact sums of the initial concentrations", () => {
+    expect(totalOf({ E: 1, C: 1 }, { E: "1/2", C: "1/3" })).toBe("5/6");
+    expect(totalOf({ A: 2, B: -1 }, { A: "1" })).toBe("2");
+    const view = presentResult(result, params);
+    expect(view.conservation).toEqual([{ text: "E + C", total: "1/2" }]);
+    expect(view.parametrisation!.rows.every((r) => r.tex.includes("="))).toBe(true);
+  });
+});
