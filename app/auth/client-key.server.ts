@@ -1,8 +1,9 @@
 /**
- * Who is asking, for per-client rate limits. React Router's request carries no socket address,
- * so behind the HTTPS reverse proxy we use the address it appends last to X-Forwarded-For (the
- * entries before it are client-supplied and could be forged). Direct connections, as in local
- * use on loopback, share one bucket — conservative: the per-address limit still applies.
+ * Who is asking, for per-client rate limits. React Router's Request carries no socket address,
+ * so the production server (scripts/serve.ts) writes it into X-Forwarded-For, replacing whatever
+ * the client sent; with TRUST_PROXY=1 it keeps the header of the reverse proxy in front, whose
+ * own appended entry is the last one (earlier entries are client-supplied and could be forged).
+ * Without the header (e.g. under `react-router dev`) all clients share one conservative bucket.
  */
 export function clientKey(request: Request): string {
   const forwarded = request.headers.get("x-forwarded-for");

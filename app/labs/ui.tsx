@@ -1,3 +1,5 @@
+import type { ReactNode } from "react";
+import { Form } from "react-router";
 import type { LabRole } from "~/db/schema";
 
 /** The outcome line under a form: an error (role=alert) or a quiet confirmation. */
@@ -32,4 +34,23 @@ export function formatDate(value: Date | string | null | undefined): string {
   if (!value) return "—";
   const d = typeof value === "string" ? new Date(value) : value;
   return d.toISOString().slice(0, 16).replace("T", " ") + " UTC";
+}
+
+/**
+ * A one-button form posting `intent` and a few hidden fields to the current route's action —
+ * the small row actions (revoke, remove, resend) of the account and member pages.
+ */
+export function IntentButton({ intent, fields = {}, tone = "accent", children }: {
+  intent: string;
+  fields?: Record<string, string>;
+  tone?: "accent" | "danger";
+  children: ReactNode;
+}) {
+  return (
+    <Form method="post">
+      <input type="hidden" name="intent" value={intent} />
+      {Object.entries(fields).map(([name, value]) => <input key={name} type="hidden" name={name} value={value} />)}
+      <button type="submit" className={`text-xs hover:underline ${tone === "danger" ? "text-danger" : "text-accent"}`}>{children}</button>
+    </Form>
+  );
 }

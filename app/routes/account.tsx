@@ -6,7 +6,7 @@ import { parseAccountIntent, runAccountIntent } from "~/account/account-actions.
 import { listAccountEvents } from "~/labs/audit.server";
 import { listLabsOf } from "~/labs/labs.server";
 import type { ActionResult } from "~/labs/form.server";
-import { formatDate, FormMessage, inputClass, RoleBadge } from "~/labs/ui";
+import { formatDate, FormMessage, inputClass, IntentButton, RoleBadge } from "~/labs/ui";
 import { requireUser } from "~/permissions/permissions.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Your account · Stillpoint" }];
@@ -80,11 +80,7 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
                 <td className="text-muted">{t.lastUsedAt ? formatDate(t.lastUsedAt) : "never"}</td>
                 <td className="text-right">
                   {t.revokedAt ? <span className="text-xs text-faint">revoked</span> : (
-                    <Form method="post">
-                      <input type="hidden" name="intent" value="revoke-token" />
-                      <input type="hidden" name="tokenId" value={t.id} />
-                      <button type="submit" className="text-xs text-danger hover:underline">Revoke</button>
-                    </Form>
+                    <IntentButton intent="revoke-token" fields={{ tokenId: t.id }} tone="danger">Revoke</IntentButton>
                   )}
                 </td>
               </tr>

@@ -1,5 +1,4 @@
-import { useEffect } from "react";
-import { Link, data, redirect, useRevalidator } from "react-router";
+import { Link, data, redirect } from "react-router";
 import type { Route } from "./+types/analysis";
 import { db } from "~/db.server";
 import { formObject } from "~/analyses/form.server";
@@ -12,6 +11,7 @@ import { createShareLink, listShareLinks, revokeShareLink, SHARE_DAYS } from "~/
 import { AnalysisBody } from "~/analyses/ui/analysis-body";
 import { SharePanel } from "~/analyses/ui/share-panel";
 import { isUnfinished } from "~/analyses/ui/status";
+import { usePolling } from "~/analyses/ui/use-polling";
 import { getEnv } from "~/env.server";
 import { networkPath } from "~/networks/paths";
 import { assertLabRole, requireLabRole } from "~/permissions/permissions.server";
@@ -85,18 +85,6 @@ export async function action({ request, params }: Route.ActionArgs) {
     default:
       return data({ problems: [{ field: "intent", message: `unknown action '${intent}'` }] }, { status: 400 });
   }
-}
-
-/** Revalidates every second while the analysis or one of its follow-ups is unfinished. */
-function usePolling(active: boolean) {
-  const revalidator = useRevalidator();
-  useEffect(() => {
-    if (!active) return;
-    const id = setInterval(() => {
-      if (revalidator.state === "idle" && document.visibilityState === "visible") void revalidator.revalidate();
-    }, 1000);
-    return () => clearInterval(id);
-  }, [active, revalidator]);
 }
 
 export default function AnalysisPage({ loaderData: d }: Route.ComponentProps) {

@@ -4,7 +4,7 @@ import { db } from "~/db.server";
 import { listOpenInvitations } from "~/labs/invitations.server";
 import { listMembers } from "~/labs/memberships.server";
 import { parseMemberIntent, runMemberIntent } from "~/labs/lab-actions.server";
-import { formatDate, FormMessage, inputClass, RoleBadge } from "~/labs/ui";
+import { formatDate, FormMessage, inputClass, IntentButton, RoleBadge } from "~/labs/ui";
 import { requireLabRole } from "~/permissions/permissions.server";
 import { hasRole } from "~/permissions/roles";
 import { LAB_ROLES } from "~/db/schema";
@@ -76,11 +76,7 @@ export default function Members({ loaderData, actionData }: Route.ComponentProps
               <td className="text-muted">{formatDate(m.since).slice(0, 10)}</td>
               {isOwner && (
                 <td className="text-right">
-                  <Form method="post">
-                    <input type="hidden" name="intent" value="remove" />
-                    <input type="hidden" name="userId" value={m.userId} />
-                    <button type="submit" className="text-xs text-danger hover:underline">Remove</button>
-                  </Form>
+                  <IntentButton intent="remove" fields={{ userId: m.userId }} tone="danger">Remove</IntentButton>
                 </td>
               )}
             </tr>
@@ -117,16 +113,8 @@ export default function Members({ loaderData, actionData }: Route.ComponentProps
                         {inv.status === "expired" ? "expired" : `expires ${formatDate(inv.expiresAt)}`}
                       </span>
                     </span>
-                    <Form method="post">
-                      <input type="hidden" name="intent" value="resend" />
-                      <input type="hidden" name="invitationId" value={inv.id} />
-                      <button type="submit" className="text-xs text-accent hover:underline">Resend</button>
-                    </Form>
-                    <Form method="post">
-                      <input type="hidden" name="intent" value="revoke" />
-                      <input type="hidden" name="invitationId" value={inv.id} />
-                      <button type="submit" className="text-xs text-danger hover:underline">Revoke</button>
-                    </Form>
+                    <IntentButton intent="resend" fields={{ invitationId: inv.id }}>Resend</IntentButton>
+                    <IntentButton intent="revoke" fields={{ invitationId: inv.id }} tone="danger">Revoke</IntentButton>
                   </li>
                 ))}
               </ul>

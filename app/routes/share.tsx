@@ -4,6 +4,8 @@ import { analysisPageData } from "~/analyses/page.server";
 import { asAnalysesDb } from "~/analyses/schema";
 import { findSharedAnalysis } from "~/analyses/share.server";
 import { AnalysisBody } from "~/analyses/ui/analysis-body";
+import { isUnfinished } from "~/analyses/ui/status";
+import { usePolling } from "~/analyses/ui/use-polling";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `Shared analysis of ${data?.page.job.network.name ?? "a network"} · Stillpoint` }, { name: "robots", content: "noindex" }];
 
@@ -16,6 +18,7 @@ export async function loader({ params }: Route.LoaderArgs) {
 }
 
 export default function SharedAnalysis({ loaderData: d }: Route.ComponentProps) {
+  usePolling(isUnfinished(d.page.job.status), 2000);
   return (
     <div className="space-y-6">
       <header className="space-y-1">

@@ -7,6 +7,7 @@ import type { LimitOptions } from "./groebner/limits";
 import { Limits } from "./groebner/limits";
 import { modularGroebnerQQ, plainFractionFree } from "./groebner/modular";
 import { fglm } from "./fglm";
+import { fglmModularQQ } from "./fglm-modular";
 import type { Polynomial } from "./polynomial";
 import { normalizeTerms } from "./polynomial";
 import type { Rational } from "./rational";
@@ -19,7 +20,8 @@ export interface GroebnerOptions extends LimitOptions {
    * Over Q: 'modular' learns the computation modulo a word-size prime and replays only the useful
    * reductions exactly, then proves the result with Buchberger's criterion (falls back to
    * 'buchberger' on an unlucky prime); 'buchberger' runs fraction-free over Z throughout.
-   * 'auto' (default) = 'modular'. Ignored over Z/p.
+   * 'auto' (default) = 'modular'; 'modular' also lifts FGLM from images mod primes (fglm-modular.ts),
+   * 'buchberger' runs FGLM over Q. Ignored over Z/p.
    */
   readonly method?: "auto" | "buchberger" | "modular";
   /**
@@ -89,6 +91,11 @@ function tryFglm<C>(polys: readonly Polynomial<C>[], ring: PolynomialRing<C>, op
   const n = ring.n;
   for (let k = 1; k <= n; k++) {
     if (!G.some((g) => g.exps[k] > 0 && g.exps[k] === g.exps[0])) return null; // not zero-dimensional
+  }
+  if (ring.field === (QQ as unknown) && options.method !== "buchberger") {
+    // Images modulo primes, lifted and proven exactly (fglm-modular.ts); FGLM over Q if that fails.
+    const lifted = fglmModularQQ(G as unknown as Polynomial<Rational>[], ring as unknown as PolynomialRing<Rational>, options);
+    if (lifted) return lifted as unknown as Polynomial<C>[];
   }
   return fglm(G, ring, options);
 }

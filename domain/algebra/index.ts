@@ -26,7 +26,10 @@
  * block (`eliminate(polys, names)` does that for you). For lex and block orders a zero-dimensional
  * ideal is solved in grevlex first and converted by FGLM (`fglm: false` turns that off); over Q
  * the default method learns the computation modulo a prime, replays the useful steps exactly and
- * proves the result (Buchberger's criterion), so results are always exact.
+ * proves the result (Buchberger's criterion), and FGLM over Q runs modulo primes with rational
+ * reconstruction, then proves the lifted basis exactly (fglm-modular.ts), so results are always exact.
+ * Deadlines are checked inside single reductions and huge-integer gcds too, so a deadline holds to
+ * within a fraction of a second even when coefficients explode.
  * Coefficients: `terms(p)` gives `{coeff, exponents}` (a `Rational` over QQ); `coefficientOf(p, exps)`
  * reads one; `evaluate(p, point)` evaluates; `mapPolynomial(p, otherRing, f)` changes field/order;
  * `moveToRing(p, ring)` re-expresses p in a ring with the same variable names in another order. Long calls accept

@@ -129,8 +129,10 @@ export function onShutdown(cleanup: () => Promise<void>) {
   const exitAfter = (code: number) => () => {
     run().finally(() => process.exit(code));
   };
-  process.once("SIGINT", exitAfter(130));
-  process.once("SIGTERM", exitAfter(143));
-  process.once("SIGHUP", exitAfter(129));
+  // `on`, not `once`: under `npm start` Ctrl-C arrives twice (from the terminal and relayed by
+  // npm/tsx), and a second signal without a listener would kill us mid-cleanup.
+  process.on("SIGINT", exitAfter(130));
+  process.on("SIGTERM", exitAfter(143));
+  process.on("SIGHUP", exitAfter(129));
   return run;
 }

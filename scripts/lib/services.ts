@@ -59,14 +59,14 @@ export function buildApp(buildDir = "build", options: { quiet?: boolean } = {}):
   return path.join(buildDir, "server", "index.js");
 }
 
-/** The production server (react-router-serve) on HOST:PORT from `env`. */
+/** The production server (scripts/serve.ts: like react-router-serve, plus the client address) on `host`:`port`. */
 export async function startAppServer(
   env: NodeJS.ProcessEnv,
   host: string,
   port: number,
   options: { quiet?: boolean; serverEntry?: string } = {},
 ) {
-  const p = startProcess("app", bin("react-router-serve"), [options.serverEntry ?? "build/server/index.js"], {
+  const p = startProcess("app", bin("tsx"), ["scripts/serve.ts", options.serverEntry ?? "build/server/index.js"], {
     env: { ...env, NODE_ENV: "production", HOST: host, PORT: String(port) },
     quiet: options.quiet,
   });

@@ -4,7 +4,7 @@ import { LinearBudgetError } from "../../../domain/linear/errors";
 import { nonNegativeLeftKernelRays } from "../../../domain/linear/extreme-rays";
 import { matrixFromIntegers, matrixFromRationals, isZeroVector, vectorTimesMatrix, type Matrix } from "../../../domain/linear/matrix";
 import { leftKernel, rank } from "../../../domain/linear/rref";
-import { randomInt, seededRandom } from "./seeded-random";
+import { randomInt, seededRandom } from "../../support/prng";
 
 const annihilates = (y: readonly bigint[], n: Matrix) => isZeroVector(vectorTimesMatrix(y.map(fromInt), n));
 const support = (v: readonly bigint[]) => v.map((x, i) => (x !== 0n ? i : -1)).filter((i) => i >= 0);

@@ -3,7 +3,7 @@ import { describe, expect, it } from "vitest";
 import { formatRational } from "../../../domain/algebra/rational";
 import { identityMatrix, matrixFromIntegers, matrixFromRationals, multiply, isZeroVector, vectorTimesMatrix, matrixTimesVector } from "../../../domain/linear/matrix";
 import { leftKernel, nullspace, rank, rref } from "../../../domain/linear/rref";
-import { randomInt, seededRandom } from "./seeded-random";
+import { randomInt, seededRandom } from "../../support/prng";
 
 function randomLowRankMatrix(rand: () => number): number[][] {
   const m = randomInt(rand, 1, 6);

@@ -3,7 +3,7 @@ import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { formatRational } from "../../../domain/algebra/rational";
 import { formatComplex, formatNetworkCsv, parseNetworkCsv, type Network } from "../../../domain/network";
-import { seededRandom } from "../linear/seeded-random";
+import { seededRandom } from "../../support/prng";
 import { randomNetworkCsv } from "./random-network";
 
 const fixture = (name: string) => readFileSync(join(__dirname, "../../fixtures/networks", name), "utf8");

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { connectedComponents, stronglyConnectedComponents, terminalComponents, type DirectedGraph } from "../../../domain/network";
-import { randomInt, seededRandom } from "../linear/seeded-random";
+import { randomInt, seededRandom } from "../../support/prng";
 
 function reachability(g: DirectedGraph): boolean[][] {
   const r = Array.from({ length: g.vertices }, (_, i) => Array.from({ length: g.vertices }, (_, j) => i === j));

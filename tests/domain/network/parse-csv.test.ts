@@ -3,7 +3,7 @@ import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { formatRational } from "../../../domain/algebra/rational";
 import { formatComplex, NetworkFileError, parseNetworkCsv, tryParseNetworkCsv } from "../../../domain/network";
-import { seededRandom } from "../linear/seeded-random";
+import { seededRandom } from "../../support/prng";
 
 const fixture = (name: string) => readFileSync(join(__dirname, "../../fixtures/networks", name), "utf8");
 

@@ -1,4 +1,4 @@
-import { randomInt } from "../linear/seeded-random";
+import { randomInt } from "../../support/prng";
 
 /** CSV text of a random small network (species X1..Xk, coefficients 0..2, any arrow), seeded. */
 export function randomNetworkCsv(rand: () => number): string {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { analyseStructure, parseNetworkCsv } from "../../../domain/network";
-import { seededRandom } from "../linear/seeded-random";
+import { seededRandom } from "../../support/prng";
 import { matrixFromIntegers, rank } from "../../../domain/linear";
 import { randomNetworkCsv } from "./random-network";
 

@@ -5,7 +5,7 @@ import { describe, expect, it } from "vitest";
 import { fromInt, parseRational } from "../../../domain/algebra/rational";
 import { matrixFromRationals, rank } from "../../../domain/linear";
 import { analyseStructure, parseNetworkCsv } from "../../../domain/network";
-import { seededRandom } from "../linear/seeded-random";
+import { seededRandom } from "../../support/prng";
 import { randomNetworkCsv } from "./random-network";
 
 const fixture = (name: string) => readFileSync(join(__dirname, "../../fixtures/networks", name), "utf8");

@@ -1,4 +1,8 @@
-/** Small seeded PRNG for reproducible property tests (mulberry32; common practice). */
+/**
+ * Seeded pseudo-random numbers for reproducible property tests and generated fixtures:
+ * mulberry32 (common practice), uniform in [0, 1), the same sequence on every run and machine.
+ * domain/numeric/multistart.ts keeps its own copy because domain code cannot import tests.
+ */
 export function seededRandom(seed: number): () => number {
   let a = seed >>> 0;
   return () => {
@@ -10,5 +14,5 @@ export function seededRandom(seed: number): () => number {
   };
 }
 
-/** Integer in [lo, hi]. */
+/** An integer in [lo, hi] drawn from `rand`. */
 export const randomInt = (rand: () => number, lo: number, hi: number): number => lo + Math.floor(rand() * (hi - lo + 1));
