@@ -26,18 +26,20 @@ import { PolynomialRing } from "./ring";
  *  (3) H has as many standard monomials as G: dim_Q Q[x]/⟨H⟩ = dim_Q Q[x]/I.
  * Then ⟨H⟩ ⊆ I and the quotients have equal finite dimension, so ⟨H⟩ = I, and the reduced basis is unique
  * (Cox, Little, O'Shea, "Ideals, Varieties, and Algorithms", 4th ed., ch. 2 §7, Prop. 6; ch. 5 §3).
- * Returns null when the primes run out or the proof fails; the caller then runs FGLM over Q.
+ * Returns null when the primes run out, the proof fails, or Q[x]/I has fewer than
+ * `minDimension` standard monomials; the caller then runs FGLM over Q.
  *
  * Example: G = [y^2 - x, x^2 - 1/4] (grevlex x > y) gives the lex basis [y^4 - 1/4, x - y^2].
  */
 export function fglmModularQQ(
   G: readonly Polynomial<Rational>[],
   target: PolynomialRing<Rational>,
-  options: LimitOptions = {},
+  options: LimitOptions & { minDimension?: number } = {},
 ): Polynomial<Rational>[] | null {
   const limits = new Limits(options, "FGLM");
   const src = G[0].ring;
   const D = countStandard(G);
+  if (D < (options.minDimension ?? 0)) return null;
   let reference: string | null = null;
   let residues: bigint[] = []; // CRT images of every coefficient, in reference layout
   let layout: Polynomial<number>[] = [];
@@ -246,13 +248,24 @@ function provesReducedBasis(H: readonly Polynomial<Rational>[], G: readonly Poly
   // (1) H ⊆ I: NF_G(h) = Σ c_t·NF_G(m_t) = 0, with exact normal-form vectors of the monomials.
   const normalForms = new NormalFormVectors(G, limits);
   for (const h of H) {
-    const sum = new Array<Rational>(D).fill(QQ.zero);
+    // Only "is it zero?" matters: fractions are added without gcds (num/den, den ≠ 0), which is far
+    // cheaper than normalising thousands of sums of numbers with thousands of digits.
+    const num = new Array<bigint>(D).fill(0n), den = new Array<bigint>(D).fill(1n);
     for (let t = 0; t < h.coeffs.length; t++) {
+      limits.checkTime();
       const v = normalForms.of(Array.from(h.exps.subarray(t * S + 1, t * S + S)));
       const c = h.coeffs[t];
-      for (let r = 0; r < D; r++) if (!QQ.isZero(v[r])) sum[r] = QQ.add(sum[r], QQ.mul(c, v[r]));
+      for (let r = 0; r < D; r++) {
+        if (v[r].num === 0n) continue;
+        const tn = c.num * v[r].num, td = c.den * v[r].den;
+        if (td === den[r]) num[r] += tn;
+        else {
+          num[r] = num[r] * td + tn * den[r];
+          den[r] *= td;
+        }
+      }
     }
-    if (sum.some((x) => !QQ.isZero(x))) return false;
+    if (num.some((x) => x !== 0n)) return false;
   }
   // (2) Buchberger's criterion in the target order (cheap in shape position: coprime leading monomials).
   return verifyGroebner(H.map(toEngine), fieldCoefficients(QQ), n, target.cmp, limits);
