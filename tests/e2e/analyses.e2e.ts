@@ -124,6 +124,12 @@ describe.skipIf(!hasApp)("analyses in headless chromium", () => {
     const svg = readFileSync((await download.path())!, "utf8");
     expect(svg).toMatch(/^<svg[^>]*xmlns="http:\/\/www.w3.org\/2000\/svg"/);
     expect(svg).toContain("recharts-curve");
+    const [png] = await Promise.all([page.waitForEvent("download"), chart.getByRole("button", { name: "Chart (PNG)" }).click()]);
+    expect(png.suggestedFilename()).toBe("scan-c1-S0.png");
+    const pngBytes = readFileSync((await png.path())!);
+    // PNG signature (ISO/IEC 15948, §5.2) and a non-trivial image.
+    expect([...pngBytes.subarray(0, 8)]).toEqual([137, 80, 78, 71, 13, 10, 26, 10]);
+    expect(pngBytes.length).toBeGreaterThan(2000);
     await chart.scrollIntoViewIfNeeded();
     await shot(page, "04-scan");
     // Time course from the same initial concentrations, with the steady state overlaid.

@@ -2,7 +2,7 @@ import { useRef, useState } from "react";
 import { CartesianGrid, Line, LineChart, ReferenceArea, Tooltip, XAxis, YAxis } from "recharts";
 import { scanBranches } from "~/analyses/scan-branches";
 import type { ScanResult } from "~/analyses/result-types";
-import { downloadSvg } from "./download-svg";
+import { downloadPng, downloadSvg } from "./download-svg";
 
 const COLOURS = ["#2c6b66", "#a86a12", "#6b4c9a", "#9e3a36", "#3a7045", "#1f4f4b"];
 const fmt = (v: number) => (Math.abs(v) >= 1000 || (Math.abs(v) < 0.01 && v !== 0) ? v.toExponential(2) : Number(v.toPrecision(3)).toString());
@@ -38,6 +38,9 @@ export function ScanChart({ scan, csvHref }: { scan: ScanResult; csvHref: string
         </a>
         <button type="button" className="text-accent-strong hover:underline" onClick={() => downloadSvg(ref.current, `scan-${scan.parameter.name}-${species}.svg`)}>
           Chart (SVG)
+        </button>
+        <button type="button" className="text-accent-strong hover:underline" onClick={() => downloadPng(ref.current, `scan-${scan.parameter.name}-${species}.png`)}>
+          Chart (PNG)
         </button>
       </div>
       {chart.multistable.length > 0 && (

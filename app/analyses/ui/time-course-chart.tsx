@@ -1,7 +1,7 @@
 import { useRef } from "react";
 import { CartesianGrid, Legend, Line, LineChart, ReferenceLine, Tooltip, XAxis, YAxis } from "recharts";
 import type { TimeCourseResult } from "~/analyses/result-types";
-import { downloadSvg } from "./download-svg";
+import { downloadPng, downloadSvg } from "./download-svg";
 
 const COLOURS = ["#2c6b66", "#a86a12", "#6b4c9a", "#9e3a36", "#3a7045", "#1f4f4b", "#56646c", "#b05a8a"];
 
@@ -16,6 +16,9 @@ export function TimeCourseChart({ course, steadyStates }: { course: TimeCourseRe
         {course.note && <span className="text-signal">{course.note}</span>}
         <button type="button" className="ml-auto text-accent-strong hover:underline" onClick={() => downloadSvg(ref.current, "time-course.svg")}>
           Chart (SVG)
+        </button>
+        <button type="button" className="text-accent-strong hover:underline" onClick={() => downloadPng(ref.current, "time-course.png")}>
+          Chart (PNG)
         </button>
       </div>
       <div ref={ref} className="overflow-x-auto rounded-md border border-line bg-surface p-2">
