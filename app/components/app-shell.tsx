@@ -64,11 +64,16 @@ export function AppShell({ user, children }: { user: ShellUser | null; children:
   );
 }
 
-/** Lab network pages live under /labs/:slug/networks but belong to "Networks" in the menu. */
-function navActive(to: string, isActive: boolean, pathname: string): boolean {
-  const onNetworkPage = /^\/labs\/[^/]+\/networks(\/|$)/.test(pathname);
+/**
+ * Lab network and analysis pages live under /labs/:slug/… but belong to "Networks" and "Analyses"
+ * in the menu (starting an analysis, /labs/:slug/networks/:id/analyse, counts as "Analyses").
+ */
+export function navActive(to: string, isActive: boolean, pathname: string): boolean {
+  const onAnalysisPage = /^\/labs\/[^/]+\/(analyses(\/|$)|networks\/[^/]+\/analyse$)/.test(pathname);
+  const onNetworkPage = !onAnalysisPage && /^\/labs\/[^/]+\/networks(\/|$)/.test(pathname);
   if (to === "/networks") return isActive || onNetworkPage;
-  if (to === "/labs") return isActive && !onNetworkPage;
+  if (to === "/analyses") return isActive || onAnalysisPage;
+  if (to === "/labs") return isActive && !onNetworkPage && !onAnalysisPage;
   return isActive;
 }
 
