@@ -105,10 +105,7 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
   if (!options.skipFullBasis && withTotals.equations.length > 0) {
     try {
       budget.progress("groebner", "lex Gröbner basis of the saturated steady-state ideal");
-      // With a parametrisation in hand the full basis is a bonus: give it a small share of the budget so a
-      // symbolic system that blows up under brute force (as multisite phosphorylation does) cannot stall the answer.
-      const share = param?.parametrisation ? 0.05 : 0.25;
-      basis = saturate(withTotals.equations, monomialOf(kinT.ring, kinT.species.map((_, i) => i)), budget.groebner(share));
+      basis = saturate(withTotals.equations, monomialOf(kinT.ring, kinT.species.map((_, i) => i)), budget.groebner(0.25));
     } catch (e) {
       if (!isOutOfBudget(e)) throw e;
       warnings.push(
