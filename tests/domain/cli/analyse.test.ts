@@ -1,24 +1,9 @@
 import { execFileSync } from "node:child_process";
 import { readdirSync, readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
-import { main } from "@domain/cli/main";
-import type { CliIO } from "@domain/cli/io";
+import { cli } from "./run-cli";
 import { parseInitial } from "@domain/cli/analyse";
 
-/** Runs the CLI in-process against an in-memory file system. */
-async function cli(argv: string[], files: Record<string, string>) {
-  let out = "", err = "";
-  const io: CliIO = {
-    readFile: (p) => {
-      if (!(p in files)) throw Object.assign(new Error("no such file"), { code: "ENOENT" });
-      return files[p];
-    },
-    stdout: (t) => void (out += t),
-    stderr: (t) => void (err += t),
-  };
-  const code = await main(argv, io);
-  return { code, out, err };
-}
 
 const fixture = (name: string) => readFileSync(`tests/fixtures/networks/${name}`, "utf8");
 const CUBIC = fixture("cubic-autocatalysis.csv");

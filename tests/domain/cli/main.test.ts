@@ -4,23 +4,8 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { promisify } from "node:util";
 import { describe, expect, it } from "vitest";
-import { main } from "@domain/cli/main";
-import type { CliIO } from "@domain/cli/io";
+import { cli } from "./run-cli";
 
-/** Runs the CLI in-process against an in-memory file system. */
-async function cli(argv: string[], files: Record<string, string>) {
-  let out = "", err = "";
-  const io: CliIO = {
-    readFile: (p) => {
-      if (!(p in files)) throw Object.assign(new Error("no such file"), { code: "ENOENT" });
-      return files[p];
-    },
-    stdout: (t) => void (out += t),
-    stderr: (t) => void (err += t),
-  };
-  const code = await main(argv, io);
-  return { code, out, err };
-}
 
 const CLO_271 = "# Cox, Little, O'Shea, ch. 2 §7, Example 1\nvars: x, y\norder: grlex\nx^3 - 2*x*y\nx^2*y - 2*y^2 + x\n";
 
