@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { labMember, PERSONAS, type Expect, type Persona } from "../support/personas";
 import { hasTestDatabase, type TestDatabase } from "../support/test-db";
 import { makeLab, makeRequest, makeUser, run, sessionCookieFor, setUpAccountsDb, snapshot, tearDownAccountsDb, type Outcome } from "../auth/fixtures";
 import { analysisParams, makeJob, makeNetwork } from "../jobs/fixtures";
@@ -11,17 +12,6 @@ import { stopBosses } from "~/jobs/queue.server";
  * visitor. Refused requests must change nothing (analyses, share links, lab limits, audit trail).
  *   anonymous · viewer · editor · owner of lab "alpha" · outsider (owner of lab "beta") · site admin (no lab)
  */
-const PERSONAS = ["anonymous", "viewer", "editor", "owner", "outsider", "admin"] as const;
-type Persona = (typeof PERSONAS)[number];
-type Expect = Record<Persona, number>;
-const labMember = (ok: number, min: "viewer" | "editor" | "owner", anon = 302): Expect => ({
-  anonymous: anon,
-  viewer: min === "viewer" ? ok : 403,
-  editor: min === "owner" ? 403 : ok,
-  owner: ok,
-  outsider: 404,
-  admin: 404,
-});
 
 const CYCLE = "reaction,rate,reverse_rate,rate_value,reverse_rate_value\nS0 + K <-> S0K,a1,d1,1,1/2\nS0K -> S1 + K,c1,,2,\nS1 + F <-> S1F,a2,d2,1,1\nS1F -> S0 + F,c2,,3/2,\n";
 const INITIAL = { S0: "1", K: "1/10", F: "1/10" };

@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { labMember, PERSONAS, type Expect, type Persona } from "../support/personas";
 import { hasTestDatabase, type TestDatabase } from "../support/test-db";
 import { makeLab, makeRequest, makeUser, run, sessionCookieFor, setUpAccountsDb, snapshot, tearDownAccountsDb, type Outcome } from "../auth/fixtures";
 
@@ -8,9 +9,6 @@ import { makeLab, makeRequest, makeUser, run, sessionCookieFor, setUpAccountsDb,
  *
  *   anonymous · viewer · editor · owner of lab "alpha" · outsider (owner of another lab) · site admin (no lab)
  */
-const PERSONAS = ["anonymous", "viewer", "editor", "owner", "outsider", "admin"] as const;
-type Persona = (typeof PERSONAS)[number];
-type Expect = Record<Persona, number>;
 
 const signInOr = (ok: number, refused: Partial<Expect> = {}): Expect => ({
   anonymous: 302,
@@ -20,14 +18,6 @@ const signInOr = (ok: number, refused: Partial<Expect> = {}): Expect => ({
   outsider: ok,
   admin: ok,
   ...refused,
-});
-const labMember = (ok: number, min: "viewer" | "editor" | "owner", anon = 302): Expect => ({
-  anonymous: anon,
-  viewer: min === "viewer" ? ok : 403,
-  editor: min === "owner" ? 403 : ok,
-  owner: ok,
-  outsider: 404,
-  admin: 404,
 });
 
 interface Case {
