@@ -6,7 +6,7 @@ import type { CliIO, CommandModule } from "./io";
 import { CliError, parseArgs, readInput } from "./io";
 
 const USAGE =
-  "usage: analyse NETWORK.csv [--order A,B,C] [--initial S=1,E=0.1] [--relation 'EXPR; EXPR'] [--timeout SECONDS] [--json]";
+  "usage: analyse NETWORK.csv [--order A,B,C] [--initial S=1,E=0.1] [--relation 'EXPR; EXPR'] [--timeout SECONDS] [--full-basis] [--json]";
 
 /** Reads `S=1,E=0.1` into exact values; every bad entry is reported with its position. */
 export function parseInitial(text: string): Map<string, Rational> {
@@ -43,13 +43,15 @@ export function toJson(r: SteadyStateAnalysis): Record<string, unknown> {
       concentrations: x.concentrations,
       stable: x.stable,
       verdict: x.verdict,
-      eigenvalues: x.eigenvalues.map((e) => (e.im === 0 ? e.re : { re: e.re, im: e.im })),
+      eigenvalues: x.eigenvalues.map((e) => ({ re: e.re, im: e.im })),
       residual: x.residual,
     })) ?? null,
+    steadyStatesReason: r.steadyStatesReason,
     warnings: r.warnings,
     order: r.order,
     ordering: r.ordering,
     groebnerBasisComplete: r.groebnerBasis !== null,
+    groebnerBasisStatus: r.groebnerBasisStatus,
     genericConditions: r.genericConditions,
     triangularForm: r.triangularForm,
     rootsNeeded: r.rootsNeeded,
@@ -58,6 +60,9 @@ export function toJson(r: SteadyStateAnalysis): Record<string, unknown> {
     eliminant: r.eliminant,
     steadyStateSet: r.steadyStateSet,
     positiveSteadyStatesExist: r.positiveSteadyStatesExist,
+    positiveSteadyStatesReason: r.positiveSteadyStatesReason,
+    unfinished: r.unfinished,
+    contradictions: r.contradictions,
     odes: r.odes,
     steadyStateSystem: r.steadyStateSystem,
     parameters: r.parameters,
@@ -100,7 +105,8 @@ export function toReport(r: SteadyStateAnalysis): string {
   section("Absolute concentration robustness");
   lines.push(r.acr.length === 0 ? "  no species found with ACR" : r.acr.map((a) => `  ${a.species} = ${a.value} at every positive steady state`).join("\n"));
   section("Lex Gröbner basis of the saturated steady-state ideal");
-  if (r.groebnerBasis === null) lines.push("  not finished within the budget (see warnings)");
+  if (r.groebnerBasis === null)
+    lines.push(r.groebnerBasisStatus === "skipped" ? "  not computed: the parametrisation describes the steady states (--full-basis computes it)" : "  not finished within the budget (see warnings)");
   else for (const b of r.triangularForm) {
     lines.push(`  ${b.species === null ? "parameters only" : `leading species ${b.species}`}:`);
     for (const p of b.polynomials) lines.push(`    ${p}`);
@@ -114,6 +120,9 @@ export function toReport(r: SteadyStateAnalysis): string {
   if (r.steadyStateSet === "continuum") {
     section("Positive steady states in the class");
     lines.push("  infinitely many: the steady states of this class form a continuum (see warnings)");
+  } else if (r.steadyStates === null && r.steadyStatesReason) {
+    section("Positive steady states in the class");
+    lines.push(`  not listed: ${r.steadyStatesReason}`);
   } else if (r.steadyStates) {
     section(`Positive steady states in the class (${r.steadyStates.length})`);
     if (r.eliminant) lines.push(`  from the real roots of ${r.eliminant.polynomial} (in ${r.eliminant.variable})`);
@@ -123,6 +132,10 @@ export function toReport(r: SteadyStateAnalysis): string {
       lines.push(`  #${i + 1} ${x.verdict}: ${conc}`);
       lines.push(`     eigenvalues on the stoichiometric subspace: ${eig || "(none)"}`);
     });
+  }
+  if (r.unfinished.length > 0) {
+    section("Unfinished stages");
+    for (const u of r.unfinished) lines.push(`  - ${u.stage}: ${u.reason}`);
   }
   if (r.warnings.length > 0) {
     section("Notes and warnings");
@@ -137,7 +150,8 @@ export function toReport(r: SteadyStateAnalysis): string {
  */
 export function run(args: readonly string[], io: CliIO): number {
   const json = args.includes("--json");
-  const { positionals, flags } = parseArgs(args.filter((a) => a !== "--json"), ["order", "initial", "relation", "timeout"]);
+  const fullBasis = args.includes("--full-basis");
+  const { positionals, flags } = parseArgs(args.filter((a) => a !== "--json" && a !== "--full-basis"), ["order", "initial", "relation", "timeout"]);
   if (positionals.length !== 1) throw new CliError(USAGE);
   const timeout = flags.has("timeout") ? Number(flags.get("timeout")) : 20;
   if (!(timeout > 0)) throw new CliError("--timeout expects a positive number of seconds");
@@ -147,7 +161,7 @@ export function run(args: readonly string[], io: CliIO): number {
   let result: SteadyStateAnalysis;
   try {
     const network = parseNetworkCsv(readInput(io, positionals[0]));
-    result = analyseNetwork(network, { order, initial, relations, timeoutMs: timeout * 1000 });
+    result = analyseNetwork(network, { order, initial, relations, timeoutMs: timeout * 1000, fullBasis });
   } catch (e) {
     if (e instanceof NetworkFileError || e instanceof SteadyStateInputError || e instanceof AlgebraError) throw new CliError(e.message);
     throw e;

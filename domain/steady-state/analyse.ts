@@ -6,7 +6,8 @@ import { acrByGroebner, acrSpecies, type AcrSpecies } from "./acr";
 import { Budget, type BudgetOptions, isOutOfBudget } from "./budget";
 import { monomialOf, saturate } from "./ideal";
 import { kineticsRing, type QPoly } from "./kinetics";
-import { numericSteadyStates, type NumericSteadyState } from "./numeric-steady-states";
+import { numericSteadyStates, steadyStatesFromBasis, type NumericSteadyState } from "./numeric-steady-states";
+import { consistencyProblems } from "./consistency";
 import { defaultOrder, resolveOrder, SteadyStateInputError } from "./order";
 import { computeParametrisation } from "./parametrisation";
 import { formatExpression } from "./rational-expression";
@@ -22,8 +23,20 @@ export interface AnalyseOptions extends BudgetOptions {
   readonly initial?: ReadonlyMap<string, Rational>;
   /** Expressions in species and rate constants to test at the positive steady states. */
   readonly relations?: readonly string[];
-  /** Skip the full lex basis of the steady-state system with totals (default false). */
+  /**
+   * Skip the full lex basis of the steady-state system with totals (default false). Without it the
+   * basis is computed only where it is the answer or the quickest route to one: no parametrisation
+   * was found, or the steady states of a numeric class are wanted (see `fullBasis`).
+   */
   readonly skipFullBasis?: boolean;
+  /** Compute the full lex basis even when a parametrisation already describes the steady states. */
+  readonly fullBasis?: boolean;
+}
+
+/** A phase that ran out of time or size: which stage, and what the engine said. */
+export interface UnfinishedStage {
+  readonly stage: "parametrisation" | "groebner" | "steady-states" | "acr" | "relations";
+  readonly reason: string;
 }
 
 /** Plain, JSON-friendly result; the structure part is the network layer's own analysis. */
@@ -35,8 +48,10 @@ export interface SteadyStateAnalysis {
   readonly odes: { readonly species: string; readonly rhs: string }[];
   /** The square steady-state system: kept ODE rows and conservation equations. */
   readonly steadyStateSystem: { readonly equations: string[]; readonly replacedRows: string[] };
-  /** Reduced lex basis of the saturated steady-state ideal (with totals), or null when out of budget. */
+  /** Reduced lex basis of the saturated steady-state ideal (with totals), or null when skipped or out of budget. */
   readonly groebnerBasis: string[] | null;
+  /** "complete"; "skipped" (a parametrisation answers; ask with fullBasis); "unfinished" (out of budget). */
+  readonly groebnerBasisStatus: "complete" | "skipped" | "unfinished";
   readonly ordering: string;
   readonly genericConditions: string[];
   readonly triangularForm: { readonly species: string | null; readonly polynomials: string[] }[];
@@ -45,12 +60,32 @@ export interface SteadyStateAnalysis {
   readonly nonVanishing: string[];
   readonly acr: AcrSpecies[];
   readonly relations: RelationResult[];
-  /** With initial concentrations and every rate value: all positive steady states of the class. */
+  /**
+   * Every positive steady state of the class (numeric rate constants; the class is given by the
+   * initial concentrations, or is the whole space when there is no conservation law), or null when
+   * none are listed; `steadyStatesReason` then says why.
+   */
   readonly steadyStates: NumericSteadyState[] | null;
+  readonly steadyStatesReason: string | null;
   readonly eliminant: { readonly variable: string; readonly polynomial: string } | null;
-  /** "finite": steadyStates lists every positive steady state of the class; "continuum": infinitely many complex solutions, none listed. */
+  /**
+   * "finite": the class has finitely many positive steady states and steadyStates lists them all
+   * (maybe none); "continuum": the class's saturated steady-state ideal has positive dimension
+   * (proven from a Gröbner basis), so there is no finite list; null: not decided (no class, symbolic
+   * constants, or out of budget).
+   */
   readonly steadyStateSet: "finite" | "continuum" | null;
+  /**
+   * true: a positive steady state exists (in the class when one is given, else for some totals);
+   * false: none exists (for these constants, or for any positive constants when infeasibility was proven);
+   * null: not decided. `positiveSteadyStatesReason` says which argument decided it.
+   */
   readonly positiveSteadyStatesExist: boolean | null;
+  readonly positiveSteadyStatesReason: string | null;
+  /** Phases that ran out of time or size, in the order they ran; the result holds what was finished. */
+  readonly unfinished: UnfinishedStage[];
+  /** Contradictions between the result and the theorems it cites (always empty unless there is a bug). */
+  readonly contradictions: string[];
   readonly warnings: string[];
 }
 
@@ -69,6 +104,10 @@ export interface SteadyStateAnalysis {
 export function analyseNetwork(network: Network, options: AnalyseOptions = {}): SteadyStateAnalysis {
   const budget = new Budget(options);
   const warnings: string[] = [];
+  const unfinished: UnfinishedStage[] = [];
+  const ranOut = (stage: UnfinishedStage["stage"], e: unknown) => unfinished.push({ stage, reason: (e as Error).message });
+
+  // Stage: structure and the steady-state system without totals.
   budget.progress("structure", "structure of the network");
   const structure = analyseStructure(network);
   warnings.push(...structure.warnings);
@@ -86,35 +125,51 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
     "Only positive steady states are analysed: the steady-state ideal is saturated by the product of the species, which removes every solution with a zero concentration.",
   );
 
-  // Parametrisation (no totals).
+  // Stage: parametrisation (no totals: one parametrisation serves every class).
   let param: ReturnType<typeof computeParametrisation> | null = null;
   try {
     param = computeParametrisation(kin, odeRows, budget);
     if (param.infeasible) warnings.push(`No positive steady state: ${param.infeasible}.`);
+    if (!param.complete) unfinished.push({ stage: "parametrisation", reason: "the lex Gröbner basis after linear elimination was not finished" });
   } catch (e) {
     if (!isOutOfBudget(e)) throw e;
+    ranOut("parametrisation", e);
     warnings.push(`Parametrisation not finished: ${(e as Error).message}.`);
   }
 
-  // Full lex basis of the system with totals (symbolic, or numeric from the initial concentrations).
+  // The class: fixed by the initial concentrations, or the whole space when nothing is conserved
+  // (an open network's steady states do not depend on where it starts).
   const numericRates = kin.rateParameters.length === 0;
-  const totals = options.initial ? totalsFromInitial(laws, network.species, options.initial) : null;
+  const totals = options.initial ? totalsFromInitial(laws, network.species, options.initial) : laws.length === 0 ? [] : null;
+  const classGiven = totals !== null;
+  const numericClass = classGiven && numericRates;
   const kinT = totals ? kin : kineticsRing(network, { speciesOrder: species, totalCount: laws.length });
   const withTotals = steadyStateSystem(network, kinT, laws, totals);
+
+  // Stage: full lex basis, only where it is the answer (no parametrisation), the route to a numeric
+  // class's steady states, or asked for.
   let basis: QPoly[] | null = null;
-  if (!options.skipFullBasis && withTotals.equations.length > 0) {
+  let basisStatus: SteadyStateAnalysis["groebnerBasisStatus"] = "skipped";
+  const wantBasis = !options.skipFullBasis && (options.fullBasis === true || numericClass || !param?.parametrisation);
+  if (withTotals.equations.length === 0) {
+    basis = [];
+    basisStatus = "complete";
+  } else if (wantBasis) {
     try {
       budget.progress("groebner", "lex Gröbner basis of the saturated steady-state ideal");
       basis = saturate(withTotals.equations, monomialOf(kinT.ring, kinT.species.map((_, i) => i)), budget.groebner(0.25));
+      basisStatus = "complete";
     } catch (e) {
       if (!isOutOfBudget(e)) throw e;
+      basisStatus = "unfinished";
+      ranOut("groebner", e);
       warnings.push(
         `The lex Gröbner basis of the full steady-state system was not finished within the budget (${(e as Error).message}); ` +
-          (param?.parametrisation ? "the parametrisation from linear elimination describes the steady states instead." : "try another --order or fewer symbolic constants."),
+          (param?.parametrisation ? "the parametrisation from linear elimination describes the steady states instead." : "try another order or fewer symbolic constants."),
       );
     }
-  }
-  if (withTotals.equations.length === 0) basis = [];
+  } else if (!options.skipFullBasis)
+    warnings.push("The full lex Gröbner basis was not computed: the parametrisation from linear elimination already describes every positive steady state (ask for the full basis to see it).");
   const conditions = basis ? genericConditions(basis, kinT) : [];
   if (conditions.length > 0)
     warnings.push(`The basis holds for generic parameter values: these leading coefficients must not vanish: ${conditions.join("; ")} (one with all coefficients of one sign never vanishes for positive parameters).`);
@@ -132,61 +187,93 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
       `The saturated ideal contains polynomials in the parameters alone (${parameterOnly.map((g) => kinT.ring.format(g)).join("; ")}): for parameter values where they do not vanish there is no positive steady state.`,
     );
 
-  // Numeric steady states.
+  // Stage: the positive steady states of the class.
   let steadyStates: NumericSteadyState[] | null = null;
+  let steadyStatesReason: string | null = null;
   let eliminant: SteadyStateAnalysis["eliminant"] = null;
   let steadyStateSet: SteadyStateAnalysis["steadyStateSet"] = null;
-  if (options.initial) {
-    if (param?.infeasible) {
-      steadyStates = [];
-      steadyStateSet = "finite";
-    }
-    else if (!numericRates) warnings.push(`Numeric steady states need a value for every rate constant; missing: ${kin.rateParameters.join(", ")}.`);
-    else if (param) {
-      try {
+  let zeroDimensionalBasis = false;
+  let positivePoint: Record<string, number> | null = null;
+  if (!numericRates) {
+    steadyStatesReason = `Listing steady states needs a value for every rate constant; missing: ${kin.rateParameters.join(", ")}.`;
+    if (options.initial) warnings.push(steadyStatesReason);
+  } else if (!classGiven) {
+    steadyStatesReason = `The steady states depend on the totals of the conservation laws (${structure.conservationLaws.map(lawText).join("; ")}): give the initial concentrations to fix them.`;
+  } else if (param?.infeasible || wholeRing) {
+    steadyStates = [];
+    steadyStateSet = "finite";
+  } else {
+    try {
+      let numeric: ReturnType<typeof steadyStatesFromBasis> | null = null;
+      if (basis) numeric = steadyStatesFromBasis(network, withTotals, basis, budget);
+      else if (param) {
         // A pivot of mixed sign might vanish at a positive steady state, which the reduction would
         // then miss: for the complete list, eliminate only through pivots of one sign.
         const complete = param.pivots.some((p) => signPattern(p) === "mixed")
           ? computeParametrisation(kin, odeRows, budget, { definitePivotsOnly: true })
           : param;
-        const numeric = numericSteadyStates(network, withTotals, complete, budget);
-        steadyStates = numeric.states;
-        eliminant = numeric.eliminant;
+        numeric = numericSteadyStates(network, withTotals, complete, budget);
+      } else steadyStatesReason = "Not computed: neither the parametrisation nor the full basis was finished within the budget.";
+      if (numeric) {
+        zeroDimensionalBasis = basis !== null && numeric.status === "finite";
         steadyStateSet = numeric.status === "finite" ? "finite" : "continuum";
+        steadyStates = numeric.status === "finite" ? numeric.states : null;
+        eliminant = numeric.eliminant;
+        positivePoint = numeric.positivePoint ?? null;
         warnings.push(...numeric.warnings);
-      } catch (e) {
-        if (!isOutOfBudget(e) && !(e instanceof AlgebraError && e.code === "domain")) throw e;
-        warnings.push(`Numeric steady states not finished: ${(e as Error).message}.`);
+        if (steadyStateSet === "continuum")
+          steadyStatesReason = "The class's steady states form a continuum (its saturated steady-state ideal has positive dimension): there is no finite list.";
       }
+    } catch (e) {
+      if (!isOutOfBudget(e) && !(e instanceof AlgebraError && e.code === "domain")) throw e;
+      ranOut("steady-states", e);
+      steadyStatesReason = `Not finished: ${(e as Error).message}.`;
+      warnings.push(`Numeric steady states not finished: ${(e as Error).message}.`);
     }
   }
 
-  // ACR and relations.
+  // Stage: robustness (ACR).
   const acr = param ? acrSpecies(kin, param) : [];
   // Species the elimination left as unknowns without a parametrisation: one block-order basis each.
   if (param && param.complete && !param.parametrisation && !param.infeasible)
     for (const s of param.unknowns) {
       try {
         budget.progress("acr", `testing ${s} for absolute concentration robustness`);
-        const found = acrByGroebner(kin, odeRows, s, budget.groebner(0.2));
+        const found = acrByGroebner(kin, odeRows, s, budget.groebner(0.2, "acr"));
         if (found) acr.push(found);
       } catch (e) {
         if (!isOutOfBudget(e)) throw e;
+        ranOut("acr", e);
         warnings.push(`ACR of ${s} not decided: ${(e as Error).message}.`);
       }
     }
   acr.sort((a, b) => network.species.indexOf(a.species) - network.species.indexOf(b.species));
+
+  // Stage: relation tests.
   const relations: RelationResult[] = [];
   for (const text of options.relations ?? []) {
     try {
       budget.progress("relations", `testing ${text}`);
-      relations.push(testRelation(text, kin, odeRows, budget.groebner(0.5)));
+      relations.push(testRelation(text, kin, odeRows, budget.groebner(0.5, "relations")));
     } catch (e) {
       if (e instanceof AlgebraError && e.code === "parse") throw new SteadyStateInputError(`relation '${text}': ${e.message}`);
       if (!isOutOfBudget(e)) throw e;
+      ranOut("relations", e);
       warnings.push(`Relation ${text} not decided: ${(e as Error).message}.`);
     }
   }
+
+  const existence = positiveExistence({ param, wholeRing, steadyStates, steadyStateSet, classGiven, noLaws: laws.length === 0, numericRates, positivePoint });
+  const positiveClass = laws.length === 0 || (options.initial !== undefined && network.species.every((s) => (options.initial!.get(s)?.num ?? 0n) > 0n));
+  const contradictions = consistencyProblems({
+    structure,
+    steadyStates,
+    steadyStateSet,
+    positiveSteadyStatesExist: existence.exists,
+    positiveClass,
+    numericRates,
+    zeroDimensionalBasis,
+  });
 
   const order = { species, suggested: suggested.order, reason: suggested.reason, userGiven: options.order !== undefined };
   const values: Record<string, string> = {};
@@ -201,6 +288,7 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
       replacedRows: kin.species.filter((_, i) => !withTotals.keptRows.includes(i)),
     },
     groebnerBasis: basis ? basis.map((p) => kinT.ring.format(p)) : null,
+    groebnerBasisStatus: basisStatus,
     ordering: `${kinT.ring.vars.join(" > ")} (${kinT.ring.orderName})`,
     genericConditions: conditions,
     triangularForm: basis ? triangularForm(basis, kinT).map((b) => ({ species: b.species, polynomials: b.polynomials.map((p) => kinT.ring.format(p)) })) : [],
@@ -216,9 +304,58 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
     acr,
     relations,
     steadyStates,
+    steadyStatesReason,
     eliminant,
     steadyStateSet,
-    positiveSteadyStatesExist: param?.infeasible ? false : steadyStates && steadyStateSet === "finite" ? steadyStates.length > 0 : null,
+    positiveSteadyStatesExist: existence.exists,
+    positiveSteadyStatesReason: existence.reason,
+    unfinished,
+    contradictions,
     warnings: [...warnings, ...(param?.notes ?? [])],
   };
+}
+
+/** "E + C" for a conservation law given as species → coefficient. */
+function lawText(law: Record<string, number>): string {
+  return Object.entries(law)
+    .map(([s, c], i) => `${c < 0 ? (i === 0 ? "-" : " - ") : i === 0 ? "" : " + "}${Math.abs(c) === 1 ? "" : Math.abs(c)}${s}`)
+    .join("");
+}
+
+/**
+ * Whether a positive steady state exists, and the argument that decides it: a proof of
+ * infeasibility, the complete list of the class, a positive point proven on a continuum, or a positive parametrisation (every positive
+ * value of the free species gives a positive steady state — in the class those values determine,
+ * which is the given class when nothing is conserved).
+ */
+function positiveExistence(r: {
+  param: ReturnType<typeof computeParametrisation> | null;
+  wholeRing: boolean;
+  steadyStates: readonly NumericSteadyState[] | null;
+  steadyStateSet: SteadyStateAnalysis["steadyStateSet"];
+  classGiven: boolean;
+  noLaws: boolean;
+  numericRates: boolean;
+  positivePoint: Record<string, number> | null;
+}): { exists: boolean | null; reason: string | null } {
+  if (r.param?.infeasible)
+    return { exists: false, reason: `No positive steady state${r.numericRates ? "" : " for any positive rate constants"}: ${r.param.infeasible}.` };
+  if (r.wholeRing) return { exists: false, reason: "The saturated steady-state ideal is the whole ring." };
+  if (r.steadyStateSet === "finite" && r.steadyStates)
+    return { exists: r.steadyStates.length > 0, reason: `The complete list of the class's positive steady states has ${r.steadyStates.length}.` };
+  const positive = r.param?.parametrisation?.positive === true;
+  if (positive && (!r.classGiven || r.noLaws))
+    return {
+      exists: true,
+      reason: r.classGiven
+        ? "The parametrisation is positive and nothing is conserved: every positive value of the free species is a positive steady state."
+        : "The parametrisation is positive: every positive value of the free species gives a positive steady state (of the class it lies in).",
+    };
+  if (r.steadyStateSet === "continuum" && r.positivePoint)
+    return {
+      exists: true,
+      reason: `The continuum meets the positive orthant: for example ${Object.entries(r.positivePoint).map(([k, v]) => `${k} = ${v.toPrecision(6)}`).join(", ")} (a positive root of a finite slice, isolated exactly).`,
+    };
+  if (r.steadyStateSet === "continuum") return { exists: null, reason: "A continuum of complex solutions; whether it meets the positive orthant of this class is not decided." };
+  return { exists: null, reason: null };
 }

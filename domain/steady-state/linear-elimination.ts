@@ -1,6 +1,6 @@
 import { isZeroPoly, neg } from "../algebra/index";
 import type { KineticsRing, QPoly } from "./kinetics";
-import { coefficientsIn, degreeIn, exactQuotient, normaliseEquation, signPattern, substituteFraction, variablesOf } from "./poly-tools";
+import { coefficientsIn, degreeIn, divideOut, normaliseEquation, signPattern, substituteFraction, variablesOf } from "./poly-tools";
 import { type RationalExpression, composeExpression, simplifyFraction } from "./rational-expression";
 
 /** One species solved from one equation in which it occurs linearly. */
@@ -107,12 +107,7 @@ export function linearElimination(kin: KineticsRing, equations: readonly QPoly[]
     eqs = eqs
       .filter((_, i) => i !== eq)
       .map((e) => {
-        let v = substituteFraction(e, x, num, a).value;
-        for (;;) {
-          const q = a.coeffs.length > 1 ? exactQuotient(v, a) : null;
-          if (!q) break;
-          v = q;
-        }
+        const v = divideOut(substituteFraction(e, x, num, a).value, a);
         return normaliseEquation(v, isSpecies);
       })
       .filter((e) => !isZeroPoly(e));

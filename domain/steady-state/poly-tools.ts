@@ -79,6 +79,27 @@ export function signPattern(p: QPoly): SignPattern {
   return p.coeffs.every((c) => c.num < 0n) ? "negative" : "mixed";
 }
 
+/**
+ * p with every factor f removed: divides by f while f divides exactly. The zero polynomial and
+ * constant f are returned unchanged (0 is divisible by everything, so a loop "divide while
+ * exact" never ends on 0: the cause of an endless analysis once). At most deg(p) divisions.
+ * Example: divideOut((x − 1)^2·(x + 1), x − 1) = x + 1; divideOut(0, x − 1) = 0.
+ */
+export function divideOut(p: QPoly, f: QPoly): QPoly {
+  if (p.coeffs.length === 0 || f.coeffs.length <= 1 && (f.coeffs.length === 0 || [...variablesOf(f)].length === 0)) return p;
+  for (;;) {
+    const q = exactQuotient(p, f);
+    if (!q || q.coeffs.length === 0 || q.coeffs.length === p.coeffs.length && equalTerms(q, p)) return p;
+    p = q;
+  }
+}
+
+function equalTerms(a: QPoly, b: QPoly): boolean {
+  if (a.coeffs.length !== b.coeffs.length) return false;
+  for (let i = 0; i < a.exps.length; i++) if (a.exps[i] !== b.exps[i]) return false;
+  return a.coeffs.every((c, i) => c.num === b.coeffs[i].num && c.den === b.coeffs[i].den);
+}
+
 /** p / q when q divides p exactly, else null. Example: exactQuotient(x^2 − y^2, x + y) = x − y. */
 export function exactQuotient(p: QPoly, q: QPoly): QPoly | null {
   if (q.coeffs.length === 0) return null;

@@ -41,7 +41,7 @@ export interface ZeroDimensionalSolution {
  * of g_i at both interval ends until every coordinate has a certain sign and ≥ 1e-14 relative accuracy.
  * Example: {x·y − 2, x + y − 3} gives the points (1, 2) and (2, 1).
  */
-export function positiveSolutions(polys: readonly QPoly[], options: GroebnerOptions & { extraSaturation?: QPoly } = {}): ZeroDimensionalSolution {
+export function positiveSolutions(polys: readonly QPoly[], options: GroebnerOptions & { extraSaturation?: QPoly; saturated?: boolean } = {}): ZeroDimensionalSolution {
   const ring = polys[0].ring;
   const all = ring.vars.map((_, i) => i);
   let sat = monomialOf(ring, all);
@@ -49,7 +49,8 @@ export function positiveSolutions(polys: readonly QPoly[], options: GroebnerOpti
   const lexRing = ring.orderName === "lex" ? ring : ring.withOrder("lex");
   const gens = ring === lexRing ? polys : polys.map((p) => fromTerms(lexRing, terms(p)));
   const satLex = ring === lexRing ? sat : fromTerms(lexRing, terms(sat));
-  const basis = saturate(gens, satLex, options);
+  // `saturated`: the input already is the reduced lex basis of a saturated ideal (no second pass).
+  const basis = options.saturated && ring === lexRing ? [...gens] : saturate(gens, satLex, options);
   if (basis.length === 0) return { status: "positive-dimensional", points: [], basis, eliminant: null };
   if (basis.length === 1 && terms(basis[0]).length === 1 && basis[0].exps[0] === 0) return { status: "empty", points: [], basis, eliminant: null };
   if (!isZeroDimensional(basis)) return { status: "positive-dimensional", points: [], basis, eliminant: null };

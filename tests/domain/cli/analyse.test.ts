@@ -44,7 +44,11 @@ describe("cli analyse --json", () => {
     expect(j.parametrisation).toEqual({ free: ["B"], expressions: { A: "k2/k1" }, positive: true });
     expect(j.acr).toEqual([{ species: "A", value: "k2/k1" }]);
     expect(j.order.species).toEqual(["A", "B"]);
-    expect(j.groebnerBasis).toContain("A + B - T1");
+    // The parametrisation answers, so the full basis is computed only on request.
+    expect(j.groebnerBasisStatus).toBe("skipped");
+    const full = JSON.parse((await cli(["analyse", "n.csv", "--json", "--order", "A,B", "--full-basis"], { "n.csv": csv })).out);
+    expect(full.groebnerBasisStatus).toBe("complete");
+    expect(full.groebnerBasis).toContain("A + B - T1");
   });
 
   it("runs as a real process through npm run -s cli (exit code 0, JSON on stdout)", () => {

@@ -14,7 +14,7 @@ describe("analyseNetwork: budget, progress and cancellation", () => {
   });
 
   it("a size budget on Gröbner bases turns the full basis into a warning, not a failure", () => {
-    const r = analyseNetwork(network, { maxBasisSize: 3, timeoutMs: 30_000 });
+    const r = analyseNetwork(network, { maxBasisSize: 3, timeoutMs: 30_000, fullBasis: true });
     expect(r.groebnerBasis).toBeNull();
     expect(r.warnings.some((w) => w.includes("not finished within the budget"))).toBe(true);
     expect(r.parametrisation?.positive).toBe(true);

@@ -18,10 +18,15 @@ describe("numeric steady states of a class", () => {
 
   it("a continuum of steady states in one class is reported, not listed: A + B -> 2A and A + B -> 2B at equal rates", () => {
     const r = analyseCsv("reaction,rate,rate_value\nA + B -> 2A,k1,1\nA + B -> 2B,k2,1\n", { initial: initial("A=1,B=1") });
-    expect(r.steadyStates).toEqual([]);
+    // Not an empty list (a client would read "none"): no list, with the reason.
+    expect(r.steadyStates).toBeNull();
+    expect(r.steadyStatesReason).toContain("continuum");
     expect(r.warnings.some((w) => w.includes("continuum"))).toBe(true);
     expect(r.steadyStateSet).toBe("continuum");
-    expect(r.positiveSteadyStatesExist).toBeNull();
+    // Every point with A + B = 2 is a steady state, so positive ones exist (A = B = 1 among them).
+    expect(r.positiveSteadyStatesExist).toBe(true);
+    expect(r.positiveSteadyStatesReason).toMatch(/positive orthant/);
+    expect(r.contradictions).toEqual([]);
   });
 
   it("A + B <-> 2A (k1 = k2 = 1) in the class A + B = 2 has the one state A = B = 1", () => {
