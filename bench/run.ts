@@ -29,6 +29,8 @@ function readSystem(s: BenchSystem): SystemFile {
 }
 
 async function main(): Promise<number> {
+  // `--truth` has options of its own (bench/truth.ts).
+  if (process.argv.includes("--truth")) return (await import("./truth")).runTruth(process.argv.slice(2));
   const o = parseBenchOptions(process.argv.slice(2));
   if (o.help) {
     console.log(USAGE);

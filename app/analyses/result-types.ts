@@ -3,6 +3,7 @@ export interface StoredSteadyState {
   concentrations: Record<string, number>;
   stable: boolean | null;
   verdict: string;
+  /** Always { re, im } objects; results stored before that shape may hold plain numbers for real ones. */
   eigenvalues: (number | { re: number; im: number })[];
   residual: number;
 }
@@ -18,9 +19,12 @@ export interface AnalysisResult {
   conservationLaws: Record<string, number>[];
   groebnerBasis: string[];
   groebnerBasisComplete: boolean;
+  /** Missing in results stored before it existed. */
+  groebnerBasisStatus?: "complete" | "skipped" | "unfinished";
   parametrisation: { free: string[]; expressions: Record<string, string>; positive: boolean } | null;
   acr: { species: string; value: string }[];
   steadyStates: StoredSteadyState[] | null;
+  steadyStatesReason?: string | null;
   warnings: string[];
   order: { species: string[]; suggested: string[]; reason: string; userGiven: boolean };
   ordering: string;
@@ -32,6 +36,9 @@ export interface AnalysisResult {
   eliminant: { variable: string; polynomial: string } | null;
   steadyStateSet: "finite" | "continuum" | null;
   positiveSteadyStatesExist: boolean | null;
+  positiveSteadyStatesReason?: string | null;
+  unfinished?: { stage: string; reason: string }[];
+  contradictions?: string[];
   parameters: { rateConstants: string[]; totals: string[]; values: Record<string, string> };
 }
 

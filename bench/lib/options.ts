@@ -48,6 +48,8 @@ export const USAGE = `npm run bench -- [options]
   --analyse         instead of the systems: our analyse of the two-site phosphorylation cycle with
                     twelve symbolic rate constants (parametrisation, checked) next to Singular's
                     brute-force block-order std of the same steady-state system
+  --truth           instead: positive steady-state counts of analyse on seeded random networks against
+                    multistart Newton and Singular (--count N, default 300; --seed S; --timeout S per network)
   --help            this text`;
 
 export class BenchOptionError extends Error {}

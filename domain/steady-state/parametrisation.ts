@@ -79,10 +79,22 @@ export function computeParametrisation(
     }
     notes.push(`A lex Gröbner basis of the remaining ${remaining.length} equation(s), saturated by the species product and the pivots, has ${basis.length} element(s).`);
     const second = linearElimination(kin, basis, { check: () => budget.check("linear elimination"), ...options });
+    if (second.infeasible)
+      // Decided before composing: the later solutions may lie where an earlier pivot vanishes.
+      return { parametrisation: null, eliminated, unknowns, remaining: second.remaining, rootsNeeded: [], pivots, infeasible: second.infeasible, complete: true, notes };
     pivots.push(...second.eliminated.map((e) => e.pivot));
     for (const later of second.eliminated) {
       const k = ring.indexOf(later.species);
-      eliminated = eliminated.map((e) => ({ ...e, expression: composeExpression(e.expression, k, later.expression.num, later.expression.den, pivots) }));
+      const composed = eliminated.map((e) => ({ ...e, expression: composeExpression(e.expression, k, later.expression.num, later.expression.den, pivots) }));
+      const vanished = composed.find((e) => isZeroPoly(e.expression.den));
+      if (vanished) {
+        // The pivot used for an earlier species is zero wherever the remaining equations hold. A
+        // pivot of mixed sign was saturated away, so this one has one sign and is non-zero at every
+        // positive point: the remaining solutions are not positive.
+        const infeasibleNow = `solving ${later.species} makes the elimination pivot of ${vanished.species} vanish identically, which a positive point cannot do (the pivot has coefficients of one sign)`;
+        return { parametrisation: null, eliminated, unknowns, remaining: second.remaining, rootsNeeded: [], pivots, infeasible: infeasibleNow, complete: true, notes };
+      }
+      eliminated = composed;
     }
     eliminated.push(...second.eliminated);
     unknowns = second.remainingSpecies.filter((s) => first.remainingSpecies.includes(s));

@@ -17,6 +17,8 @@ export interface RationalExpression {
  */
 export function simplifyFraction(num: QPoly, den: QPoly, candidates: readonly QPoly[] = []): RationalExpression {
   const ring = num.ring;
+  // A zero denominator is the caller's to judge (a pivot that vanished); keep it visible.
+  if (isZeroPoly(den)) return { num, den };
   if (isZeroPoly(num)) return { num, den: ring.one() };
   const tn = terms(num);
   const td = terms(den);

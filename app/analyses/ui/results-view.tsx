@@ -38,7 +38,11 @@ export function ResultsView({ view, result }: { view: ResultView; result: Analys
     <div className="space-y-6" data-testid="results">
       <Block id="triangular" title="Triangular system (lex Gröbner basis)">
         <p className="text-sm text-muted">
-          Ring order {result.ordering}. {result.groebnerBasisComplete ? `${result.groebnerBasis.length} polynomials, grouped by leading species.` : "Not finished within the budget (see the notes)."}
+          Ring order {result.ordering}. {result.groebnerBasisComplete
+            ? `${result.groebnerBasis.length} polynomials, grouped by leading species.`
+            : result.groebnerBasisStatus === "skipped"
+              ? "Not computed: the parametrisation below already describes every positive steady state."
+              : "Not finished within the budget (see the notes)."}
         </p>
         {view.triangular.map((b, i) => (
           <div key={i} className="rounded-md border border-line bg-surface px-4 py-2">
@@ -143,7 +147,23 @@ export function ResultsView({ view, result }: { view: ResultView; result: Analys
           </div>
         </Block>
       )}
-      {result.steadyStateSet === "continuum" && <p className="text-sm">The steady states of this class form a continuum; none are listed.</p>}
+      {result.steadyStates === null && (result.steadyStateSet === "continuum" || result.steadyStatesReason) && (
+        <p className="text-sm" data-testid="steady-states-reason">
+          {result.steadyStatesReason ?? "The steady states of this class form a continuum; none are listed."}
+        </p>
+      )}
+      {(result.unfinished ?? []).length > 0 && (
+        <Block id="unfinished" title="Unfinished stages">
+          <p className="text-sm text-muted">These stages ran out of time or size; everything above them was finished.</p>
+          <ul className="ml-5 list-disc space-y-1 text-sm" data-testid="unfinished">
+            {result.unfinished!.map((u, i) => (
+              <li key={i}>
+                <span className="font-medium">{u.stage}</span>: {u.reason}
+              </li>
+            ))}
+          </ul>
+        </Block>
+      )}
       <Block id="notes" title="Notes and warnings">
         <ul className="ml-5 list-disc space-y-1 text-sm text-muted" data-testid="warnings">
           {result.warnings.map((w, i) => (

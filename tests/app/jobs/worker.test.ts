@@ -19,13 +19,15 @@ describe.skipIf(!hasTestDatabase)("background worker", () => {
   let t: TestDatabase;
   let team: Awaited<ReturnType<typeof makeTeam>>;
   let worker: RunningWorker | undefined;
-  const nets = {} as Record<"cubic" | "twoSite", string>;
+  const nets = {} as Record<"cubic" | "slow", string>;
 
   beforeAll(async () => {
     t = await setUpAccountsDb();
     team = await makeTeam(t.db);
     nets.cubic = (await makeNetwork(t.db, team.lab.id, team.owner.id, "cubic", fixtureCsv("cubic-autocatalysis"))).versionId;
-    nets.twoSite = (await makeNetwork(t.db, team.lab.id, team.owner.id, "two-site", fixtureCsv("two-site-phosphorylation"))).versionId;
+    // Slow by construction (3^10 positive steady states to list; see the fixture's header), so these
+    // tests do not depend on how fast the engine is.
+    nets.slow = (await makeNetwork(t.db, team.lab.id, team.owner.id, "ten switches", fixtureCsv("ten-switches"))).versionId;
   });
   afterAll(async () => {
     await worker?.stop();
@@ -72,7 +74,7 @@ describe.skipIf(!hasTestDatabase)("background worker", () => {
   }, 40_000);
 
   it("cancels a running job: the child process is killed and the row says so", async () => {
-    const id = await job(nets.twoSite, analysisParams({ rateMode: "symbolic" }), 60);
+    const id = await job(nets.slow, analysisParams(), 60);
     await waitFor(async () => (await row(id)).status === "running", 20_000, "running");
     await new Promise((r) => setTimeout(r, 1000));
     expect(await requestCancel(asAnalysesDb(t.db), id)).toBe("running");
@@ -87,11 +89,10 @@ describe.skipIf(!hasTestDatabase)("background worker", () => {
     expect((await row(r.id)).status).toBe("cancelled");
   });
 
-  it("a lex computation that blows up is stopped by the time limit with a clear message", async () => {
-    // Two-site phosphorylation with all twelve rate constants symbolic: the block-order lex basis of
-    // the full system does not finish (see issue 4's benchmark note); limit 3 s.
+  it("a computation that cannot finish is stopped by the time limit with a clear message", async () => {
+    // Listing 3^10 steady states cannot finish in the limit of 3 s.
     const started = Date.now();
-    const id = await job(nets.twoSite, analysisParams({ rateMode: "symbolic" }), 3);
+    const id = await job(nets.slow, analysisParams(), 3);
     const done = await finished(id, 30_000);
     expect(Date.now() - started).toBeLessThan(20_000);
     const said = `${done.error ?? ""} ${JSON.stringify((done.result as { warnings?: string[] } | null)?.warnings ?? [])}`;
@@ -102,7 +103,7 @@ describe.skipIf(!hasTestDatabase)("background worker", () => {
     await worker!.stop();
     // The engine is told 20× the limit, so only the worker's hard kill can stop it at 2 s (+0.5 s grace).
     worker = await startWorker({ databaseUrl: t.url, heartbeatMs: 200, graceMs: 500, engineDeadlineFactor: 20, sweepEveryMs: 500, staleAfterMs: 3000, pollSeconds: 0.5, log: () => {} });
-    const id = await job(nets.twoSite, analysisParams({ rateMode: "symbolic" }), 2);
+    const id = await job(nets.slow, analysisParams(), 2);
     const done = await finished(id, 30_000);
     expect(done.status).toBe("failed");
     expect(done.error).toMatch(/^Stopped: the time limit of 2 s was exceeded during /);
@@ -112,7 +113,7 @@ describe.skipIf(!hasTestDatabase)("background worker", () => {
 
   it("a worker stopped cleanly hands its running job back without using up an attempt", async () => {
     worker = await startWorker({ databaseUrl: t.url, heartbeatMs: 200, graceMs: 1000, sweepEveryMs: 500, staleAfterMs: 3000, pollSeconds: 0.5, log: () => {} });
-    const id = await job(nets.twoSite, analysisParams({ rateMode: "symbolic" }), 3);
+    const id = await job(nets.slow, analysisParams(), 3);
     await waitFor(async () => (await row(id)).status === "running", 20_000, "running");
     await worker.stop();
     worker = undefined;
@@ -121,14 +122,16 @@ describe.skipIf(!hasTestDatabase)("background worker", () => {
     worker = await startWorker({ databaseUrl: t.url, heartbeatMs: 200, graceMs: 1000, sweepEveryMs: 500, staleAfterMs: 3000, pollSeconds: 0.5, log: () => {} });
     const done = await finished(id, 30_000);
     expect(done.attempts).toBe(1);
-    expect(["succeeded", "failed"]).toContain(done.status);
+    // The engine's own deadline ends it first: a result whose unfinished stages say so.
+    expect(done.status).toBe("succeeded");
+    expect((done.result as { unfinished: unknown[] }).unfinished.length).toBeGreaterThan(0);
     await worker.stop();
     worker = undefined;
   }, 60_000);
 
   it("recovers jobs whose worker process was killed mid-run: retried, or failed with the reason", async () => {
-    const retried = await job(nets.twoSite, analysisParams({ rateMode: "symbolic" }), 3);
-    const lastTry = await job(nets.twoSite, analysisParams({ rateMode: "symbolic" }), 3);
+    const retried = await job(nets.slow, analysisParams(), 3);
+    const lastTry = await job(nets.slow, analysisParams(), 3);
     await asAnalysesDb(t.db).updateTable("analyses").set({ max_attempts: 1 }).where("id", "=", lastTry).execute();
     // A separate worker process, killed with SIGKILL once both jobs run (no chance to clean up).
     const proc: ChildProcess = spawn("npx", ["tsx", "app/jobs/worker.server.ts"], {
