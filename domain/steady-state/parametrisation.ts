@@ -82,24 +82,28 @@ export function computeParametrisation(
     if (second.infeasible)
       // Decided before composing: the later solutions may lie where an earlier pivot vanishes.
       return { parametrisation: null, eliminated, unknowns, remaining: second.remaining, rootsNeeded: [], pivots, infeasible: second.infeasible, complete: true, notes };
-    pivots.push(...second.eliminated.map((e) => e.pivot));
+    let composed = eliminated;
+    let degenerate: string | null = null;
     for (const later of second.eliminated) {
       const k = ring.indexOf(later.species);
-      const composed = eliminated.map((e) => ({ ...e, expression: composeExpression(e.expression, k, later.expression.num, later.expression.den, pivots) }));
+      composed = composed.map((e) => ({ ...e, expression: composeExpression(e.expression, k, later.expression.num, later.expression.den, [...pivots, ...second.eliminated.map((x) => x.pivot)]) }));
       const vanished = composed.find((e) => isZeroPoly(e.expression.den));
       if (vanished) {
-        // The pivot used for an earlier species is zero wherever the remaining equations hold. A
-        // pivot of mixed sign was saturated away, so this one has one sign and is non-zero at every
-        // positive point: the remaining solutions are not positive.
-        const infeasibleNow = `solving ${later.species} makes the elimination pivot of ${vanished.species} vanish identically, which a positive point cannot do (the pivot has coefficients of one sign)`;
-        return { parametrisation: null, eliminated, unknowns, remaining: second.remaining, rootsNeeded: [], pivots, infeasible: infeasibleNow, complete: true, notes };
+        degenerate = `substituting ${later.species} makes the denominator of ${vanished.species} vanish on the remaining solutions`;
+        break;
       }
-      eliminated = composed;
     }
-    eliminated.push(...second.eliminated);
-    unknowns = second.remainingSpecies.filter((s) => first.remainingSpecies.includes(s));
-    remaining = second.remaining;
-    infeasible = second.infeasible;
+    if (degenerate) {
+      // The earlier expression becomes 0/0 there, not infeasible: keep the first round's
+      // elimination and the saturated basis as the equations left in its unknowns.
+      notes.push(`No rational parametrisation: ${degenerate}; the ${basis.length} basis polynomial(s) stay as equations in ${unknowns.join(", ")}.`);
+      remaining = basis;
+    } else {
+      pivots.push(...second.eliminated.map((e) => e.pivot));
+      eliminated = [...composed, ...second.eliminated];
+      unknowns = second.remainingSpecies.filter((s) => first.remainingSpecies.includes(s));
+      remaining = second.remaining;
+    }
     if (basis.length === 1 && basis[0].coeffs.length === 1 && basis[0].exps.every((e) => e === 0))
       infeasible = "the saturated steady-state ideal is the whole ring: no positive steady state (for generic parameter values)";
   }
