@@ -50,7 +50,7 @@ function Column({ s, labSlug }: { s: Side; labSlug: string }) {
           <h3 className="font-semibold">Parametrisation</h3>
           {s.view.parametrisation ? s.view.parametrisation.rows.map((row) => <div key={row.species}><Tex tex={row.tex} /></div>) : <p className="text-sm text-muted">none</p>}
           <h3 className="font-semibold">Triangular system</h3>
-          <p className="text-sm">{r.groebnerBasisComplete ? `${r.groebnerBasis.length} polynomials` : "not finished"}</p>
+          <p className="text-sm">{r.groebnerBasisComplete ? `${r.groebnerBasis.length} polynomials` : r.groebnerBasisStatus === "skipped" ? "not computed (the parametrisation answers)" : "not finished"}</p>
           <h3 className="font-semibold">ACR</h3>
           <p className="text-sm">{r.acr.length === 0 ? "none" : r.acr.map((x) => `${x.species} = ${x.value}`).join("; ")}</p>
           <h3 className="font-semibold">Positive steady states</h3>

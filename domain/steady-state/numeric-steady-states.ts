@@ -128,7 +128,7 @@ export function numericSteadyStates(network: Network, sys: SteadyStateSystem, pa
     }
     return x;
   });
-  return { states: classifyPoints(network, sys, xs), status, eliminant, warnings };
+  return { states: classifyPoints(network, sys, xs, budget), status, eliminant, warnings };
 }
 
 const CONTINUUM_WARNING =
@@ -159,7 +159,7 @@ export function steadyStatesFromBasis(network: Network, sys: SteadyStateSystem, 
     kin.species.forEach((s, i) => (x[kin.ring.indexOf(s)] = pt[i]));
     return x;
   });
-  return { states: classifyPoints(network, sys, xs), status: "finite", eliminant: solved.eliminant, warnings: [] };
+  return { states: classifyPoints(network, sys, xs, budget), status: "finite", eliminant: solved.eliminant, warnings: [] };
 }
 
 /**
@@ -212,7 +212,7 @@ function freeVariables(polys: readonly QPoly[], fixed: ReadonlyMap<number, Ratio
  * not positive and finite are dropped; each state gets the eigenvalues of its Jacobian restricted
  * to the stoichiometric subspace im N and a stability verdict.
  */
-function classifyPoints(network: Network, sys: SteadyStateSystem, points: readonly number[][]): NumericSteadyState[] {
+function classifyPoints(network: Network, sys: SteadyStateSystem, points: readonly number[][], budget: Budget): NumericSteadyState[] {
   const { kin } = sys;
   const ring = kin.ring;
   const all = kin.species.map((_, i) => i);
@@ -221,6 +221,7 @@ function classifyPoints(network: Network, sys: SteadyStateSystem, points: readon
   const n = stoichiometricRows(network, kin.species);
   const states: NumericSteadyState[] = [];
   for (const start of points) {
+    budget.check("stability of the steady states");
     let x = start;
     const polished = newton((v) => ({ f: full.values(v), jacobian: full.jacobian(v) }), x, { maxIterations: 2, residualTol: 0 });
     const close = polished.x.every((v, i) => Math.abs(v - x[i]) <= 1e-8 * Math.max(Math.abs(x[i]), 1e-300));

@@ -103,6 +103,9 @@ export function positiveSolutions(polys: readonly QPoly[], options: GroebnerOpti
   const points: number[][] = [];
   const roots = isolateRealRoots(shape.eliminant, { positiveOnly: true, deadline: options.deadline, signal: options.signal });
   for (const root of roots) {
+    // Refining a root costs up to 1024-bit evaluations: look at the deadline between roots.
+    if (options.signal?.aborted) throw new AlgebraError("cancelled", "positive solutions: cancelled");
+    if (options.deadline !== undefined && Date.now() > options.deadline) throw new AlgebraError("timeout", "positive solutions: deadline exceeded while refining the roots");
     const coords = coordinatesAt(shape, root, last);
     if (!coords) throw new AlgebraError("budget", "positive solutions: a coordinate's sign was not certified after refining a root to 1024 bits");
     if (coords.every((v) => v > 0)) points.push(coordinateOf(coords));

@@ -119,7 +119,9 @@ describe.skipIf(!hasTestDatabase)("background worker", () => {
     worker = undefined;
     const back = await row(id);
     expect([back.status, back.attempts, back.worker_id]).toEqual(["queued", 0, null]);
-    worker = await startWorker({ databaseUrl: t.url, heartbeatMs: 200, graceMs: 1000, sweepEveryMs: 500, staleAfterMs: 3000, pollSeconds: 0.5, log: () => {} });
+    // The engine stops at half the limit, far from the hard kill (the child's start-up counts against
+    // the limit too), so the outcome is the engine's own: a result with its unfinished stages.
+    worker = await startWorker({ databaseUrl: t.url, heartbeatMs: 200, graceMs: 1000, engineDeadlineFactor: 0.5, sweepEveryMs: 500, staleAfterMs: 3000, pollSeconds: 0.5, log: () => {} });
     const done = await finished(id, 30_000);
     expect(done.attempts).toBe(1);
     // The engine's own deadline ends it first: a result whose unfinished stages say so.
