@@ -67,7 +67,7 @@ describe.skipIf(!hasApp)("accounts: sign-in, labs and invitations in headless ch
     expect(new URL(page.url()).pathname).toBe(new URL(acceptUrl).pathname);
     await page.getByRole("button", { name: "Accept invitation" }).click();
     await page.waitForURL((u) => u.pathname === labPath);
-    expect(await page.getByText("You are").innerText()).toContain("viewer");
+    await expect.poll(() => page.getByText("You are").innerText()).toContain("viewer");
     expect(await page.getByTestId("active-lab").innerText()).toBe(labName);
   });
 

@@ -172,7 +172,8 @@ describe.skipIf(!hasApp)("analyses in headless chromium", () => {
     await page.getByRole("button", { name: "Compare" }).click();
     await page.waitForURL(/\/analyses\/compare\?/);
     const columns = page.getByTestId("compare-column");
-    expect(await columns.count()).toBe(2);
+    // The URL changes before the comparison renders: wait for its columns.
+    await expect.poll(() => columns.count()).toBe(2);
     expect(await columns.nth(0).innerText()).toMatch(/symbolic rates/);
     expect(await columns.nth(1).innerText()).toMatch(/numeric rates/);
     await shot(page, "05b-compare");
