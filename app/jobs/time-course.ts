@@ -1,7 +1,7 @@
 /**
  * Time courses of the mass-action ODEs with numeric rate constants, for the "does the trajectory
  * settle?" check: dx/dt = Σ_j (y'_j − y_j) k_j Π_s x_s^{y_js} (Horn & Jackson 1972, eq. 2.5),
- * integrated by domain/numeric's Rosenbrock ode23s pair (Shampine & Reichelt 1997).
+ * integrated by domain/numeric's Rosenbrock method of order 2(3) (Shampine & Reichelt, SIAM J. Sci. Comput. 18, 1997).
  */
 import { integrateStiff } from "@domain/numeric/index";
 import type { Network } from "@domain/network/index";
@@ -93,7 +93,7 @@ export function simulateTimeCourse(
     endTime,
     completed: course.completed && !stoppedByTime,
     note: stoppedByTime ? "stopped at the time limit before the end time" : course.completed ? null : "the integrator stopped early (step size underflow or step limit)",
-    method: "Rosenbrock 2(3), ode23s pair (Shampine & Reichelt 1997); rtol 1e-6, atol 1e-10",
+    method: "Rosenbrock method of order 2(3) (Shampine & Reichelt, SIAM J. Sci. Comput. 18, 1997); rtol 1e-6, atol 1e-10",
     t: samples.map((s) => s.t),
     y: samples.map((s) => s.y),
   };

@@ -24,8 +24,8 @@ export interface Trajectory {
 }
 
 /**
- * Stiff trajectories with the linearly implicit Rosenbrock pair of order 2(3) behind MATLAB's ode23s
- * (Shampine & Reichelt, "The MATLAB ODE Suite", SIAM J. Sci. Comput. 18, 1997, §3): L-stable,
+ * Stiff trajectories with the linearly implicit Rosenbrock method of order 2(3)
+ * (Shampine & Reichelt, SIAM J. Sci. Comput. 18, 1997, §3): L-stable,
  * one Jacobian and one matrix factorisation per step, error estimate from the third-order companion,
  * step-size control with the usual safety factor 0.8 and growth limited to 5× (common practice).
  * Example: integrateStiff(linearProblem([[-1, 0], [0, -1e4]]), [1, 1], 0, 5) follows e^(−t) in a few hundred

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { integrateStiff, linearProblem } from "@domain/numeric/rosenbrock";
 
-describe("stiff Rosenbrock integrator (ode23s pair)", () => {
+describe("stiff Rosenbrock method of order 2(3)", () => {
   it("integrates y' = −y to t = 1 within the tolerance", () => {
     const tc = integrateStiff(linearProblem([[-1]]), [1], 0, 1, { rtol: 1e-8, atol: 1e-12 });
     expect(tc.completed).toBe(true);
