@@ -1,4 +1,4 @@
-import { Link, NavLink, useLocation } from "react-router";
+import { Form, Link, NavLink, useLocation } from "react-router";
 import type { ShellUser } from "~/shell-user.server";
 
 /** Top-level sections; each links to its own route module. */
@@ -39,12 +39,7 @@ export function AppShell({ user, children }: { user: ShellUser | null; children:
                     {user.activeLab.name}
                   </Link>
                 )}
-                <Link to="/account" className="flex items-center gap-2 text-muted hover:text-ink">
-                  <span className="grid size-7 place-items-center rounded-pill bg-accent-soft text-xs font-semibold text-accent-strong">
-                    {initials(user.displayName)}
-                  </span>
-                  {user.displayName}
-                </Link>
+                <UserMenu user={user} />
               </div>
             ) : (
               <Link to="/sign-in" className="btn-quiet py-1.5">
@@ -61,6 +56,32 @@ export function AppShell({ user, children }: { user: ShellUser | null; children:
         </div>
       </footer>
     </div>
+  );
+}
+
+/**
+ * The signed-in person's menu: account (API tokens, sessions) and sign-out, from every page. A
+ * native <details> so it opens without JavaScript; sign-out is a POST, never a link.
+ */
+function UserMenu({ user }: { user: ShellUser }) {
+  return (
+    <details className="group relative" data-testid="user-menu">
+      <summary className="flex cursor-pointer list-none items-center gap-2 text-muted hover:text-ink [&::-webkit-details-marker]:hidden">
+        <span className="grid size-7 place-items-center rounded-pill bg-accent-soft text-xs font-semibold text-accent-strong">{initials(user.displayName)}</span>
+        {user.displayName}
+        <span aria-hidden className="text-faint group-open:rotate-180">▾</span>
+      </summary>
+      <div className="absolute right-0 z-20 mt-2 w-52 rounded-card border border-line bg-surface p-1 shadow-lg" role="menu">
+        <Link to="/account" role="menuitem" className="block rounded-md px-3 py-2 text-ink hover:bg-sunken">
+          Account and API tokens
+        </Link>
+        <Form method="post" action="/sign-out">
+          <button type="submit" role="menuitem" className="block w-full rounded-md px-3 py-2 text-left text-ink hover:bg-sunken">
+            Sign out
+          </button>
+        </Form>
+      </div>
+    </details>
   );
 }
 
