@@ -56,6 +56,8 @@ export default [
     route("labs/:labSlug/analyses/:analysisId/scans", "routes/api/scans.ts"),
     route("labs/:labSlug/scans/:scanId", "routes/api/scans-item.ts"),
     route("labs/:labSlug/scans/:scanId/cancel", "routes/api/scans-cancel.ts"),
+    // Keep last in the prefix: every other /api/ path answers the JSON error shape.
+    route("*", "routes/api/not-found.ts"),
   ]),
   route("*", "routes/not-found.tsx"),
 ] satisfies RouteConfig;
