@@ -5,16 +5,19 @@
  */
 import { parse, type MathNode } from "mathjs";
 
+/** Names as upright words (\mathrm{ES} is one species, never E times S). */
 export function nameTex(name: string): string {
-  return `\\mathit{${name.replace(/_/g, "\\_")}}`;
+  return `\\mathrm{${name.replace(/_/g, "\\_")}}`;
 }
 
 const handler = (node: MathNode) => (node.type === "SymbolNode" ? nameTex((node as unknown as { name: string }).name) : undefined);
 
-/** Example: toTex("X^3 - 6*X^2") is "{\mathit{X}}^{3}-6\,{\mathit{X}}^{2}". Unparseable text comes back as \text{…}. */
+/** Example: toTex("X^3 - 6*X^2") is "{\mathrm{X}}^{3}-6\,{\mathrm{X}}^{2}"; toTex("E*S") is "\mathrm{E}\cdot\mathrm{S}". Unparseable text comes back as \text{…}. */
 export function toTex(expression: string): string {
   try {
-    return parse(expression).toTex({ handler, parenthesis: "auto", implicit: "hide" }).replace(/\\cdot/g, "\\,");
+    // A product of names keeps its explicit sign (E·S, never ES); only a number before a factor
+    // gets the thin space of ordinary typesetting (6\,X²).
+    return parse(expression).toTex({ handler, parenthesis: "auto", implicit: "hide" }).replace(/(\d)\\cdot/g, "$1\\,");
   } catch {
     return `\\text{${expression.replace(/[{}\\]/g, "")}}`;
   }

@@ -64,7 +64,9 @@ export function formatExpression(e: RationalExpression, factors: readonly QPoly[
   const num = formatFactored(e.num, factors);
   const den = formatFactored(e.den, factors);
   if (den.text === "1") return num.text;
-  const wrappedNum = num.sum ? `(${num.text})` : num.text;
+  // "5/8/E" would need the reader to know that / groups to the left: a numerator that is itself a
+  // fraction is bracketed too.
+  const wrappedNum = num.sum || num.text.includes("/") ? `(${num.text})` : num.text;
   // a/b*c would read as (a/b)*c, so a denominator is bare only when it is one variable or one integer.
   const bareDen = /^[A-Za-z_][A-Za-z0-9_]*$|^\d+$/.test(den.text);
   return `${wrappedNum}/${bareDen ? den.text : `(${den.text})`}`;

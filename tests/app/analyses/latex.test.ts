@@ -4,10 +4,17 @@ import katex from "katex";
 
 describe("formulas as LaTeX", () => {
   it("typesets polynomials and quotients in the CLI's syntax", () => {
-    expect(toTex("X^3 - 6*X^2 + 11*X - 6")).toBe("{\\mathit{X}}^{3}-6\\,{\\mathit{X}}^{2}+11\\,\\mathit{X}-6");
+    expect(toTex("X^3 - 6*X^2 + 11*X - 6")).toBe("{\\mathrm{X}}^{3}-6\\,{\\mathrm{X}}^{2}+11\\,\\mathrm{X}-6");
     expect(toTex("S0*E*k1/(km1 + k2)")).toMatch(/^\\frac\{/);
     // E is a species here, not Euler's number.
-    expect(toTex("E")).toBe("\\mathit{E}");
+    expect(toTex("E")).toBe("\\mathrm{E}");
+  });
+
+  it("never lets a multi-letter species read as a product", () => {
+    // The species ES is one upright word; the product of E and S keeps its sign.
+    expect(toTex("ES - 1/4")).toMatch(/^\\mathrm\{ES\}-/);
+    expect(toTex("E*S")).toBe("\\mathrm{E}\\cdot\\mathrm{S}");
+    expect(toTex("2*E*S")).toMatch(/^2\\,\\mathrm\{E\}\\cdot\\mathrm\{S\}$/);
   });
 
   it("produces LaTeX that KaTeX accepts", () => {

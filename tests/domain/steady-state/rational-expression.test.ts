@@ -14,6 +14,8 @@ describe("rational expressions", () => {
     expect(formatExpression({ num: p("k1*x"), den: p("k2") })).toBe("x*k1/k2");
     expect(formatExpression({ num: p("k1*x"), den: p("2*k2") })).toBe("x*k1/(2*k2)");
     expect(formatExpression({ num: p("x + y"), den: p("k1 + k2") })).toBe("(x + y)/(k1 + k2)");
+    // Not 5/8/x, which needs the reader to know how / groups.
+    expect(formatExpression({ num: p("5/8"), den: p("x") })).toBe("(5/8)/x");
   });
   it("composes substitutions: (x + 1)/y with x = y/k1 is (y + k1)/(y·k1)", () => {
     const e = composeExpression({ num: p("x + 1"), den: p("y") }, 0, p("y"), p("k1"));
