@@ -359,7 +359,9 @@ export function readSbml(text: string): SbmlImport {
         notes.push(`reaction ${rid} is marked reversible but its law has no reverse term; it is read as irreversible`);
       }
     }
-    if (Object.keys(left).length === 0 && Object.keys(right).length === 0) refuse(r, "the reaction has neither reactants nor products", "at least one species");
+    if (listed(r, "listOfReactants", "speciesReference").length === 0 && listed(r, "listOfProducts", "speciesReference").length === 0) {
+      refuse(r, "the reaction has neither reactants nor products", "at least one species");
+    }
 
     const rateName = (t: Term, suffix: string): { name: string; value?: Rational; param?: ParameterInfo } => {
       if (t.rate) {
