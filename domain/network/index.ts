@@ -31,3 +31,4 @@ export { type DirectedGraph, connectedComponents, stronglyConnectedComponents, t
 export { type TheoremVerdict, deficiencyZeroVerdict, deficiencyOneVerdict } from "./deficiency-theorems";
 export { type NetworkStructure, type ReactionSummary, analyseStructure } from "./structure";
 export { parseReactionList, formatReactionList } from "./reaction-list";
+export { NETWORK_FORMATS, type NetworkFormat, type NetworkDocument, formatFromName, sniffFormat, readNetworkDocument } from "./formats";
