@@ -32,3 +32,4 @@ export { type TheoremVerdict, deficiencyZeroVerdict, deficiencyOneVerdict } from
 export { type NetworkStructure, type ReactionSummary, analyseStructure } from "./structure";
 export { parseReactionList, formatReactionList } from "./reaction-list";
 export { NETWORK_FORMATS, type NetworkFormat, type NetworkDocument, formatFromName, sniffFormat, readNetworkDocument } from "./formats";
+export { odePython, odeJulia, massActionTerms, type OdeCodeOptions } from "./ode-code";
