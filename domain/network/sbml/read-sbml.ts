@@ -358,6 +358,9 @@ export function readSbml(text: string): SbmlImport {
       if (forward.length === 1 && reverse.length === 0 && bool(r, "reversible", level === 2) === true) {
         notes.push(`reaction ${rid} is marked reversible but its law has no reverse term; it is read as irreversible`);
       }
+      if (reverse.length === 1 && bool(r, "reversible", level === 2) === false) {
+        notes.push(`reaction ${rid} is marked irreversible but its law has a reverse term; it is read as reversible`);
+      }
     }
     if (listed(r, "listOfReactants", "speciesReference").length === 0 && listed(r, "listOfProducts", "speciesReference").length === 0) {
       refuse(r, "the reaction has neither reactants nor products", "at least one species");

@@ -36,7 +36,13 @@ export function readXml(text: string): XmlReadResult {
     removeNSPrefix: true,
     processEntities: true,
   });
-  const raw = parser.parse(text) as RawNode[];
+  let raw: RawNode[];
+  try {
+    raw = parser.parse(text) as RawNode[];
+  } catch (e) {
+    // The parser's own limits (nesting depth, entity expansion) end here rather than as a crash.
+    return { ok: false, line: 1, message: `the file cannot be read as XML: ${(e as Error).message}` };
+  }
   const lineOf = lineIndex(text);
   const meta = XMLParser.getMetaDataSymbol() as unknown as symbol;
   const convert = (node: RawNode): XmlElement | string | null => {

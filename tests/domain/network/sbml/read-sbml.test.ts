@@ -163,3 +163,22 @@ describe("readSbml", () => {
     expect(networkSignature(r.network!).reactions).toEqual(["Alga -> 0 @d=3", "Grazer -> 0 @d=3"]);
   });
 });
+
+describe("readSbml on hostile input", () => {
+  it("reports MathML nested beyond the parser's depth limit instead of crashing", () => {
+    const deep = "<apply><plus/>".repeat(150) + "<ci>k</ci>" + "</apply>".repeat(150);
+    const text = `<sbml level="3" version="2"><model><listOfReactions><reaction id="r"><kineticLaw><math>${deep}</math></kineticLaw></reaction></listOfReactions></model></sbml>`;
+    const r = readSbml(text);
+    expect(r.network).toBeUndefined();
+    expect(r.problems[0].message).toMatch(/cannot be read as XML: Maximum nested tags exceeded/);
+  });
+
+  it("does not expand a chain of entities without bound", () => {
+    const ents = ['<!ENTITY a0 "xxxxxxxxxx">', ...Array.from({ length: 9 }, (_, i) => `<!ENTITY a${i + 1} "${`&a${i};`.repeat(10)}">`)].join("");
+    const r = readSbml(`<?xml version="1.0"?><!DOCTYPE sbml [${ents}]><sbml level="3" version="2"><model name="&a9;"/></sbml>`);
+    // 10^10 characters if expanded; fast-xml-parser leaves the reference unexpanded.
+    expect(r.modelName!.length).toBeLessThan(1000);
+    expect(r.network).toBeUndefined();
+    expect(r.problems.length).toBeGreaterThan(0);
+  });
+});
