@@ -90,6 +90,10 @@ function expr(e: XmlElement): Poly {
     }
     case "apply":
       return apply(e);
+    case "semantics":
+      // The first child is the expression; annotations beside it do not change its value.
+      if (e.children.length === 0) throw new MathError("has an empty <semantics>");
+      return expr(e.children[0]);
     case "csymbol":
       throw new MathError(`uses the symbol \`${textOf(e) || e.attrs.definitionURL}\` (time, delay or another built-in), which mass action does not`);
     default:
