@@ -10,6 +10,8 @@ import { apiError } from "~/permissions/api-errors";
 import { MAX_CSV_BYTES, MAX_CSV_LABEL } from "./grid";
 import type { SaveFailure } from "./save.server";
 import { importFormat, importNetworkText } from "./import-file";
+import { checkJson } from "~/api/json-schema";
+import { NETWORK_CREATE, VERSION_CREATE } from "~/api/schemas";
 
 export interface NetworkPayload {
   name?: unknown;
@@ -19,7 +21,7 @@ export interface NetworkPayload {
   changeNote?: unknown;
 }
 
-export async function readNetworkPayload(request: Request): Promise<NetworkPayload> {
+export async function readNetworkPayload(request: Request, kind: "network" | "version" = "network"): Promise<NetworkPayload> {
   const length = Number(request.headers.get("content-length") ?? 0);
   // Multipart framing and JSON escaping add a little; refuse clearly oversized bodies unread.
   if (length > MAX_CSV_BYTES * 2 + 64 * 1024) throw apiError("invalid_request", `The request body is too large; network files are at most ${MAX_CSV_LABEL}.`);
@@ -32,6 +34,9 @@ export async function readNetworkPayload(request: Request): Promise<NetworkPaylo
       throw apiError("invalid_request", "The body is not valid JSON.");
     }
     if (typeof body !== "object" || body === null || Array.isArray(body)) throw apiError("invalid_request", "The JSON body must be an object such as { \"name\": …, \"csv\": … }.");
+    // The schema published in /api/openapi.json is the one checked here (field types, lengths).
+    const wrong = checkJson(kind === "network" ? NETWORK_CREATE : VERSION_CREATE, body);
+    if (wrong.length > 0) throw apiError("invalid_request", `The JSON body does not match the schema: ${wrong.map((p) => `${p.path} ${p.message}`).join("; ")}.`, { schema: wrong });
     const b = body as NetworkPayload & { sbml?: unknown; reactions?: unknown };
     if (b.csv === undefined && typeof b.sbml === "string") return { ...b, csv: imported(b.sbml, "sbml") };
     if (b.csv === undefined && typeof b.reactions === "string") return { ...b, csv: imported(b.reactions, "text") };
