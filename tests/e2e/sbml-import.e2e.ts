@@ -78,6 +78,17 @@ describe.skipIf(!hasApp)("SBML import and export in headless chromium", () => {
     expect(await py.text()).toMatch(/def rhs\(t, x, p=PARAMETERS\)/);
   });
 
+  it("links the OpenAPI description from the account page, next to the tokens", async () => {
+    const { page } = await editor.page("/account");
+    const href = await page.getByTestId("openapi-link").getAttribute("href");
+    expect(href).toBe("/api/openapi.json");
+    const res = await page.request.get(href!);
+    expect(res.status()).toBe(200);
+    const doc = (await res.json()) as { openapi: string; paths: Record<string, unknown> };
+    expect(doc.openapi).toBe("3.1.0");
+    expect(Object.keys(doc.paths)).toContain("/api/labs/{labSlug}/networks");
+  });
+
   it("reads a pasted reaction list into the grid, with problems at their lines", async () => {
     const { page } = await editor.page(`${networkPath}/edit`);
     await page.getByTestId("paste-reactions").locator("summary").click();
