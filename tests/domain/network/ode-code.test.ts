@@ -16,7 +16,10 @@ import { roundTripCorpus } from "./sbml/demo-corpus";
  * partial derivatives) at seeded random rational points: right-hand side and Jacobian agree to
  * 1e-12 relative (floating point against exact rationals).
  */
-const hasScipy = spawnSync("python3", ["-c", "import numpy, scipy"]).status === 0;
+// Debian's interpreter (with python3-scipy) when present, so the check runs on the packaged SciPy.
+const PYTHON = spawnSync("/usr/bin/python3", ["-c", "import numpy, scipy"]).status === 0 ? "/usr/bin/python3" : "python3";
+const hasScipy = spawnSync(PYTHON, ["-c", "import numpy, scipy"]).status === 0;
+const SCIPY = hasScipy ? spawnSync(PYTHON, ["-c", "import numpy, scipy; print(f'SciPy {scipy.__version__}, NumPy {numpy.__version__}')"], { encoding: "utf8" }).stdout.trim() : "not installed";
 const dir = mkdtempSync(join(tmpdir(), "ode-code-"));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
@@ -39,7 +42,7 @@ const close = (got: number, exact: Rational) => {
   return e === 0 ? got === 0 : Math.abs(got - e) <= 1e-12 * Math.abs(e);
 };
 
-describe.skipIf(!hasScipy)("ODEs as Python, run with python3-scipy", () => {
+describe.skipIf(!hasScipy)(`ODEs as Python, run with ${SCIPY}`, () => {
   writeFileSync(join(dir, "driver.py"), DRIVER);
 
   it.each(roundTripCorpus().map((c, i) => ({ ...c, seed: 100 + i })))("$name: rhs and Jacobian match the engine at 5 random points", ({ csv, seed }) => {
@@ -55,7 +58,7 @@ describe.skipIf(!hasScipy)("ODEs as Python, run with python3-scipy", () => {
     const file = join(dir, `net${seed}.py`);
     writeFileSync(file, odePython(net, { title: `seeded ${seed}` }));
     const job = { rates: Object.fromEntries([...rates].map(([k, v]) => [k, formatRational(v)])), points: points.map((p) => p.map(formatRational)) };
-    const run = spawnSync("python3", [join(dir, "driver.py"), file], { input: JSON.stringify(job), encoding: "utf8" });
+    const run = spawnSync(PYTHON, [join(dir, "driver.py"), file], { input: JSON.stringify(job), encoding: "utf8" });
     expect(run.stderr).toBe("");
     const results = JSON.parse(run.stdout) as { rhs: number[]; jac: number[][] }[];
     const ringPoint = (p: Rational[]) => [...p, ...kin.rateParameters.map((k) => rates.get(k)!)];
@@ -76,7 +79,7 @@ describe.skipIf(!hasScipy)("ODEs as Python, run with python3-scipy", () => {
   it("refuses to run without a value for every rate constant", () => {
     const file = join(dir, "open.py");
     writeFileSync(file, odePython(parseNetworkCsv("reaction,rate\nA -> B,k\n"), { title: "open" }));
-    const run = spawnSync("python3", ["-c", `import importlib.util as u; s=u.spec_from_file_location("m", ${JSON.stringify(file)}); m=u.module_from_spec(s); s.loader.exec_module(m); m.rhs(0, [1.0, 1.0])`], { encoding: "utf8" });
+    const run = spawnSync(PYTHON, ["-c", `import importlib.util as u; s=u.spec_from_file_location("m", ${JSON.stringify(file)}); m=u.module_from_spec(s); s.loader.exec_module(m); m.rhs(0, [1.0, 1.0])`], { encoding: "utf8" });
     expect(run.status).not.toBe(0);
     expect(run.stderr).toMatch(/give values for the rate constants k/);
   });
@@ -84,7 +87,7 @@ describe.skipIf(!hasScipy)("ODEs as Python, run with python3-scipy", () => {
   it("runs as a script: solve_ivp to t = 10 conserves E + C of the enzyme demo", () => {
     const file = join(dir, "enzyme.py");
     writeFileSync(file, odePython(parseNetworkCsv("reaction,rate,reverse_rate,rate_value,reverse_rate_value\nE + S <-> C,kon,koff,2,1\nC -> E + P,kcat,,3,\n"), { title: "enzyme" }));
-    const run = spawnSync("python3", [file], { encoding: "utf8" });
+    const run = spawnSync(PYTHON, [file], { encoding: "utf8" });
     expect(run.status).toBe(0);
     const v = Object.fromEntries(run.stdout.trim().split("\n").map((l) => l.split(" = ")).map(([k, x]) => [k, Number(x)]));
     // x0 = 1 for every species, so E + C = 2 at all times (a conservation law of the network).
