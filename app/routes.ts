@@ -38,6 +38,7 @@ export default [
   route("share/:token/export/:file", "routes/share-export.ts"),
   ...prefix("api", [
     route("health", "routes/api/health.ts"),
+    route("openapi.json", "routes/api/openapi.ts"),
     // Accounts and labs (issue 5): bearer token or session cookie.
     route("me", "routes/api/me.ts"),
     route("labs", "routes/api/labs.ts"),

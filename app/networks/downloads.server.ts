@@ -1,4 +1,5 @@
-import { formatNetworkCsv, parseNetworkCsv } from "@domain/network/index";
+import { formatNetworkCsv, formatReactionList, odeJulia, odePython, parseNetworkCsv } from "@domain/network/index";
+import { formatSbml } from "@domain/network/sbml/index";
 import { stoichiometricMatrixCsv } from "./matrix-csv";
 import type { NetworkRecord, VersionRecord } from "./networks.server";
 import { massActionOdes, odesLatexDocument } from "./odes";
@@ -7,7 +8,7 @@ import { structureOf } from "./structure.server";
 const slug = (name: string) => name.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "") || "network";
 
 /**
- * The three downloads. The network CSV is written by the domain's formatNetworkCsv, so every
+ * The downloads. The network CSV is written by the domain's formatNetworkCsv, so every
  * rate symbol is explicit and the file reads back to the same network.
  */
 export function downloadFile(network: NetworkRecord, version: VersionRecord, file: string | undefined): Response {
@@ -19,6 +20,15 @@ export function downloadFile(network: NetworkRecord, version: VersionRecord, fil
       return send(formatNetworkCsv(parseNetworkCsv(version.csv)), "text/csv", `${stem}.csv`);
     case "odes.tex":
       return send(odesLatexDocument(`${network.name} (version ${version.number})`, massActionOdes(structureOf(version.csv))), "application/x-tex", `${stem}-odes.tex`);
+    // Open formats and code (issue 14): SBML Level 3 Version 2, a reaction list, the ODEs as Python and Julia.
+    case "network.xml":
+      return send(formatSbml(parseNetworkCsv(version.csv), { id: slug(network.name), name: network.name }), "application/sbml+xml", `${stem}.xml`);
+    case "network.txt":
+      return send(formatReactionList(parseNetworkCsv(version.csv)), "text/plain", `${stem}.txt`);
+    case "odes.py":
+      return send(odePython(parseNetworkCsv(version.csv), { title: `${network.name} (version ${version.number})` }), "text/x-python", `${stem.replace(/-/g, "_")}_odes.py`);
+    case "odes.jl":
+      return send(odeJulia(parseNetworkCsv(version.csv), { title: `${network.name} (version ${version.number})` }), "text/x-julia", `${stem}-odes.jl`);
     case "stoichiometric-matrix.csv":
       return send(stoichiometricMatrixCsv(structureOf(version.csv)), "text/csv", `${stem}-stoichiometric-matrix.csv`);
     default:

@@ -93,6 +93,9 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
           <label className="w-56 space-y-1 text-sm font-medium">Expires in days (empty: never)<input name="expiresInDays" inputMode="numeric" placeholder="90" className={inputClass} /></label>
           <button type="submit" className="btn-quiet">Create token</button>
         </Form>
+        <p className="text-sm text-muted">
+          What the API offers: <a href="/api/openapi.json" className="text-accent hover:underline" data-testid="openapi-link">the API description (OpenAPI 3.1, JSON)</a>.
+        </p>
       </section>
       <section>
         <h2 className="font-semibold">Recent account activity</h2>

@@ -4,7 +4,7 @@ import { downloadFile } from "~/networks/downloads.server";
 import { requireNetwork, requireVersion } from "~/networks/pages.server";
 import { requireLabRole } from "~/permissions/permissions.server";
 
-/** network.csv · odes.tex · stoichiometric-matrix.csv, of ?v=N or the newest version (viewers too). */
+/** network.csv · odes.tex · stoichiometric-matrix.csv · network.xml · network.txt · odes.py · odes.jl, of ?v=N or the newest version (viewers too). */
 export async function loader({ request, params }: Route.LoaderArgs) {
   const access = await requireLabRole(request, params.labSlug, "viewer");
   const network = await requireNetwork(db(), access, params.networkId);

@@ -1,12 +1,13 @@
 import { AlgebraError } from "../algebra/index";
 import { parseRational, sign, type Rational } from "../algebra/rational";
-import { NetworkFileError, parseNetworkCsv } from "../network/index";
+import { NetworkFileError } from "../network/index";
 import { analyseNetwork, SteadyStateInputError, type SteadyStateAnalysis } from "../steady-state/index";
 import type { CliIO, CommandModule } from "./io";
-import { CliError, parseArgs, readInput } from "./io";
+import { CliError, parseArgs } from "./io";
+import { formatInitial, readNetworkFile } from "./network-input";
 
 const USAGE =
-  "usage: analyse NETWORK.csv [--order A,B,C] [--initial S=1,E=0.1] [--relation 'EXPR; EXPR'] [--timeout SECONDS] [--full-basis] [--json]";
+  "usage: analyse NETWORK.csv|.xml|.sbml|.txt [--order A,B,C] [--initial S=1,E=0.1] [--relation 'EXPR; EXPR'] [--timeout SECONDS] [--full-basis] [--json]";
 
 /** Reads `S=1,E=0.1` into exact values; every bad entry is reported with its position. */
 export function parseInitial(text: string): Map<string, Rational> {
@@ -160,8 +161,13 @@ export function run(args: readonly string[], io: CliIO): number {
   const relations = flags.has("relation") ? flags.get("relation")!.split(";").map((s) => s.trim()).filter((s) => s !== "") : [];
   let result: SteadyStateAnalysis;
   try {
-    const network = parseNetworkCsv(readInput(io, positionals[0]));
-    result = analyseNetwork(network, { order, initial, relations, timeoutMs: timeout * 1000, fullBasis });
+    // `.xml`/`.sbml` files are read as SBML, `.txt` as a reaction list; an SBML file's initial
+    // concentrations stand in for a missing --initial, and say so.
+    const doc = readNetworkFile(io, positionals[0]);
+    for (const n of doc.notes) io.stderr(`note: ${n}\n`);
+    const start = initial ?? (doc.initial.size > 0 ? new Map(doc.initial) : undefined);
+    if (!initial && start) io.stderr(`note: initial concentrations from the file: ${formatInitial(start)}\n`);
+    result = analyseNetwork(doc.network, { order, initial: start, relations, timeoutMs: timeout * 1000, fullBasis });
   } catch (e) {
     if (e instanceof NetworkFileError || e instanceof SteadyStateInputError || e instanceof AlgebraError) throw new CliError(e.message);
     throw e;
@@ -172,5 +178,5 @@ export function run(args: readonly string[], io: CliIO): number {
 
 export const command: CommandModule = {
   run,
-  summary: "analyse NETWORK.csv [--order A,B] [--initial S=1] [--json]   structure, steady states, parametrisation, stability",
+  summary: "analyse NETWORK.csv|.xml [--order A,B] [--initial S=1] [--json]   structure, steady states, parametrisation, stability",
 };

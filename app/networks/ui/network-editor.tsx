@@ -3,6 +3,8 @@ import { Form, useNavigation } from "react-router";
 import { formatProblem, tryParseNetworkCsv, type NetworkFileProblem } from "@domain/network/index";
 import { checkGrid, csvToGrid, emptyRow, MAX_CSV_BYTES, MAX_CSV_LABEL, moveRow, type GridRow } from "../grid";
 import type { DemoNetwork } from "../demos";
+import { importFormat, importNetworkText } from "../import-file";
+import type { SbmlReactionReport } from "@domain/network/sbml/index";
 
 /** What the server said about the last save (the API error shape, as form data). */
 export interface EditorFailure {
@@ -41,7 +43,8 @@ export function NetworkEditor({
 }) {
   const [rows, setRows] = useState<GridRow[]>(initialRows);
   const [notices, setNotices] = useState<string[]>([]);
-  const [fileProblems, setFileProblems] = useState<{ name: string; problems: readonly NetworkFileProblem[] } | null>(null);
+  const [fileProblems, setFileProblems] = useState<{ name: string; problems: readonly NetworkFileProblem[]; reactions?: readonly SbmlReactionReport[] } | null>(null);
+  const [pasted, setPasted] = useState("");
   const [dragging, setDragging] = useState(false);
   const fileInput = useRef<HTMLInputElement>(null);
   const check = useMemo(() => checkGrid(rows), [rows]);
@@ -66,11 +69,38 @@ export function NetworkEditor({
       return;
     }
     const text = await file.text();
+    const format = importFormat(file.name, file.type, text);
+    if (format !== "csv") {
+      // SBML or a reaction list: read in full first; a refused file leaves the grid as it was
+      // and lists each problem (line, element id) and what became of every reaction.
+      const r = importNetworkText(text, format);
+      if (!r.ok) {
+        setNotices(r.notes);
+        setFileProblems({ name: file.name, problems: r.problems, reactions: r.reactions });
+        return;
+      }
+      edit(() => csvToGrid(r.csv).rows.map((row) => ({ ...row, sourceLine: undefined })));
+      setNotices([`${file.name} read as ${format === "sbml" ? "SBML" : "a reaction list"}.`, ...r.notes]);
+      setFileProblems(null);
+      return;
+    }
     const loaded = csvToGrid(text);
     const parsed = tryParseNetworkCsv(text);
     edit(() => loaded.rows);
     setNotices(loaded.notices);
     setFileProblems({ name: file.name, problems: parsed.ok ? [] : parsed.problems });
+  }
+
+  function loadPasted() {
+    const r = importNetworkText(pasted, "text");
+    if (!r.ok) {
+      setNotices([]);
+      setFileProblems({ name: "Pasted reactions", problems: r.problems });
+      return;
+    }
+    edit(() => csvToGrid(r.csv).rows.map((row) => ({ ...row, sourceLine: undefined })));
+    setNotices([]);
+    setFileProblems(null);
   }
 
   function loadDemo(demo: DemoNetwork) {
@@ -132,13 +162,13 @@ export function NetworkEditor({
             .
           </p>
           <p className="text-xs text-muted">
-            CSV with a header row (<code>reaction,rate,reverse_rate,rate_value,reverse_rate_value,label</code>), comma or semicolon, at most {MAX_CSV_LABEL}. It is
-            read here in your browser first; nothing is saved until you press Save.
+            CSV with a header row (<code>reaction,rate,reverse_rate,rate_value,reverse_rate_value,label</code>), comma or semicolon; SBML (<code>.xml</code>, <code>.sbml</code>,
+            mass-action rate laws); or a reaction list (<code>.txt</code>). At most {MAX_CSV_LABEL}. It is read here in your browser first; nothing is saved until you press Save.
           </p>
           <input
             ref={fileInput}
             type="file"
-            accept=".csv,text/csv,text/plain"
+            accept=".csv,.txt,.xml,.sbml,text/csv,text/plain,application/xml,text/xml,application/sbml+xml"
             className="sr-only"
             aria-label="Network file"
             data-testid="file-input"
@@ -183,8 +213,47 @@ export function NetworkEditor({
               <li key={i}>{formatProblem(p)}</li>
             ))}
           </ul>
+          {fileProblems.reactions && fileProblems.reactions.length > 0 && (
+            <table className="mt-3 w-full text-xs" data-testid="file-reactions">
+              <thead className="text-left text-muted">
+                <tr>
+                  <th className="py-1 pr-3 font-medium">Reaction</th>
+                  <th className="py-1 pr-3 font-medium">As read</th>
+                  <th className="py-1 font-medium">Outcome</th>
+                </tr>
+              </thead>
+              <tbody>
+                {fileProblems.reactions.map((r) => (
+                  <tr key={`${r.id}-${r.line}`} className="border-t border-line">
+                    <td className="py-1 pr-3 font-mono">{r.id} <span className="text-faint">L{r.line}</span></td>
+                    <td className="py-1 pr-3 font-mono">{r.text}</td>
+                    <td className={`py-1 ${r.status === "read" ? "text-ok" : "text-danger"}`}>{r.status === "read" ? "mass action, read" : r.reasons.join("; ")}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          )}
         </details>
       )}
+
+      <details className="rounded-md border border-line bg-surface px-4 py-2 text-sm" data-testid="paste-reactions">
+        <summary className="cursor-pointer font-medium">Paste reactions as text</summary>
+        <p className="mt-2 text-xs text-muted">
+          One reaction per line: <code>binding: E + S &lt;-&gt; C, kon = 2, koff = 1</code>. A label before <code>:</code> and the rates after commas are optional
+          (<code>NAME</code>, <code>NAME = VALUE</code> or a value alone); <code>#</code> starts a comment. This replaces the grid below.
+        </p>
+        <textarea
+          value={pasted}
+          onChange={(e) => setPasted(e.target.value)}
+          rows={5}
+          className={`${inputCls} mt-2 font-mono`}
+          aria-label="Reactions as text"
+          placeholder={"E + S <-> C, kon = 2, koff = 1\nC -> E + P, kcat = 3"}
+        />
+        <button type="button" className="btn-quiet mt-2 py-1.5" onClick={loadPasted} disabled={pasted.trim() === ""}>
+          Read into the grid
+        </button>
+      </details>
 
       <div className="space-y-2">
         <div className="flex items-baseline justify-between gap-4">

@@ -9,6 +9,10 @@ export function NetworkHeader({ data: d, result }: { data: NetworkPageData; resu
     ["network.csv", "Network (CSV)"],
     ["odes.tex", "ODEs (LaTeX)"],
     ["stoichiometric-matrix.csv", "Stoichiometric matrix (CSV)"],
+    ["network.xml", "SBML (Level 3)"],
+    ["network.txt", "Reaction list (text)"],
+    ["odes.py", "ODEs (Python)"],
+    ["odes.jl", "ODEs (Julia)"],
   ] as const;
   return (
     <header className="space-y-3">

@@ -21,7 +21,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const access = await requireApiLabRole(request, params.labSlug, "editor");
   if (request.method !== "POST") throw apiError("method_not_allowed", "Use GET to list or POST to add a version.");
   const network = await requireNetwork(db(), access, params.networkId, true);
-  const payload = await readNetworkPayload(request);
+  const payload = await readNetworkPayload(request, "version");
   const result = await saveVersion(db(), network, { authorId: access.user.id, csv: payload.csv, changeNote: payload.changeNote });
   if (!result.ok) return saveFailureResponse(result);
   return Response.json({ version: versionJson(result.version, { csv: true }), structure: structureOf(result.version.csv) }, { status: 201 });
