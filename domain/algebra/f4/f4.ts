@@ -193,13 +193,14 @@ function reduceRows(
   const pivotGen = new Map<number, RowGen>();
   const lower: RowGen[] = [];
   const monList: number[] = [];
-  const seenMon = new Set<number>();
   const todo: number[] = [];
+  const stamp = elim.nextStamp();
   const visit = (g: RowGen) => {
     const ms = rowMonomials(g, T);
+    const seen = elim.seen(T.size);
     for (let t = 0; t < ms.length; t++) {
       const m = ms[t];
-      if (!seenMon.has(m)) { seenMon.add(m); monList.push(m); todo.push(m); }
+      if (seen[m] !== stamp) { seen[m] = stamp; monList.push(m); todo.push(m); }
     }
   };
   for (const g of gens) {
@@ -212,7 +213,9 @@ function reduceRows(
     const m = todo.pop()!;
     if (pivotGen.has(m)) continue;
     let best = -1;
+    const mm = T.masks[m];
     for (let r = 0; r < reducers.length; r++) {
+      if ((T.masks[reducerLms[r]] & ~mm) !== 0) continue;
       if (T.divides(reducerLms[r], m) && (best < 0 || reducers[r].mons.length < reducers[best].mons.length)) best = r;
     }
     if (best < 0) continue;
@@ -221,17 +224,17 @@ function reduceRows(
     visit(g);
   }
   monList.sort((a, b) => mcmp(b, a));
-  const colOf = new Map<number, number>();
-  monList.forEach((m, c) => colOf.set(m, c));
+  const colOf = elim.columns(T.size);
+  monList.forEach((m, c) => { colOf[m] = c; });
   const ncols = monList.length;
   const toRow = (g: RowGen): Row => {
     const ms = rowMonomials(g, T);
     const cols = new Int32Array(ms.length);
-    for (let t = 0; t < ms.length; t++) cols[t] = colOf.get(ms[t])!;
+    for (let t = 0; t < ms.length; t++) cols[t] = colOf[ms[t]];
     return { cols, coeffs: g.f.coeffs };
   };
   const pivots: (Row | undefined)[] = new Array(ncols);
-  for (const [m, g] of pivotGen) pivots[colOf.get(m)!] = toRow(g);
+  for (const [m, g] of pivotGen) pivots[colOf[m]] = toRow(g);
   const lowerRows = lower.map(toRow);
   lowerRows.sort((a, b) => a.cols[0] - b.cols[0]);
   stats.matrices++;
@@ -319,10 +322,33 @@ class Eliminator {
   /** Entries stay below this, so one more product (< p²) keeps them exact (< 2^53). */
   private readonly limit: number;
   private work = 0;
+  private seenBuf = new Int32Array(0);
+  private colBuf = new Int32Array(0);
+  private stampNo = 0;
 
   constructor(private readonly p: number, private readonly limits: Limits) {
     this.invp = 1 / p;
     this.limit = 2 ** 53 - p * p;
+  }
+
+  nextStamp(): number {
+    return ++this.stampNo;
+  }
+
+  /** Scratch: a stamp per monomial id (which monomials a matrix has seen). */
+  seen(size: number): Int32Array {
+    if (this.seenBuf.length < size) {
+      const b = new Int32Array(Math.max(size, this.seenBuf.length * 2));
+      b.set(this.seenBuf);
+      this.seenBuf = b;
+    }
+    return this.seenBuf;
+  }
+
+  /** Scratch: the column of each monomial id in the current matrix. */
+  columns(size: number): Int32Array {
+    if (this.colBuf.length < size) this.colBuf = new Int32Array(Math.max(size, this.colBuf.length * 2));
+    return this.colBuf;
   }
 
   reduce(row: Row, pivots: readonly (Row | undefined)[], ncols: number, skip: number): Row | null {
