@@ -1,3 +1,4 @@
+import type { MonomialComparator } from "../order";
 import { makeComparator } from "../order";
 import type { Polynomial } from "../polynomial";
 import { normalizeTerms } from "../polynomial";
@@ -62,7 +63,7 @@ interface Group {
  *     every remaining S-polynomial top-reduces to zero over Z (groebner/verify.ts);
  *  2. ⟨F⟩ ⊆ ⟨G⟩: every input reduces to zero modulo G;
  *  3. ⟨G⟩ ⊆ ⟨F⟩, by Hilbert functions (graded orders): for the homogenised inputs F^h in
- *     Q[x, h] (grevlex, h last) and every degree d, dim_Q ⟨F^h⟩_d ≥ dim_{Z/p} ⟨F^h mod p⟩_d, since
+ *     Q[x, h] (degree, then the ring's order on the x-part: grevlex with h last for grevlex) and every degree d, dim_Q ⟨F^h⟩_d ≥ dim_{Z/p} ⟨F^h mod p⟩_d, since
  *     the degree-d Macaulay matrix has integer entries and its rank can only drop modulo p; the
  *     latter is the number of degree-d monomials in LM(⟨F^h mod p⟩), computed by one more F4 run
  *     modulo p. If every LM(g), g ∈ G, is a multiple of an h-free leading monomial of that basis,
@@ -120,7 +121,7 @@ export function multiModularGroebnerQQ(
     if (hFree === null) {
       // Step 3 first, as it needs only residues: when it cannot succeed, do not lift at all.
       const th = Date.now();
-      hFree = homogenisedLeads(integer, p, limits);
+      hFree = homogenisedLeads(integer, p, ring.order[0].kind === "grlex", limits);
       stats.proofMs += Date.now() - th;
       if (!leadsCovered(Gp.map((g) => T.packed([g.mons[0]])), hFree)) { stats.failed = "hilbert"; return null; }
     }
@@ -264,7 +265,7 @@ function leadsCovered(lms: readonly Int32Array[], h: HFreeLeads): boolean {
   }));
 }
 
-function homogenisedLeads(integer: readonly EPoly<bigint>[], p: number, limits: Limits): HFreeLeads {
+function homogenisedLeads(integer: readonly EPoly<bigint>[], p: number, grlex: boolean, limits: Limits): HFreeLeads {
   const n = (integer[0].exps.length / integer[0].coeffs.length) - 1;
   const S = n + 1, Sh = n + 2;
   const T = new MonomialTable(n + 1);
@@ -286,10 +287,20 @@ function homogenisedLeads(integer: readonly EPoly<bigint>[], p: number, limits: 
       coeffs.push(c);
     }
     if (mons.length === 0) continue;
-    // Homogenising keeps the grevlex order of the terms (same x-part order, h last).
+    // Terms are re-sorted below in the homogenised order.
     homog.push({ mons: Int32Array.from(mons), coeffs: Int32Array.from(coeffs) });
   }
-  const cmpH = makeComparator([{ kind: "grevlex" }], n + 1);
+  // The homogenised order: degree, then the ring's order on the x-part (for grevlex this is grevlex with h last).
+  const cmpH: MonomialComparator = grlex
+    ? (a, ia, b, ib) => {
+      const dd = a[ia] - b[ib];
+      if (dd !== 0) return dd;
+      const dx = (a[ia] - a[ia + n + 1]) - (b[ib] - b[ib + n + 1]);
+      if (dx !== 0) return dx;
+      for (let k = 1; k <= n; k++) if (a[ia + k] !== b[ib + k]) return a[ia + k] - b[ib + k];
+      return 0;
+    }
+    : makeComparator([{ kind: "grevlex" }], n + 1);
   const mcmp = T.comparator(cmpH);
   for (const f of homog) {
     const order = Array.from(f.mons.keys()).sort((a, b) => mcmp(f.mons[b], f.mons[a]));
