@@ -50,8 +50,7 @@ export interface F4Stats {
  * Gebauer–Möller update (pairs.ts). Ends with the reduced basis: minimal, inter-reduced, monic,
  * sorted by increasing leading monomial; [1] for the unit ideal, [] for the zero ideal.
  *
- * Example: over Z/32003 in grevlex, {x^2 + y, x*y - 1} gives [y^2 + x, x^2 + y, x*y - 1]
- * (increasing: x*y - 1 < ... as the order says).
+ * Example: over Z/32003 in grevlex, {x^2 + y, x*y - 1} gives [y^2 + x, x*y - 1, x^2 + y].
  */
 export function f4ModP(
   input: readonly F4Poly[],
@@ -209,9 +208,11 @@ function reduceRows(
     else lower.push(g);
     visit(g);
   }
+  let steps = 0;
   while (todo.length > 0) {
     const m = todo.pop()!;
     if (pivotGen.has(m)) continue;
+    if ((++steps & 4095) === 0) elim.tick();
     let best = -1;
     const mm = T.masks[m];
     for (let r = 0; r < reducers.length; r++) {
@@ -329,6 +330,11 @@ class Eliminator {
   constructor(private readonly p: number, private readonly limits: Limits) {
     this.invp = 1 / p;
     this.limit = 2 ** 53 - p * p;
+  }
+
+  /** Deadline and cancellation, from symbolic preprocessing. */
+  tick(): void {
+    this.limits.checkTime();
   }
 
   nextStamp(): number {

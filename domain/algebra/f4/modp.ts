@@ -2,10 +2,11 @@
  * Arithmetic modulo a prime p < 2^26 on doubles, for the F4 matrices.
  *
  * Why this size: a product of two residues is below 2^52, so `a*b` is exact in a double and no
- * limb splitting is needed; a dense row accumulates `row[c] += m*v` without reducing until the
- * entry would pass 2^53 − p² (then one floor-based reduction), so most additions cost one
- * multiply-add and one compare. Measured here on katsura-7 mod p (F4, Node 20): primes below 2^26
- * with this delayed reduction against `%` after every addition — see bench/README.md.
+ * limb splitting (nor Math.imul) is needed; a dense row accumulates `row[c] += m*v` without
+ * reducing until the entry would pass 2^53 − p² (then one floor-based reduction, no `%`). The
+ * smaller p, the rarer that reduction: one F4 run of katsura-7 took about 0.7 s modulo a prime
+ * below 2^20 against 1.2 s below 2^26 (Node 20, busy 2-core machine, two runs each), so the
+ * multi-modular path lifts from primes below 2^21 (multimodular.ts); Z/p itself is used as given.
  */
 export const F4_MAX_PRIME = 2 ** 26;
 

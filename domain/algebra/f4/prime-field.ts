@@ -26,7 +26,7 @@ export function toF4(T: MonomialTable, exps: Int32Array, coeffs: ArrayLike<numbe
  * Reduced Gröbner basis over Z/p (p < 2^26) by F4 (f4.ts), in the ring's order. Exact: every step
  * is arithmetic in Z/p, so no proof is needed. Sorted by increasing leading monomial, monic.
  *
- * Example: over GF(32003), grevlex, [x^2 - y, x*y - 1] gives [x - y^2, y^3 - 1] in increasing order.
+ * Example: over GF(32003), grevlex, [x^2 - y, x*y - 1] gives [y^2 - x, x*y - 1, x^2 - y].
  */
 export function f4GroebnerModP(polys: readonly Polynomial<number>[], limits: Limits): Polynomial<number>[] {
   const ring = polys[0].ring;
