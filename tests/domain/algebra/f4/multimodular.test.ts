@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { PolynomialRing, QQ, groebnerBasis } from "@domain/algebra/index";
+import { AlgebraError, PolynomialRing, QQ, groebnerBasis } from "@domain/algebra/index";
 import type { Progress } from "@domain/algebra/groebner/limits";
 import { Limits } from "@domain/algebra/groebner/limits";
 import type { MultiModularStats } from "@domain/algebra/f4/multimodular";
@@ -85,5 +85,15 @@ describe("multi-modular F4 over Q agrees with Buchberger (reference implementati
     expect(Math.min(...primes)).toBe(1);
     expect(Math.max(...primes)).toBeGreaterThan(2);
     expect(seen.every((p) => p.primes === undefined || p.primes >= p.prime!)).toBe(true);
+  });
+
+  it("stops at the deadline, on cancellation and on the basis-size budget", () => {
+    const R = new PolynomialRing(katsura(5).vars, QQ, "grevlex");
+    const polys = katsura(5).polys.map((s) => R.parse(s));
+    const code = (f: () => unknown) => { try { f(); return "none"; } catch (e) { expect(e).toBeInstanceOf(AlgebraError); return (e as AlgebraError).code; } };
+    expect(code(() => groebnerBasis(polys, { method: "f4", deadline: Date.now() - 1 }))).toBe("timeout");
+    const ac = new AbortController();
+    expect(code(() => groebnerBasis(polys, { method: "f4", signal: ac.signal, onProgress: (p) => { if (p.prime === 2) ac.abort(); } }))).toBe("cancelled");
+    expect(code(() => groebnerBasis(polys, { method: "f4", maxBasisSize: 4 }))).toBe("budget");
   });
 });
