@@ -202,9 +202,9 @@ export function standardSystems(): BenchSystem[] {
   const out: BenchSystem[] = [
     { name: "startup", quick: true, file: toFile(startup, "lex", ["start-up baseline: the ideal (x - 1), so the time is almost all process start-up", generated]) },
   ];
-  for (const n of [3, 4, 5, 6])
+  for (const n of [3, 4, 5, 6, 7, 8])
     out.push({ name: `katsura-${n}`, quick: n <= 4, file: toFile(katsura(n), "grevlex", [`katsura-${n}: ${KATSURA_SOURCE}`, generated]) });
-  for (const n of [4, 5, 6])
+  for (const n of [4, 5, 6, 7])
     out.push({ name: `cyclic-${n}`, quick: n <= 5, file: toFile(cyclic(n), "grevlex", [`cyclic-${n}: ${CYCLIC_SOURCE}`, generated]) });
   out.push({ name: "katsura-4-lex", quick: false, file: toFile(katsura(4), "lex", [`katsura-4 in lex: ${KATSURA_SOURCE}`, generated]) });
   out.push({ name: "cyclic-4-lex", quick: true, file: toFile(cyclic(4), "lex", [`cyclic-4 in lex: ${CYCLIC_SOURCE}`, generated]) });

@@ -1,5 +1,7 @@
 import { AlgebraError } from "./errors";
-import { QQ } from "./field";
+import { isPrimeField, QQ } from "./field";
+import { multiModularGroebnerQQ } from "./f4/multimodular";
+import { f4GroebnerModP, f4SupportsPrime } from "./f4/prime-field";
 import type { SelectionStrategy } from "./groebner/buchberger";
 import { buchberger, defaultStrategy } from "./groebner/buchberger";
 import { clearDenominators, coefficientsFor, fromEngine, toEngine } from "./groebner/convert";
@@ -21,9 +23,14 @@ export interface GroebnerOptions extends LimitOptions {
    * reductions exactly, then proves the result with Buchberger's criterion (falls back to
    * 'buchberger' on an unlucky prime); 'buchberger' runs fraction-free over Z throughout.
    * 'auto' (default) = 'modular'; 'modular' also lifts FGLM from images mod primes (fglm-modular.ts),
-   * 'buchberger' runs FGLM over Q. Ignored over Z/p.
+   * 'buchberger' runs FGLM over Q.
+   * 'f4' (grevlex/grlex): multi-modular F4 with an exact proof (f4/multimodular.ts), falling back to
+   * 'modular' when the proof cannot be completed; not the default over Q, as it measured slower
+   * than 'modular' here on katsura-6/7 (its exact proof is half its time; see bench/README.md).
+   * Over Z/p: 'auto' = F4 (f4/f4.ts) for grevlex/grlex and primes below 2^26, Buchberger otherwise;
+   * 'f4' = F4 in every order (primes below 2^26); 'buchberger' and 'modular' = Buchberger.
    */
-  readonly method?: "auto" | "buchberger" | "modular";
+  readonly method?: "auto" | "buchberger" | "modular" | "f4";
   /**
    * For orders that are not degree-compatible (lex, block orders): first compute a grevlex basis and,
    * if the ideal is zero-dimensional, convert it with FGLM (default true; usually far faster than
@@ -45,8 +52,9 @@ export function ringOf<C>(polys: readonly Polynomial<C>[], what: string): Polyno
  * Buchberger's algorithm with Gebauer–Möller criteria and sugar (graded orders) or normal (lex,
  * block) selection, then inter-reduction (Cox, Little, O'Shea, "Ideals, Varieties, and
  * Algorithms", 4th ed. 2015, ch. 2 §7 and §10). Over Q the run is learnt modulo a prime and
- * replayed exactly, then proven (groebner/modular.ts); for lex/block/weighted orders a
- * zero-dimensional ideal goes through grevlex and FGLM (fglm.ts).
+ * replayed exactly, then proven (groebner/modular.ts); over Z/p graded orders use F4
+ * (f4/f4.ts); for lex/block/weighted orders a zero-dimensional ideal goes through grevlex and
+ * FGLM (fglm.ts). `method` selects another engine (multi-modular F4 over Q, plain Buchberger).
  *
  * Example (CLO ch. 2 §7, Example 1, grlex x > y): groebnerBasis([x^3 - 2*x*y, x^2*y - 2*y^2 + x])
  * is [y^2 - 1/2*x, x*y, x^2].
@@ -67,14 +75,25 @@ export function groebnerBasis<C>(polys: readonly Polynomial<C>[], options: Groeb
   if (ring.field === (QQ as unknown)) {
     const qpolys = (polys as unknown as Polynomial<Rational>[]).filter((p) => p.coeffs.length > 0);
     if (qpolys.length === 0) return [];
-    const result = options.method === "buchberger"
+    const method = options.method ?? "auto";
+    const viaF4 = method === "f4" && isDegreeCompatible(ring) ? multiModularGroebnerQQ(qpolys, limits) : null;
+    const result = viaF4 ?? (method === "buchberger"
       ? plainFractionFree(qpolys.map((p) => clearDenominators(toEngine(p))), qpolys[0].ring, strategy, limits)
-      : modularGroebnerQQ(qpolys, strategy, limits);
+      : modularGroebnerQQ(qpolys, strategy, limits));
     return result as unknown as Polynomial<C>[];
+  }
+  if (useF4ModP(ring, options.method ?? "auto")) {
+    const nonzero = (polys as unknown as Polynomial<number>[]).filter((p) => p.coeffs.length > 0);
+    return (nonzero.length === 0 ? [] : f4GroebnerModP(nonzero, limits)) as unknown as Polynomial<C>[];
   }
   const K = coefficientsFor(ring.field);
   const basis = buchberger(polys.map(toEngine), K, ring.n, ring.cmp, { strategy, limits });
   return basis.map((p) => fromEngine(ring, p));
+}
+
+function useF4ModP<C>(ring: PolynomialRing<C>, method: NonNullable<GroebnerOptions["method"]>): boolean {
+  if (!isPrimeField(ring.field) || !f4SupportsPrime(ring.field.p)) return false;
+  return method === "f4" || (method === "auto" && isDegreeCompatible(ring));
 }
 
 function isDegreeCompatible<C>(ring: PolynomialRing<C>): boolean {

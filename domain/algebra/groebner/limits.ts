@@ -7,6 +7,12 @@ export interface Progress {
   /** Degree of the S-pair being processed (lcm of the leading monomials). */
   readonly degree: number;
   readonly reductions: number;
+  /** F4: rows and columns of the matrix being reduced. */
+  readonly matrixRows?: number;
+  readonly matrixColumns?: number;
+  /** Multi-modular runs: this is prime number `prime` of at most `primes`. */
+  readonly prime?: number;
+  readonly primes?: number;
 }
 
 /**

@@ -34,13 +34,18 @@ describe.runIf(existsSync(SINGULAR))("agreement with Singular 4.3 std (reduced, 
     [katsura(4), "lex", 0], [cyclic(5), "lex", 0], [cyclic(6), "grevlex", 32003], [katsura(5), "grlex", 32003],
   ];
   for (const [sys, order, characteristic] of cases) {
-    it(`${sys.name} ${order} over ${characteristic ? `Z/${characteristic}` : "Q"}`, () => {
+    it(`${sys.name} ${order} over ${characteristic ? `Z/${characteristic}` : "Q"} (default, F4 and Buchberger paths)`, () => {
       const field = (characteristic ? primeField(characteristic) : QQ) as Field<unknown>;
       const R = new PolynomialRing(sys.vars, field, order);
-      const ours = groebnerBasis(sys.polys.map((s) => R.parse(s))).map((g) => R.format(g));
       const theirs = singularBasis(sys, order, characteristic).map((s) => R.format(makeMonic(R.parse(s))));
-      expect(new Set(ours)).toEqual(new Set(theirs));
-      expect(ours.length).toBe(theirs.length);
+      // Buchberger over Q is left out on the two largest systems (minutes); the traced path covers it.
+      const slow = characteristic === 0 && (sys.name === "katsura-6" || sys.name === "cyclic-6");
+      const methods = (["auto", "f4", "modular", "buchberger"] as const).filter((m) => !(slow && m === "buchberger"));
+      for (const method of methods) {
+        const ours = groebnerBasis(sys.polys.map((s) => R.parse(s)), { method }).map((g) => R.format(g));
+        expect(new Set(ours), method).toEqual(new Set(theirs));
+        expect(ours.length, method).toBe(theirs.length);
+      }
     });
   }
 });

@@ -1,0 +1,65 @@
+import { gcdBig } from "../rational";
+import type { Rational } from "../rational";
+
+/**
+ * x with x ≡ a (mod M) and x ≡ b (mod p), 0 ≤ x < M·p, given mInvP = M^{-1} mod p (Chinese
+ * remainder theorem, Garner's form). Example: crtStep(2n, 3n, 1, 5, 2) is 11n (11 ≡ 2 mod 3, ≡ 1 mod 5).
+ */
+export function crtStep(a: bigint, M: bigint, b: number, p: number, mInvP: number): bigint {
+  const ap = Number(a % BigInt(p));
+  let d = b - ap;
+  if (d < 0) d += p;
+  if (d === 0) return a;
+  // t = d·M^{-1} mod p; both factors < 2^26, so the product is exact in a double.
+  const t = (d * mInvP) % p;
+  return a + M * BigInt(t);
+}
+
+/** bit length of a positive bigint. */
+export function bitLength(m: bigint): number {
+  return m.toString(2).length;
+}
+
+/**
+ * Maximal-quotient rational reconstruction (Monagan, "Maximal quotient rational reconstruction:
+ * an almost optimal algorithm for rational reconstruction", ISSAC 2004): runs the extended
+ * Euclidean algorithm on (m, u) and returns the n/d ≡ u (mod m) found just before the largest
+ * quotient, provided that quotient exceeds T = 2^20·log2(m) (so a wrong answer is unlikely; the
+ * caller checks the result on a fresh prime and proves it anyway). null when no such fraction.
+ *
+ * Example: mqrr(5n * inverse(7) mod 10^9+7, 10^9+7) is 5/7.
+ */
+export function mqrr(u: bigint, m: bigint, logm = bitLength(m)): Rational | null {
+  let T = (1n << 20n) * BigInt(logm);
+  if (u === 0n) return m > T ? { num: 0n, den: 1n } : null;
+  let n = 0n, d = 0n;
+  let r0 = m, r1 = u, t0 = 0n, t1 = 1n;
+  while (r1 !== 0n && r0 > T) {
+    const q = r0 / r1;
+    if (q > T) { n = r1; d = t1; T = q; }
+    const r2 = r0 - q * r1; r0 = r1; r1 = r2;
+    const t2 = t0 - q * t1; t0 = t1; t1 = t2;
+  }
+  if (d === 0n || gcdBig(n, d) !== 1n) return null;
+  return d < 0n ? { num: -n, den: -d } : { num: n, den: d };
+}
+
+/** Rational r modulo a prime p (null when p divides the denominator). */
+export function rationalModP(r: Rational, p: number, P: bigint = BigInt(p)): number | null {
+  let den = Number(r.den % P);
+  if (den === 0) return null;
+  let num = Number(r.num % P);
+  if (num < 0) num += p;
+  if (den < 0) den += p;
+  return (num * invSmall(den, p)) % p;
+}
+
+function invSmall(a: number, p: number): number {
+  let r0 = p, r1 = a, t0 = 0, t1 = 1;
+  while (r1 !== 0) {
+    const q = Math.floor(r0 / r1);
+    const r2 = r0 - q * r1; r0 = r1; r1 = r2;
+    const t2 = t0 - q * t1; t0 = t1; t1 = t2;
+  }
+  return t0 < 0 ? t0 + p : t0;
+}
