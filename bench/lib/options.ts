@@ -50,6 +50,8 @@ export const USAGE = `npm run bench -- [options]
                     brute-force block-order std of the same steady-state system
   --truth           instead: positive steady-state counts of analyse on seeded random networks against
                     multistart Newton and Singular (--count N, default 300; --seed S; --timeout S per network)
+  --nsite           instead: analyse --json of the n-site phosphorylation cycle (numeric) for n = 1..5
+                    beside Singular's saturated lex basis (--max N, --timeout S)
   --help            this text`;
 
 export class BenchOptionError extends Error {}
