@@ -1,4 +1,4 @@
-import { AlgebraError, QQ, PolynomialRing, eliminate, fromTerms, leadingMonomial, partialDerivative, substitute, sub, terms } from "../algebra/index";
+import { AlgebraError, QQ, PolynomialRing, eliminate, equals, fromTerms, isZeroPoly, leadingMonomial, mul, partialDerivative, substitute, sub, terms } from "../algebra/index";
 import type { Rational } from "../algebra/index";
 import { ONE, ZERO, add as addQ, compare, fromInt, mul as mulQ, rational, sub as subQ, toNumber } from "../algebra/rational";
 import {
@@ -14,12 +14,13 @@ import {
 } from "../algebra/univariate/index";
 import { analyseStructure, type Network } from "../network/index";
 import { stabilityOnClass } from "../numeric/stability";
-import { Budget, type BudgetOptions } from "./budget";
-import { floatSystem } from "./float-eval";
+import { Budget, type BudgetOptions, isOutOfBudget } from "./budget";
+import { evaluateFloat, floatSystem } from "./float-eval";
 import { mapToRing, monomialOf, saturate } from "./ideal";
-import { kineticsRing, massActionOdes, rateTable, type QPoly, type QRing } from "./kinetics";
+import { kineticsRing, massActionOdes, rateTable, type KineticsRing, type QPoly, type QRing } from "./kinetics";
+import { computeParametrisation } from "./parametrisation";
 import { defaultOrder, SteadyStateInputError } from "./order";
-import { degreeIn } from "./poly-tools";
+import { degreeIn, exactQuotient, mayVanishAtPositivePoints, normaliseEquation, substituteFraction, variablesOf } from "./poly-tools";
 import { independentRows, stoichiometricRows, totalsFromInitial } from "./system";
 import { positiveSolutions } from "./zero-dimensional";
 
@@ -126,7 +127,30 @@ export function foldScan(network: Network, options: FoldScanOptions): FoldScan {
   const pName = kind === "rate" ? name : freshName(kind === "total" ? name : `${name}_0`, [...network.species, ...rates.keys()]);
   const attempts = [suggested, ...suggested.slice(0, -1).map((s) => [...suggested.filter((t) => t !== s), s])];
   let last: Error | null = null;
-  for (const order of attempts) {
+  // Linear elimination first (Feliu & Wiuf 2012): the lex bases then only see the species it leaves.
+  const full = buildFamily(varied, suggested, laws, kind, name, pName, options.initial ?? new Map());
+  const reduced = reduceFamily(full, budget, warnings);
+  if (reduced === "infeasible") return finish(full, varied, options, budget, [], "no positive steady state for any value of the parameter (linear elimination)", warnings, name, kind, { variable: suggested[suggested.length - 1], polynomial: "1" });
+  if (reduced) {
+    const u = reduced.unknowns;
+    const orders = [u, ...u.slice(0, -1).map((s) => [...u.filter((t) => t !== s), s])];
+    for (const uo of orders) {
+      const r = reorderReduced(reduced, uo);
+      budget.progress("folds", `lex basis of the reduced steady-state family in ${uo.join(", ")}, ${pName}`);
+      const sat = r.saturator.reduce((a, b) => mul(a, b), monomialOf(r.ring, r.ring.vars.map((_, i) => i)));
+      const G = saturate(r.equations, sat, budget.groebner(0.5, "folds"));
+      const analysis = criticalPolynomials(G, r.ring, uo.length, budget, r.boundary);
+      if (analysis.kind === "not-shape") {
+        last = new Error(analysis.reason);
+        continue;
+      }
+      if (analysis.kind === "continuum") throw new SteadyStateInputError(`the steady states form a continuum for generic ${name}: no finite count exists`);
+      const withReduced = { ...full, reduced: r };
+      if (analysis.kind === "none") return finish(withReduced, varied, options, budget, [], analysis.note, warnings, name, kind, { variable: uo[uo.length - 1], polynomial: "1" });
+      return finish(withReduced, varied, options, budget, analysis.polys, null, warnings, name, kind, analysis.eliminant);
+    }
+  }
+  for (const order of reduced ? [] : attempts) {
     const built = buildFamily(varied, order, laws, kind, name, pName, options.initial ?? new Map());
     budget.progress("folds", `lex basis of the steady-state family in ${order.join(", ")}, ${pName}`);
     const G = saturate(built.equations, monomialOf(built.ring, built.ring.vars.map((_, i) => i)), budget.groebner(0.5, "folds"));
@@ -147,9 +171,80 @@ interface Family {
   ring: QRing;
   /** Steady-state equations in Q[species…, p]. */
   equations: QPoly[];
+  /** Kept ODE rows and conservation equations separately (same ring). */
+  odeRows: QPoly[];
+  conservation: QPoly[];
   /** ODE right-hand sides in Q[species…, p], aligned with the species order. */
   odes: QPoly[];
   species: string[];
+  /** After linear elimination: the system in the species it leaves. */
+  reduced?: Reduced;
+}
+
+/** The steady-state family after linear elimination, in Q[unknowns…, p]. */
+interface Reduced {
+  ring: QRing;
+  unknowns: string[];
+  equations: QPoly[];
+  /** Numerators and denominators of mixed sign: saturated away, and boundary candidates. */
+  saturator: QPoly[];
+  boundary: QPoly[];
+  /** Eliminated species as num/den in the full ring, by index. */
+  eliminated: { index: number; num: QPoly; den: QPoly }[];
+}
+
+/**
+ * Linear elimination of the kept ODE rows with the parameter symbolic (only pivots of one sign, so
+ * no positive steady state is lost), then the conservation equations with the eliminated species
+ * substituted and denominators cleared (as for the numeric steady states). Null when nothing was
+ * eliminated or the elimination did not finish.
+ */
+function reduceFamily(full: Family, budget: Budget, warnings: string[]): Reduced | "infeasible" | null {
+  const ring = full.ring;
+  const pName = ring.vars[ring.n - 1];
+  const kinRing = new PolynomialRing(ring.vars, QQ, `lex(${full.species.length}), grevlex(1)`);
+  const kin = { ring: kinRing, species: full.species, rateParameters: [pName], totals: [], rateValues: new Map() } as KineticsRing;
+  let param: ReturnType<typeof computeParametrisation>;
+  try {
+    param = computeParametrisation(kin, full.odeRows.map((q) => mapToRing(q, kinRing)), budget, { definitePivotsOnly: true });
+  } catch (e) {
+    if (isOutOfBudget(e)) return null;
+    throw e;
+  }
+  if (param.infeasible) return "infeasible";
+  if (param.eliminated.length === 0 || param.unknowns.length === 0 || !param.complete) return null;
+  const elim = param.eliminated.map((e) => ({ index: ring.indexOf(e.species), num: mapToRing(e.expression.num, ring), den: mapToRing(e.expression.den, ring) }));
+  const dens: QPoly[] = [];
+  const mixed: QPoly[] = [];
+  for (const e of elim) {
+    if ([...variablesOf(e.den)].length > 0 && !dens.some((x) => equals(x, e.den))) dens.push(e.den);
+    for (const q of [e.num, e.den]) if ([...variablesOf(q)].length > 0 && mayVanishAtPositivePoints(q) && !mixed.some((x) => equals(x, q))) mixed.push(q);
+  }
+  const isSpecies = (k: number) => k < full.species.length;
+  const eqs: QPoly[] = param.remaining.map((q) => mapToRing(q, ring));
+  for (const c of full.conservation) {
+    let eq = c;
+    for (const e of elim) eq = substituteFraction(eq, e.index, e.num, e.den).value;
+    for (const d of dens)
+      for (;;) {
+        const q = exactQuotient(eq, d);
+        if (!q) break;
+        eq = q;
+      }
+    eq = normaliseEquation(eq, isSpecies);
+    if (!isZeroPoly(eq)) eqs.push(eq);
+  }
+  if (eqs.length === 0) return null;
+  const small = new PolynomialRing([...param.unknowns, pName], QQ, "lex");
+  const move = (q: QPoly) => mapToRing(q, small);
+  warnings.push(`Linear elimination (Feliu & Wiuf 2012) solved ${param.eliminated.map((e) => e.species).join(", ")}; the fold computation works in ${param.unknowns.join(", ")}.`);
+  return { ring: small, unknowns: [...param.unknowns], equations: eqs.map(move), saturator: mixed.map(move), boundary: mixed.map(move), eliminated: elim };
+}
+
+function reorderReduced(r: Reduced, unknowns: readonly string[]): Reduced {
+  const ring = new PolynomialRing([...unknowns, r.ring.vars[r.ring.n - 1]], QQ, "lex");
+  const move = (q: QPoly) => mapToRing(q, ring);
+  return { ...r, ring, unknowns: [...unknowns], equations: r.equations.map(move), saturator: r.saturator.map(move), boundary: r.boundary.map(move) };
 }
 
 /** The steady-state equations with the parameter as the last ring variable. */
@@ -168,7 +263,8 @@ function buildFamily(
   const kept = independentRows(stoichiometricRows(network, order));
   const totals = totalsFromInitial(laws, network.species, initial);
   const p = ring.variable(pName);
-  const equations = kept.map((i) => odes[i]);
+  const odeRows = kept.map((i) => odes[i]);
+  const conservation: QPoly[] = [];
   laws.forEach((w, j) => {
     const lhs = fromTerms(
       ring,
@@ -184,9 +280,9 @@ function buildFamily(
         { coeff: fromInt(c), exponents: ring.vars.map((v) => (v === pName ? 1 : 0)) },
       ]);
     } else rhs = ring.constant(totals[j]);
-    equations.push(sub(lhs, rhs));
+    conservation.push(sub(lhs, rhs));
   });
-  return { ring, equations, odes, species: [...order] };
+  return { ring, equations: [...odeRows, ...conservation], odeRows, conservation, odes, species: [...order] };
 }
 
 type Critical =
@@ -196,7 +292,7 @@ type Critical =
   | { kind: "not-shape"; reason: string };
 
 /** The univariate polynomials in p whose roots hold every value where the count of positive steady states may change. */
-function criticalPolynomials(G: QPoly[], ring: QRing, ns: number, budget: Budget): Critical {
+function criticalPolynomials(G: QPoly[], ring: QRing, ns: number, budget: Budget, boundary: readonly QPoly[] = []): Critical {
   const pIdx = ns;
   const isConst = (g: QPoly) => g.coeffs.length === 1 && g.exps.every((e) => e === 0);
   if (G.length === 1 && isConst(G[0])) return { kind: "none", note: "no positive steady state for any positive value of the parameter (the saturated ideal is the whole ring)" };
@@ -235,10 +331,10 @@ function criticalPolynomials(G: QPoly[], ring: QRing, ns: number, budget: Budget
   for (const q of disc) addPoly(mapToRing(q, ring));
   // (c) a steady state reaching the boundary xᵢ = 0.
   const species = ring.vars.slice(0, ns);
-  for (let i = 0; i < ns; i++) {
+  // (c′) after linear elimination: an eliminated species reaching 0 or ∞ (a numerator or denominator of mixed sign vanishing).
+  for (const z of [...species.map((_, i) => ring.variable(i)), ...boundary]) {
     budget.check("fold points");
-    const withZero = [...G, ring.variable(i)];
-    for (const q of eliminate(withZero, species, budget.groebner(0.3, "folds"))) addPoly(q);
+    for (const q of eliminate([...G, z], species, budget.groebner(0.3, "folds"))) addPoly(q);
   }
   return { kind: "ok", polys, eliminant: { variable: ring.vars[last], polynomial: pairRing.format(e2) } };
 }
@@ -327,14 +423,39 @@ function finish(
   const pIdx = family.species.length;
   const small = new PolynomialRing(family.species, QQ, "lex");
   const all = family.species.map((_, i) => i);
+  const solveAt = (value: Rational): number[][] | null => {
+    const r = family.reduced;
+    if (!r) {
+      const at = family.equations.map((q) => mapToRing(substitute(q, new Map([[pIdx, value]])), small)).filter((q) => q.coeffs.length > 0);
+      if (at.length === 0) return null;
+      const solved = positiveSolutions(at, budget.groebner(0.2, "scan"));
+      return solved.status === "positive-dimensional" ? null : solved.points;
+    }
+    const ur = new PolynomialRing(r.unknowns, QQ, "lex");
+    const k = r.ring.n - 1;
+    const at = r.equations.map((q) => mapToRing(substitute(q, new Map([[k, value]])), ur)).filter((q) => q.coeffs.length > 0);
+    if (at.length === 0) return null;
+    const extra = r.saturator.length > 0 ? mapToRing(substitute(r.saturator.reduce((a, b) => mul(a, b)), new Map([[k, value]])), ur) : undefined;
+    const solved = positiveSolutions(at, { ...budget.groebner(0.2, "scan"), extraSaturation: extra && extra.coeffs.length > 0 ? extra : undefined });
+    if (solved.status === "positive-dimensional") return null;
+    const pv = toNumber(value);
+    const out: number[][] = [];
+    for (const pt of solved.points) {
+      const x = new Array<number>(family.ring.n).fill(0);
+      r.unknowns.forEach((u, i) => (x[family.ring.indexOf(u)] = pt[i]));
+      x[pIdx] = pv;
+      for (const e of r.eliminated) x[e.index] = evaluateFloat(e.num, x) / evaluateFloat(e.den, x);
+      const xs = x.slice(0, pIdx);
+      if (xs.every((v) => v > 0)) out.push(xs);
+    }
+    return out;
+  };
   const statesAt = (value: Rational): ScanState[] | null => {
     budget.check("scan");
-    const at = family.equations.map((q) => mapToRing(substitute(q, new Map([[pIdx, value]])), small)).filter((q) => q.coeffs.length > 0);
-    if (at.length === 0) return null;
-    const solved = positiveSolutions(at, budget.groebner(0.2, "scan"));
-    if (solved.status === "positive-dimensional") return null;
+    const points = solveAt(value);
+    if (!points) return null;
     const odes = floatSystem(family.odes.map((q) => mapToRing(substitute(q, new Map([[pIdx, value]])), small)), all);
-    return solved.points.map((x) => {
+    return points.map((x) => {
       const st = stabilityOnClass(odes.jacobian(x), nSt);
       const concentrations: Record<string, number> = {};
       for (const s of network.species) concentrations[s] = x[family.species.indexOf(s)];

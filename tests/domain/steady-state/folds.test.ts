@@ -4,7 +4,7 @@ import { describe, expect, it } from "vitest";
 import { parseRational } from "@domain/algebra/rational";
 import { parseNetworkCsv } from "@domain/network/index";
 import { foldScan, simpleRationalBetween } from "@domain/steady-state/folds";
-import { fixture, initial } from "./helpers";
+import { TWO_SITE_BISTABLE, analyseCsv, fixture, initial } from "./helpers";
 
 const q = (t: string) => parseRational(t)!;
 const PYTHON = "/usr/bin/python3";
@@ -94,6 +94,18 @@ print(json.dumps({"roots": roots, "counts": counts}))
     expect(() => foldScan(net, { parameter: "k1", from: q("0"), to: q("1") })).toThrow(/give --initial/);
     expect(() => foldScan(net, { parameter: "nope", from: q("0"), to: q("1") })).toThrow(/neither a rate constant/);
   });
+
+  it("two-site cycle, initial F varied: linear elimination first, a 1 / 3 / 1 window around F = 1/20, each fold confirmed by the full analysis on either side", () => {
+    const r = foldScan(parseNetworkCsv(TWO_SITE_BISTABLE), { parameter: "F", from: q("1/100"), to: q("1/10"), points: 3, initial: initial("S0=2,E=1,F=1/20"), timeoutMs: 120_000 });
+    expect(r.warnings.join(" ")).toMatch(/Linear elimination/);
+    expect(r.windows.map((w) => w.count)).toEqual([1, 3, 1]);
+    expect(r.windows[1]!.from < 0.05 && r.windows[1]!.to > 0.05).toBe(true);
+    // analyseNetwork (parametrisation + numeric steady states, another code path) just below and above each fold.
+    const count = (f: string) => analyseCsv(TWO_SITE_BISTABLE, { initial: initial(`S0=2,E=1,F=${f}`), skipFullBasis: true }).steadyStates!.length;
+    const side = (v: number, d: number) => (v + d).toFixed(9);
+    expect([count(side(r.folds[0]!.value, -1e-6)), count(side(r.folds[0]!.value, 1e-6))]).toEqual([1, 3]);
+    expect([count(side(r.folds[1]!.value, -1e-6)), count(side(r.folds[1]!.value, 1e-6))]).toEqual([3, 1]);
+  }, 180_000);
 
   it("simpleRationalBetween picks a short rational strictly inside", () => {
     const r = simpleRationalBetween(q("5615/1000"), q("6384/1000"));
