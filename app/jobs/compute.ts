@@ -5,6 +5,7 @@
  */
 import { parseRational, type Rational } from "@domain/algebra/rational";
 import { toJson } from "@domain/cli/analyse";
+import { multistationarityToJson } from "@domain/cli/multistationarity";
 import { parseNetworkCsv, type Network } from "@domain/network/index";
 import { analyseNetwork, type AnalysisProgress } from "@domain/steady-state/index";
 import { foldScan } from "@domain/steady-state/folds";
@@ -65,7 +66,7 @@ export function computeJob(payload: JobPayload, options: ComputeOptions): Record
       const left = options.engineTimeoutMs - (Date.now() - started);
       let verdict: Record<string, unknown>;
       try {
-        verdict = left > 500 ? { ...multistationarity(parseNetworkCsv(payload.csv), { timeoutMs: Math.min(10_000, left / 2) }) } : { verdict: "undecided", method: "none", reason: "no time left after the analysis" };
+        verdict = left > 500 ? multistationarityToJson(multistationarity(parseNetworkCsv(payload.csv), { timeoutMs: Math.min(10_000, left / 2) })) : { verdict: "undecided", method: "none", reason: "no time left after the analysis" };
       } catch (e) {
         verdict = { verdict: "undecided", method: "none", reason: `not finished: ${(e as Error).message}` };
       }
