@@ -95,7 +95,7 @@ export interface FoldScan {
  * two sides differ are the folds (and boundary crossings); each is isolated in an interval of width
  * below 1e-9 by exact refinement.
  * Example: for 0 <-> X (k1, 11), 2X <-> 3X (6, 1) with k1 varied, E = X³ − 6X² + 11X − k1 and its
- * discriminant −27k1² + 324k1 − 972 + 4 = −(27k1² − 324k1 + 968) vanishes at k1 = 6 ± 2√3/9: three states for
+ * discriminant −(27k1² − 324k1 + 968) vanishes at k1 = 6 ± 2√3/9: three states for
  * 5.615… < k1 < 6.384…, one outside.
  */
 export function foldScan(network: Network, options: FoldScanOptions): FoldScan {
@@ -150,7 +150,8 @@ export function foldScan(network: Network, options: FoldScanOptions): FoldScan {
       return finish(withReduced, varied, options, budget, analysis.polys, null, warnings, name, kind, analysis.eliminant);
     }
   }
-  for (const order of reduced ? [] : attempts) {
+  // Without linear elimination (or when its system is not in shape position): the full system.
+  for (const order of attempts) {
     const built = buildFamily(varied, order, laws, kind, name, pName, options.initial ?? new Map());
     budget.progress("folds", `lex basis of the steady-state family in ${order.join(", ")}, ${pName}`);
     const G = saturate(built.equations, monomialOf(built.ring, built.ring.vars.map((_, i) => i)), budget.groebner(0.5, "folds"));

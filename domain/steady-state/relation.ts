@@ -8,6 +8,7 @@ import { fromInt } from "../algebra/rational";
 import { mapToRing, monomialOf, saturate } from "./ideal";
 import { analyseStructure, type Network } from "../network/index";
 import { kineticsRing, rateTable, type KineticsRing, type QPoly } from "./kinetics";
+import { variablesOf } from "./poly-tools";
 import { steadyStateSystem, totalsFromInitial } from "./system";
 
 export interface RelationResult {
@@ -39,8 +40,9 @@ export interface RelationTotals {
  * depend on the order, so grevlex (fast) is used.
  * Rate constants may appear in the expression in every run: symbolic ones stay symbols, ones with a
  * value are replaced by it. Totals (`totals.names`) may appear too: with numeric totals they are
- * replaced by their values; in both cases the conservation equations Σ w·x − T join the ideal (the
- * question is then about one class), and symbolic totals are saturated like the rate symbols (positive).
+ * replaced by their values; in both cases, when the expression names a total, the conservation equations
+ * Σ w·x − T join the ideal (the question is then about one class), and symbolic totals are saturated like
+ * the rate symbols (positive). An expression without totals is tested at every positive steady state.
  * Example: for A + B -> 2B (k1), B -> A (k2), the relation k1*A − k2 is in the ideal; with k1 = 2
  * and k2 = 3 given, "k1*A - k2" is tested as 2*A − 3.
  */
@@ -55,12 +57,14 @@ export function testRelation(text: string, kin: KineticsRing, odeRows: readonly 
   valued.forEach((k) => values.set(wide.indexOf(k), kin.rateValues.get(k)!));
   numericTotals.forEach((t) => values.set(wide.indexOf(t), totals!.values![totals!.names.indexOf(t)]));
   const parsed = wide.parse(text);
+  // Only a relation that names a total is a question about one class; others keep every positive steady state.
+  const namesTotal = (totals?.names ?? []).some((t) => wide.indexOf(t) >= 0 && variablesOf(parsed).has(wide.indexOf(t)));
   const g = mapToRing(values.size > 0 ? substitute(parsed, values) : parsed, ring);
   const params = [...kin.rateParameters, ...symbolicTotals].map((p) => ring.indexOf(p));
   const saturator = monomialOf(ring, [...kin.species.map((_, i) => i), ...params]);
   const equations = odeRows.map((p) => mapToRing(p, ring));
   // Totals named or given: the class is part of the question, so its conservation equations join the ideal.
-  if (totals && (symbolicTotals.length > 0 || totals.values))
+  if (totals && namesTotal)
     totals.laws.forEach((w, j) => {
       const lhs = fromTerms(
         ring,

@@ -62,12 +62,15 @@ describe("relation test (ideal and radical membership after saturation)", () => 
 });
 
 describe("testRelationOnNetwork", () => {
-  it("names the totals T1, … like the analysis and substitutes them from initial concentrations", async () => {
+  it("names the totals T1, … like the analysis, substitutes them from initial concentrations, and asks about one class only when a total is named", async () => {
     const { testRelationOnNetwork } = await import("@domain/steady-state/relation");
     const net = parseNetworkCsv("reaction,rate,reverse_rate,rate_value,reverse_rate_value\nA <-> B,k1,k2,1,3\n");
     // k1 = 1, k2 = 3, A(0) = 4: T1 = 4, steady state A = 3, B = 1 (hand computation).
     const m = new Map([["A", { num: 4n, den: 1n }]]);
-    expect(testRelationOnNetwork(net, "A - 3", { initial: m }).inIdeal).toBe(true);
+    // Without a total in the expression the question is about every positive steady state (A = 3B), not one class.
+    expect(testRelationOnNetwork(net, "A - 3", { initial: m }).inIdeal).toBe(false);
+    expect(testRelationOnNetwork(net, "A - 3*B", { initial: m }).inIdeal).toBe(true);
+    expect(testRelationOnNetwork(net, "A - 3*T1/4", { initial: m }).inIdeal).toBe(true);
     expect(testRelationOnNetwork(net, "k2*B - 3*k1*T1/4", { initial: m }).inIdeal).toBe(true);
     const sym = parseNetworkCsv("reaction,rate,reverse_rate\nA <-> B,k1,k2\n");
     expect(testRelationOnNetwork(sym, "(k1 + k2)*B - k1*T1").inIdeal).toBe(true);
