@@ -127,7 +127,7 @@ function computeScan(payload: Extract<JobPayload, { kind: "scan" }>, options: Co
       from: parseRational(decimalText(params.from))!,
       to: parseRational(decimalText(params.to))!,
       initial: initialMap(parent.initial) ?? new Map(),
-      points: Math.max(params.points, 41),
+      grid: scanGrid({ ...params, points: Math.max(params.points, 41) }).map((x) => parseRational(decimalText(x))!),
       timeoutMs: options.engineTimeoutMs / 2,
     });
     exact = { folds: f.folds, windows: f.windows, curve: f.points, eliminant: f.eliminant, assumptions: f.assumptions, warnings: f.warnings };

@@ -36,6 +36,8 @@ export interface FoldScanOptions extends BudgetOptions {
   readonly initial?: ReadonlyMap<string, Rational>;
   /** Evenly spaced points for the curve (default 41); points near each fold are added. */
   readonly points?: number;
+  /** The curve's parameter values instead of the even grid (e.g. log-spaced); points near each fold are still added. */
+  readonly grid?: readonly Rational[];
 }
 
 export interface FoldPoint {
@@ -495,8 +497,8 @@ function finish(
   // Points: an even grid plus points just beside each fold so the curves reach the turning points.
   const n = Math.max(2, options.points ?? 41);
   const span = subQ(options.to, options.from);
-  const grid: Rational[] = [];
-  for (let i = 0; i < n; i++) grid.push(addQ(options.from, mulQ(span, rational(BigInt(i), BigInt(n - 1)))));
+  const grid: Rational[] = options.grid ? options.grid.filter((x) => compare(x, options.from) >= 0 && compare(x, options.to) <= 0) : [];
+  if (!options.grid) for (let i = 0; i < n; i++) grid.push(addQ(options.from, mulQ(span, rational(BigInt(i), BigInt(n - 1)))));
   for (const f of folds) {
     const v = rational(BigInt(f.exact[0].split("/")[0]), BigInt(f.exact[0].split("/")[1] ?? "1"));
     const w = rational(BigInt(f.exact[1].split("/")[0]), BigInt(f.exact[1].split("/")[1] ?? "1"));

@@ -55,6 +55,16 @@ describe("job computations (what the child process runs)", () => {
     for (const s of chart.segments.filter((x) => x.stable)) for (let i = 1; i < s.data.length; i++) expect(s.data[i]!.y).toBeGreaterThanOrEqual(s.data[i - 1]!.y - 1e-9);
   }, 60_000);
 
+  it("a log-spaced scan gets a log-spaced exact curve with points beside each fold", () => {
+    const parent = analysisParams({ initial: { X: "1" } });
+    const scan = computeJob({ kind: "scan", csv: CUBIC, parent, params: { parameter: { kind: "rate", name: "k1" }, from: 1, to: 100, points: 5, spacing: "log", timeLimitSeconds: 60 } }, { engineTimeoutMs: 60_000 }) as unknown as ScanResult;
+    const xs = scan.exact!.curve.map((p) => p.value);
+    // 41 log-spaced values 10^(2i/40): the second is 10^0.05 ≈ 1.122; plus 3 points on each side of both folds.
+    expect(xs[1]).toBeCloseTo(10 ** 0.05, 9);
+    expect(xs).toHaveLength(41 + 12);
+    expect(scan.exact!.windows.map((w) => w.count)).toEqual([1, 3, 1]);
+  }, 60_000);
+
   it("a relation test in a numeric run accepts rate constants (k1 - 60) and totals", () => {
     const parent = analysisParams({ initial: { X: "1" } });
     const r = computeJob({ kind: "relation", csv: CUBIC, parent, params: { expression: "k1 - 60", timeLimitSeconds: 10 } }, { engineTimeoutMs: 10_000 });
