@@ -40,6 +40,19 @@ export interface AnalysisResult {
   unfinished?: { stage: string; reason: string }[];
   contradictions?: string[];
   parameters: { rateConstants: string[]; totals: string[]; values: Record<string, string> };
+  /** Added by the worker beside the CLI's analyse object; absent in older results. */
+  multistationarity?: MultistationarityView;
+}
+
+export interface ExactScan {
+  folds: { value: number; interval: [number, number]; exact: [string, string] }[];
+  /** Open parameter intervals between folds with the exact count of positive steady states. */
+  windows: { from: number; to: number; count: number; sample: string }[];
+  /** Curve points: an even grid plus points beside each fold. */
+  curve: { value: number; steadyStates: { concentrations: Record<string, number>; stable: boolean | null }[] }[];
+  eliminant: { variable: string; polynomial: string };
+  assumptions: string;
+  warnings: string[];
 }
 
 export interface ScanResult {
@@ -47,6 +60,18 @@ export interface ScanResult {
   spacing: "linear" | "log";
   species: string[];
   points: { value: number; states: { concentrations: Record<string, number>; verdict: string }[] | null; note?: string }[];
+  /** Exact fold points and windows (absent in scans stored before they existed, null when not computed). */
+  exact?: ExactScan | null;
+  exactNote?: string | null;
+}
+
+export interface MultistationarityView {
+  verdict: "monostationary" | "multistationary" | "undecided";
+  method: string;
+  reason: string;
+  witness?: { rates: Record<string, string>; totals: Record<string, string>; initial: Record<string, string>; steadyStates: Record<string, number>[] };
+  assumptions?: string[];
+  sources?: string[];
 }
 
 export interface RelationJobResult {

@@ -5,8 +5,12 @@
  */
 import { parseRational, type Rational } from "@domain/algebra/rational";
 import { toJson } from "@domain/cli/analyse";
+import { multistationarityToJson } from "@domain/cli/multistationarity";
 import { parseNetworkCsv, type Network } from "@domain/network/index";
 import { analyseNetwork, type AnalysisProgress } from "@domain/steady-state/index";
+import { foldScan } from "@domain/steady-state/folds";
+import { multistationarity } from "@domain/steady-state/multistationarity";
+import { testRelationOnNetwork } from "@domain/steady-state/relation";
 import { suggestedOrder } from "~/analyses/suggested-order";
 import type { AnalysisParams, RelationParams, ScanParams, TimeCourseParams } from "~/analyses/params";
 import { decimalText, effectiveOrder, scanGrid } from "~/analyses/params";
@@ -55,14 +59,40 @@ export function computeJob(payload: JobPayload, options: ComputeOptions): Record
   switch (payload.kind) {
     case "analysis": {
       const network = networkFor(payload.csv, payload.params);
+      const started = Date.now();
       const r = analyseNetwork(network, { ...analysisOptions(network, payload.params, options), initial: initialMap(payload.params.initial) });
-      return toJson(r);
+      // The multistationarity verdict is about "some constants", so it ignores the run's values; it gets a small share of the time.
+      options.onProgress?.({ phase: "multistationarity", message: "deficiency theorems, injectivity, witness search" });
+      const left = options.engineTimeoutMs - (Date.now() - started);
+      let verdict: Record<string, unknown>;
+      try {
+        verdict = left > 500 ? multistationarityToJson(multistationarity(parseNetworkCsv(payload.csv), { timeoutMs: Math.min(10_000, left / 2) })) : { verdict: "undecided", method: "none", reason: "no time left after the analysis" };
+      } catch (e) {
+        verdict = { verdict: "undecided", method: "none", reason: `not finished: ${(e as Error).message}` };
+      }
+      return { ...toJson(r), multistationarity: verdict };
     }
     case "relation": {
+      // Rate constants and totals may appear: symbolic in a symbolic run, substituted in a numeric one.
       const network = networkFor(payload.csv, payload.parent);
-      const r = analyseNetwork(network, { ...analysisOptions(network, payload.parent, options), relations: [payload.params.expression], skipFullBasis: true });
-      return { relation: r.relations[0] ?? null, warnings: r.warnings.filter((w) => /Relation|relation/.test(w)) };
+      const opts = analysisOptions(network, payload.parent, options);
+      try {
+        const relation = testRelationOnNetwork(network, payload.params.expression, {
+          order: opts.order,
+          initial: payload.parent.rateMode === "numeric" ? initialMap(payload.parent.initial) : undefined,
+          deadline: Date.now() + options.engineTimeoutMs,
+          maxBasisSize: opts.maxBasisSize,
+          maxTerms: opts.maxTerms,
+        });
+        return { relation, warnings: [] };
+      } catch (e) {
+        if (e instanceof Error && e.name === "AlgebraError" && (e as { code?: string }).code === "parse") throw new Error(`relation '${payload.params.expression}': ${e.message}`);
+        if (e instanceof Error && e.name === "AlgebraError" && ["timeout", "budget"].includes((e as { code?: string }).code ?? ""))
+          return { relation: null, warnings: [`Relation ${payload.params.expression} not decided: ${e.message}.`] };
+        throw e;
+      }
     }
+
     case "scan":
       return computeScan(payload, options);
     case "timecourse": {
@@ -87,6 +117,23 @@ function computeScan(payload: Extract<JobPayload, { kind: "scan" }>, options: Co
   const { params, parent } = payload;
   const grid = scanGrid(params);
   const start = Date.now();
+  // Exact fold points and windows first (half the time at most); the grid below stays as before.
+  let exact: Record<string, unknown> | null = null;
+  let exactNote: string | null = null;
+  try {
+    options.onProgress?.({ phase: "folds", message: `exact fold points of ${params.parameter.name}` });
+    const f = foldScan(networkFor(payload.csv, parent), {
+      parameter: params.parameter.name,
+      from: parseRational(decimalText(params.from))!,
+      to: parseRational(decimalText(params.to))!,
+      initial: initialMap(parent.initial) ?? new Map(),
+      grid: scanGrid({ ...params, points: Math.max(params.points, 41) }).map((x) => parseRational(decimalText(x))!),
+      timeoutMs: options.engineTimeoutMs / 2,
+    });
+    exact = { folds: f.folds, windows: f.windows, curve: f.points, eliminant: f.eliminant, assumptions: f.assumptions, warnings: f.warnings };
+  } catch (e) {
+    exactNote = `Exact fold points not computed: ${(e as Error).message}`;
+  }
   const points: ScanPoint[] = [];
   let species: readonly string[] = [];
   grid.forEach((value, i) => {
@@ -119,5 +166,5 @@ function computeScan(payload: Extract<JobPayload, { kind: "scan" }>, options: Co
       points.push({ value, states: null, note: (e as Error).message });
     }
   });
-  return { parameter: params.parameter, spacing: params.spacing, species: [...species], points };
+  return { parameter: params.parameter, spacing: params.spacing, species: [...species], points, exact, exactNote };
 }

@@ -254,7 +254,9 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
   for (const text of options.relations ?? []) {
     try {
       budget.progress("relations", `testing ${text}`);
-      relations.push(testRelation(text, kin, odeRows, budget.groebner(0.5, "relations")));
+      const totalNames = kineticsRing(network, { speciesOrder: species, totalCount: laws.length }).totals;
+      const relationTotals = laws.length > 0 ? { names: totalNames, laws: noTotals.conservationLaws, values: totals && totals.length > 0 ? totals : null } : undefined;
+      relations.push(testRelation(text, kin, odeRows, budget.groebner(0.5, "relations"), relationTotals));
     } catch (e) {
       if (e instanceof AlgebraError && e.code === "parse") throw new SteadyStateInputError(`relation '${text}': ${e.message}`);
       if (!isOutOfBudget(e)) throw e;

@@ -1,5 +1,6 @@
 import type { ResultView } from "~/analyses/present";
-import type { AnalysisResult } from "~/analyses/result-types";
+import type { AnalysisResult, MultistationarityView } from "~/analyses/result-types";
+import { answerOf, type Answer } from "~/analyses/answer";
 import { ParametrisationTable } from "./parametrisation-table";
 import { Tex } from "./tex";
 
@@ -33,9 +34,25 @@ export function Assumptions({ numeric }: { numeric: boolean }) {
   );
 }
 
+/** The result's answer in one sentence, before the evidence. */
+function AnswerCard({ answer }: { answer: Answer }) {
+  const tone = answer.tone === "none" ? "border-danger" : answer.tone === "states" ? "border-ok" : "border-line";
+  return (
+    <section aria-label="Answer" className={`rounded-card border-l-4 ${tone} bg-surface px-5 py-4`} data-testid="answer">
+      <p className="text-lg font-semibold" data-testid="answer-headline">{answer.headline}</p>
+      {answer.details.map((d, i) => (
+        <p key={i} className="mt-1 text-sm text-muted">
+          {d}
+        </p>
+      ))}
+    </section>
+  );
+}
+
 export function ResultsView({ view, result }: { view: ResultView; result: AnalysisResult }) {
   return (
     <div className="space-y-6" data-testid="results">
+      <AnswerCard answer={answerOf(result)} />
       <Block id="triangular" title="Triangular system (lex Gröbner basis)">
         <p className="text-sm text-muted">
           Ring order {result.ordering}. {result.groebnerBasisComplete
@@ -164,6 +181,11 @@ export function ResultsView({ view, result }: { view: ResultView; result: Analys
           </ul>
         </Block>
       )}
+      {result.multistationarity && (
+        <Block id="multistationarity" title="Can this network be multistationary?">
+          <Multistationarity m={result.multistationarity} />
+        </Block>
+      )}
       <Block id="notes" title="Notes and warnings">
         <ul className="ml-5 list-disc space-y-1 text-sm text-muted" data-testid="warnings">
           {result.warnings.map((w, i) => (
@@ -171,6 +193,76 @@ export function ResultsView({ view, result }: { view: ResultView; result: Analys
           ))}
         </ul>
       </Block>
+    </div>
+  );
+}
+
+const VERDICT_TEXT: Record<MultistationarityView["verdict"], string> = {
+  multistationary: "Yes: for some positive rate constants and totals there are two or more positive steady states in one class.",
+  monostationary: "No: for every choice of positive rate constants and totals each class holds at most one positive steady state.",
+  undecided: "Undecided: no criterion applied and no witness was found.",
+};
+
+/** The verdict for "some constants" (not the constants of this run), with its method, witness and assumptions. */
+function Multistationarity({ m }: { m: MultistationarityView }) {
+  return (
+    <div className="space-y-2 text-sm" data-testid="multistationarity">
+      <p>
+        <b data-testid="multistationarity-verdict" className={m.verdict === "multistationary" ? "text-signal" : m.verdict === "monostationary" ? "text-ok" : "text-muted"}>
+          {m.verdict}
+        </b>{" "}
+        — {VERDICT_TEXT[m.verdict]}
+      </p>
+      <p className="text-muted">
+        Method: {m.method}. {m.reason}
+      </p>
+      {m.witness && (
+        <div className="space-y-1" data-testid="multistationarity-witness">
+          <p>
+            Witness (exact values): rate constants <span className="font-mono">{Object.entries(m.witness.rates).map(([k, v]) => `${k} = ${v}`).join(", ")}</span>
+            {Object.keys(m.witness.totals).length > 0 && (
+              <>
+                ; totals <span className="font-mono">{Object.entries(m.witness.totals).map(([k, v]) => `${k} = ${v}`).join(", ")}</span>
+              </>
+            )}
+            ; e.g. from the initial state <span className="font-mono">{Object.entries(m.witness.initial).map(([k, v]) => `${k} = ${v}`).join(", ")}</span>.
+          </p>
+          <div className="overflow-x-auto rounded-card border border-line bg-surface">
+            <table className="w-full text-left text-sm">
+              <thead className="border-b border-line bg-sunken text-xs uppercase tracking-wide text-muted">
+                <tr>
+                  <th className="px-3 py-2">#</th>
+                  {Object.keys(m.witness.steadyStates[0] ?? {}).map((s) => (
+                    <th key={s} className="px-3 py-2 font-mono normal-case">
+                      {s}
+                    </th>
+                  ))}
+                </tr>
+              </thead>
+              <tbody>
+                {m.witness.steadyStates.map((st, i) => (
+                  <tr key={i} className="border-b border-line last:border-0">
+                    <td className="px-3 py-2 tabular-nums">{i + 1}</td>
+                    {Object.values(st).map((v, j) => (
+                      <td key={j} className="px-3 py-2 tabular-nums">
+                        {v.toPrecision(10)}
+                      </td>
+                    ))}
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+        </div>
+      )}
+      {m.assumptions && (
+        <ul className="ml-5 list-disc text-xs text-muted" data-testid="multistationarity-assumptions">
+          {m.assumptions.map((a, i) => (
+            <li key={i}>{a}</li>
+          ))}
+        </ul>
+      )}
+      {m.sources && m.sources.length > 0 && <p className="text-xs text-faint">Sources: {m.sources.join("; ")}.</p>}
     </div>
   );
 }

@@ -1,6 +1,6 @@
 import { useRef, useState } from "react";
-import { CartesianGrid, Line, LineChart, ReferenceArea, Tooltip, XAxis, YAxis } from "recharts";
-import { scanBranches } from "~/analyses/scan-branches";
+import { CartesianGrid, Line, LineChart, ReferenceArea, ReferenceDot, ReferenceLine, Tooltip, XAxis, YAxis } from "recharts";
+import { exactBranches, scanBranches } from "~/analyses/scan-branches";
 import type { ScanResult } from "~/analyses/result-types";
 import { downloadPng, downloadSvg } from "./download-svg";
 
@@ -14,6 +14,7 @@ const fmt = (v: number) => (Math.abs(v) >= 1000 || (Math.abs(v) < 0.01 && v !== 
 export function ScanChart({ scan, csvHref }: { scan: ScanResult; csvHref: string }) {
   const [species, setSpecies] = useState(scan.species[0] ?? "");
   const ref = useRef<HTMLDivElement>(null);
+  if (scan.exact) return <ExactScanChart scan={scan} csvHref={csvHref} species={species} setSpecies={setSpecies} />;
   const chart = scanBranches(scan, species);
   const log = scan.spacing === "log";
   const xAxis = <XAxis dataKey="x" type="number" scale={log ? "log" : "linear"} domain={["dataMin", "dataMax"]} tickFormatter={fmt} allowDataOverflow />;
@@ -69,11 +70,128 @@ export function ScanChart({ scan, csvHref }: { scan: ScanResult; csvHref: string
           <Line dataKey="count" type="stepAfter" stroke={COLOURS[2]} strokeWidth={2} dot={{ r: 2 }} isAnimationActive={false} />
         </LineChart>
       </div>
+      {scan.exactNote && <p className="text-xs text-muted">{scan.exactNote}</p>}
       {scan.points.some((p) => p.states === null) && (
         <p className="text-xs text-muted">
           Points without a result: {scan.points.filter((p) => p.states === null).map((p) => `${fmt(p.value)} (${p.note ?? "not computed"})`).join(", ")}.
         </p>
       )}
+    </div>
+  );
+}
+
+const sig = (v: number) => Number(v.toPrecision(10)).toString();
+
+/**
+ * The exact scan: each branch a continuous curve (tracked between points, joined at the folds),
+ * stable runs solid and unstable dashed, fold points marked, exact windows with several positive
+ * steady states shaded; below it the exact count on each window.
+ */
+function ExactScanChart({ scan, csvHref, species, setSpecies }: { scan: ScanResult; csvHref: string; species: string; setSpecies: (s: string) => void }) {
+  const ref = useRef<HTMLDivElement>(null);
+  const exact = scan.exact!;
+  const chart = exactBranches(exact, species);
+  const log = scan.spacing === "log" && exact.curve.every((p) => p.value > 0);
+  const xs = exact.curve.map((p) => p.value);
+  const domain: [number, number] = [Math.min(...xs), Math.max(...xs)];
+  const xAxis = <XAxis dataKey="x" type="number" scale={log ? "log" : "linear"} domain={domain} tickFormatter={fmt} allowDataOverflow allowDuplicatedCategory={false} />;
+  const name = scan.parameter.kind === "rate" ? scan.parameter.name : `${scan.parameter.name}(0)`;
+  const counts = exact.windows.flatMap((w) => [{ x: Math.max(w.from, domain[0]), count: w.count }, { x: Math.min(w.to, domain[1]), count: w.count }]);
+  return (
+    <div className="space-y-2" data-testid="scan-chart" data-exact="true">
+      <div className="flex flex-wrap items-center gap-3 text-sm">
+        <label className="inline-flex items-center gap-2">
+          Species
+          <select className="rounded-md border border-line bg-surface px-2 py-1" value={species} onChange={(e) => setSpecies(e.target.value)}>
+            {scan.species.map((s) => (
+              <option key={s}>{s}</option>
+            ))}
+          </select>
+        </label>
+        <span className="text-muted">
+          <span className="mr-1 inline-block w-6 border-t-2 border-accent align-middle" /> stable
+          <span className="ml-3 mr-1 inline-block w-6 border-t-2 border-dashed border-danger align-middle" /> unstable
+          <span className="ml-3 mr-1 inline-block h-2 w-2 rounded-full bg-ink align-middle" /> fold point
+        </span>
+        <a href={csvHref} className="ml-auto text-accent-strong hover:underline" download>
+          Plot data (CSV)
+        </a>
+        <button type="button" className="text-accent-strong hover:underline" onClick={() => downloadSvg(ref.current, `scan-${scan.parameter.name}-${species}.svg`)}>
+          Chart (SVG)
+        </button>
+        <button type="button" className="text-accent-strong hover:underline" onClick={() => downloadPng(ref.current, `scan-${scan.parameter.name}-${species}.png`)}>
+          Chart (PNG)
+        </button>
+      </div>
+      {chart.multistable.length > 0 && (
+        <p className="text-sm font-medium text-signal" data-testid="multistable">
+          {chart.multistable.map((m) => `${m.count} positive steady states for ${sig(m.from)} < ${name} < ${sig(m.to)}`).join("; ")} (exact window between fold points)
+        </p>
+      )}
+      <div ref={ref} className="overflow-x-auto rounded-md border border-line bg-surface p-2">
+        <LineChart width={760} height={320} margin={{ top: 10, right: 20, bottom: 20, left: 10 }}>
+          <CartesianGrid stroke="#eeede6" />
+          {xAxis}
+          <YAxis dataKey="y" type="number" tickFormatter={fmt} label={{ value: species, angle: -90, position: "insideLeft" }} domain={["auto", "auto"]} />
+          <Tooltip formatter={(v) => (typeof v === "number" ? v.toPrecision(6) : String(v))} labelFormatter={(v) => `${name} = ${fmt(Number(v))}`} />
+          {chart.multistable.map((m, i) => (
+            <ReferenceArea key={`w${i}`} x1={Math.max(m.from, domain[0])} x2={Math.min(m.to, domain[1])} fill="#f8ecd6" fillOpacity={0.6} />
+          ))}
+          {exact.folds.map((f, i) => (
+            <ReferenceLine key={`f${i}`} x={f.value} stroke="#8a8778" strokeDasharray="2 3" />
+          ))}
+          {chart.segments.map((seg, i) => (
+            <Line
+              key={`seg${i}`}
+              data={seg.data}
+              dataKey="y"
+              name={`branch ${seg.branch + 1} ${seg.stable ? "stable" : "unstable"}`}
+              className={seg.stable ? "branch-stable" : "branch-unstable"}
+              stroke={seg.stable ? COLOURS[0] : COLOURS[3]}
+              strokeWidth={2}
+              strokeDasharray={seg.stable ? undefined : "6 4"}
+              dot={false}
+              isAnimationActive={false}
+            />
+          ))}
+          {chart.foldMarkers.map((m, i) => (
+            <ReferenceDot
+              key={`m${i}`}
+              x={m.x}
+              y={m.y}
+              r={4}
+              shape={(p: { cx?: number; cy?: number }) => <circle cx={p.cx} cy={p.cy} r={4.5} fill="#1b1b18" stroke="#ffffff" strokeWidth={1.5} data-testid="fold-marker" />}
+            />
+          ))}
+        </LineChart>
+        <LineChart width={760} height={140} data={counts} margin={{ top: 5, right: 20, bottom: 20, left: 10 }}>
+          <CartesianGrid stroke="#eeede6" />
+          {xAxis}
+          <YAxis allowDecimals={false} label={{ value: "count", angle: -90, position: "insideLeft" }} domain={[0, "dataMax"]} />
+          <Line dataKey="count" type="linear" stroke={COLOURS[2]} strokeWidth={2} dot={false} isAnimationActive={false} />
+        </LineChart>
+      </div>
+      <div className="text-sm" data-testid="fold-points">
+        {exact.folds.length === 0 ? (
+          <p className="text-muted">No fold point in this range: the number of positive steady states is the same throughout.</p>
+        ) : (
+          <ul className="space-y-0.5">
+            {exact.folds.map((f, i) => (
+              <li key={i} data-testid="fold-point" className="font-mono">
+                fold at {name} = {sig(f.value)} <span className="text-muted">(isolated in [{f.interval[0]}, {f.interval[1]}])</span>
+              </li>
+            ))}
+          </ul>
+        )}
+        <ul className="mt-1 text-muted" data-testid="scan-windows">
+          {exact.windows.map((w, i) => (
+            <li key={i}>
+              {sig(w.from)} &lt; {name} &lt; {sig(w.to)}: {w.count} positive steady state{w.count === 1 ? "" : "s"}
+            </li>
+          ))}
+        </ul>
+        <p className="mt-1 text-xs text-muted">Assumes: {exact.assumptions}</p>
+      </div>
     </div>
   );
 }

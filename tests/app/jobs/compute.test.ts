@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { parseNetworkCsv } from "@domain/network/index";
 import { computeJob } from "~/jobs/compute";
 import { simulateTimeCourse } from "~/jobs/time-course";
-import { scanBranches } from "~/analyses/scan-branches";
+import { exactBranches, scanBranches } from "~/analyses/scan-branches";
 import { scanCsv } from "~/analyses/exports";
 import { parseProgress } from "~/jobs/progress";
 import type { ScanResult, TimeCourseResult } from "~/analyses/result-types";
@@ -31,6 +31,53 @@ describe("job computations (what the child process runs)", () => {
     const csv = scanCsv(scan).split("\n");
     expect(csv[0]).toBe("k1,state,count,verdict,X");
     expect(csv.filter((l) => l.startsWith("6,"))).toEqual(["6,1,3,stable,1", "6,2,3,unstable,2", "6,3,3,stable,3"]);
+  }, 60_000);
+
+  it("a scan carries the exact folds and windows, and its branches are continuous curves joined at the folds", () => {
+    // Folds at k1 = 6 ± 2√3/9 (hand computation from the discriminant −(27k1² − 324k1 + 968) of X³ − 6X² + 11X − k1).
+    const parent = analysisParams({ initial: { X: "1" } });
+    const scan = computeJob({ kind: "scan", csv: CUBIC, parent, params: { parameter: { kind: "rate", name: "k1" }, from: 5, to: 7, points: 11, spacing: "linear", timeLimitSeconds: 60 } }, { engineTimeoutMs: 60_000 }) as unknown as ScanResult;
+    expect(scan.exact!.folds.map((f) => f.value)).toEqual([5.615099821, 6.384900179]);
+    expect(scan.exact!.windows.map((w) => w.count)).toEqual([1, 3, 1]);
+    const chart = exactBranches(scan.exact!, "X");
+    expect(chart.multistable).toEqual([{ from: expect.closeTo(5.6150998, 6), to: expect.closeTo(6.3849002, 6), count: 3 }]);
+    expect(chart.foldMarkers.map((m) => m.x)).toEqual([5.615099821, 6.384900179]);
+    // The S-curve: X at the folds is 2 ± 1/√3 (double roots, by hand).
+    expect(chart.foldMarkers.map((m) => m.y).sort((a, b) => a - b)).toEqual([expect.closeTo(2 - 1 / Math.sqrt(3), 2), expect.closeTo(2 + 1 / Math.sqrt(3), 2)]);
+    const unstable = chart.segments.filter((s) => !s.stable);
+    expect(unstable).toHaveLength(1);
+    // The unstable middle branch runs from one fold to the other, between X = 2 − 1/√3 and 2 + 1/√3.
+    const mid = unstable[0]!.data;
+    expect(mid[0]!.x).toBe(5.615099821);
+    expect(mid[mid.length - 1]!.x).toBe(6.384900179);
+    for (const p of mid) expect(p.y > 2 - 1 / Math.sqrt(3) - 1e-3 && p.y < 2 + 1 / Math.sqrt(3) + 1e-3).toBe(true);
+    // Each stable run is monotone increasing in X along k1 (dX/dk1 > 0 on stable branches).
+    for (const s of chart.segments.filter((x) => x.stable)) for (let i = 1; i < s.data.length; i++) expect(s.data[i]!.y).toBeGreaterThanOrEqual(s.data[i - 1]!.y - 1e-9);
+  }, 60_000);
+
+  it("a log-spaced scan gets a log-spaced exact curve with points beside each fold", () => {
+    const parent = analysisParams({ initial: { X: "1" } });
+    const scan = computeJob({ kind: "scan", csv: CUBIC, parent, params: { parameter: { kind: "rate", name: "k1" }, from: 1, to: 100, points: 5, spacing: "log", timeLimitSeconds: 60 } }, { engineTimeoutMs: 60_000 }) as unknown as ScanResult;
+    const xs = scan.exact!.curve.map((p) => p.value);
+    // 41 log-spaced values 10^(2i/40): the second is 10^0.05 ≈ 1.122; plus 3 points on each side of both folds.
+    expect(xs[1]).toBeCloseTo(10 ** 0.05, 9);
+    expect(xs).toHaveLength(41 + 12);
+    expect(scan.exact!.windows.map((w) => w.count)).toEqual([1, 3, 1]);
+  }, 60_000);
+
+  it("a relation test in a numeric run accepts rate constants (k1 - 60) and totals", () => {
+    const parent = analysisParams({ initial: { X: "1" } });
+    const r = computeJob({ kind: "relation", csv: CUBIC, parent, params: { expression: "k1 - 60", timeLimitSeconds: 10 } }, { engineTimeoutMs: 10_000 });
+    expect(r.relation).toMatchObject({ expression: "-54", inIdeal: false, vanishes: false });
+    const mm = "reaction,rate,reverse_rate,rate_value,reverse_rate_value\nA <-> B,k1,k2,1,3\n";
+    const t = computeJob({ kind: "relation", csv: mm, parent: analysisParams({ initial: { A: "4" } }), params: { expression: "A - 3*T1/4", timeLimitSeconds: 10 } }, { engineTimeoutMs: 10_000 });
+    expect(t.relation).toMatchObject({ inIdeal: true });
+  });
+
+  it("an analysis result carries the multistationarity verdict with its witness", () => {
+    const r = computeJob({ kind: "analysis", csv: CUBIC, params: analysisParams({ initial: { X: "1" } }) }, { engineTimeoutMs: 30_000 }) as { multistationarity: { verdict: string; witness: { steadyStates: unknown[] } } };
+    expect(r.multistationarity.verdict).toBe("multistationary");
+    expect(r.multistationarity.witness.steadyStates.length).toBeGreaterThanOrEqual(2);
   }, 60_000);
 
   it("a relation test gives the exact verdict and remainder", () => {

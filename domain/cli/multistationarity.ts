@@ -1,0 +1,56 @@
+import { AlgebraError } from "../algebra/index";
+import { NetworkFileError, parseNetworkCsv } from "../network/index";
+import { multistationarity, type MultistationarityResult } from "../steady-state/multistationarity";
+import { SteadyStateInputError } from "../steady-state/index";
+import type { CliIO, CommandModule } from "./io";
+import { CliError, parseArgs, readInput } from "./io";
+
+const USAGE = "usage: multistationarity NETWORK.csv [--timeout SECONDS] [--json]";
+
+/** The CLI contract's JSON object: verdict, method, reason, witness? (plus assumptions and sources). */
+export function multistationarityToJson(r: MultistationarityResult): Record<string, unknown> {
+  return {
+    verdict: r.verdict,
+    method: r.method,
+    reason: r.reason,
+    ...(r.witness ? { witness: r.witness } : {}),
+    assumptions: r.assumptions,
+    sources: r.sources,
+  };
+}
+
+function report(r: MultistationarityResult): string {
+  const lines = [`Verdict: ${r.verdict} (${r.method})`, r.reason];
+  if (r.witness) {
+    lines.push("", "Witness:");
+    lines.push(`  rate constants: ${Object.entries(r.witness.rates).map(([k, v]) => `${k}=${v}`).join(", ")}`);
+    if (Object.keys(r.witness.totals).length > 0) lines.push(`  totals: ${Object.entries(r.witness.totals).map(([k, v]) => `${k}=${v}`).join(", ")}`);
+    lines.push(`  initial state with these totals: ${Object.entries(r.witness.initial).map(([k, v]) => `${k}=${v}`).join(",")}`);
+    r.witness.steadyStates.forEach((s, i) => lines.push(`  steady state #${i + 1}: ${Object.entries(s).map(([k, v]) => `${k}=${v.toPrecision(10)}`).join(", ")}`));
+  }
+  lines.push("", "Assumes:", ...r.assumptions.map((a) => `  - ${a}`), "", "Sources:", ...r.sources.map((s) => `  - ${s}`));
+  return lines.join("\n") + "\n";
+}
+
+/** `multistationarity NETWORK.csv [--json]`: can some positive rate constants give ≥ 2 positive steady states in one class? */
+export function run(args: readonly string[], io: CliIO): number {
+  const json = args.includes("--json");
+  const { positionals, flags } = parseArgs(args.filter((a) => a !== "--json"), ["timeout"]);
+  if (positionals.length !== 1) throw new CliError(USAGE);
+  const timeout = flags.has("timeout") ? Number(flags.get("timeout")) : 60;
+  if (!(timeout > 0)) throw new CliError("--timeout expects a positive number of seconds");
+  let result: MultistationarityResult;
+  try {
+    result = multistationarity(parseNetworkCsv(readInput(io, positionals[0])), { timeoutMs: timeout * 1000 });
+  } catch (e) {
+    if (e instanceof NetworkFileError || e instanceof SteadyStateInputError || e instanceof AlgebraError) throw new CliError(e.message);
+    throw e;
+  }
+  io.stdout(json ? JSON.stringify(multistationarityToJson(result), null, 2) + "\n" : report(result));
+  return 0;
+}
+
+export const command: CommandModule = {
+  run,
+  summary: "multistationarity NETWORK.csv [--json]   can some rate constants give two positive steady states in one class?",
+};
