@@ -85,6 +85,9 @@ describe.skipIf(!hasApp)("analyses in headless chromium", () => {
       expect(await rows.nth(0).getByTestId(`conc-${species}`).innerText()).toBe(value.toPrecision(12));
     }
     expect(await rows.nth(0).innerText()).toContain(cli.steadyStates[0]!.verdict);
+    // The result opens with its answer, before the evidence.
+    const n = cli.steadyStates.length;
+    expect(await page.getByTestId("answer-headline").innerText()).toMatch(new RegExp(`^${n} positive steady states? in this class: `));
     expect(await page.getByTestId("assumptions").innerText()).toMatch(/Mass-action/);
     expect(await page.getByTestId("pinned").innerText()).toMatch(/version 2 · engine /);
   }, 120_000);
