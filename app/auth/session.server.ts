@@ -61,13 +61,25 @@ function createStorage() {
         .executeTakeFirst();
       return (row?.data as never) ?? null;
     },
-    // An upsert: a cookie whose row was deleted (signed out elsewhere) starts over as anonymous.
+    // Only a live row is updated. A row that is gone was ended (sign-out, sign-out everywhere,
+    // expiry) and stays ended: a request that read the session before it was deleted must not
+    // re-insert it. Such a cookie starts over as an anonymous session (identity stripped), so a
+    // visitor mid-sign-in keeps `returnTo` but never a `userId` or `pendingEmail`.
     async updateData(id, data, expires) {
+      const idHash = sha256Hex(id);
       const values = { user_id: userIdOf(data), data: data as JsonObject, expires_at: expiry(expires) };
+      const updated = await db()
+        .updateTable("sessions")
+        .set(values)
+        .where("id_hash", "=", idHash)
+        .where("expires_at", ">", new Date())
+        .executeTakeFirst();
+      if (Number(updated.numUpdatedRows) > 0) return;
+      const { userId: _u, pendingEmail: _p, ...anonymous } = data as SessionData;
       await db()
         .insertInto("sessions")
-        .values({ id_hash: sha256Hex(id), ...values })
-        .onConflict((oc) => oc.column("id_hash").doUpdateSet(values))
+        .values({ id_hash: idHash, user_id: null, data: anonymous as JsonObject, expires_at: expiry(expires) })
+        .onConflict((oc) => oc.column("id_hash").doUpdateSet({ user_id: null, data: anonymous as JsonObject, expires_at: expiry(expires) }))
         .execute();
     },
     async deleteData(id) {
