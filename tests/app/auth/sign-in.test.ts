@@ -149,6 +149,33 @@ describe.skipIf(!hasTestDatabase)("sign-in with an e-mailed code", () => {
     expect(await signedInAs(right.cookie)).toBeNull();
   });
 
+  it("wrong codes sent with someone else's address (forged _totp cookie) do not lock that person's code", async () => {
+    const victim = await requestCode("known@lab.test");
+    // The attacker never asked for a code; they write the victim's address into the unsigned cookie.
+    const forged = "_totp=email=known%40lab.test";
+    const wrong = victim.code === "AAAAAA" ? "BBBBBB" : "AAAAAA";
+    for (let i = 0; i < policy.maxWrongAttempts + 2; i++) {
+      const r = await typeCode(forged, wrong);
+      expect(r.out.status).toBe(400);
+      expect(await signedInAs(r.cookie)).toBeNull();
+    }
+    const row = await t.db.selectFrom("login_codes").select("attempts").where("email", "=", "known@lab.test").orderBy("created_at", "desc").executeTakeFirstOrThrow();
+    expect(row.attempts).toBe(0);
+    const done = await typeCode(victim.cookie, victim.code!);
+    expect(done.out.status).toBe(302);
+    expect(await signedInAs(done.cookie)).toBe("known@lab.test");
+  });
+
+  it("a ticket for one's own code cannot spend attempts on another address's code", async () => {
+    const victim = await requestCode("known@lab.test");
+    const attacker = await requestCode("attacker@lab.test", { client: "192.0.2.9" });
+    const swapped = attacker.cookie.replace("email=attacker%40lab.test", "email=known%40lab.test");
+    expect(swapped).not.toBe(attacker.cookie);
+    for (let i = 0; i < policy.maxWrongAttempts; i++) await typeCode(swapped, "AAAAAA");
+    const done = await typeCode(victim.cookie, victim.code!);
+    expect(done.out.status).toBe(302);
+  });
+
   it(`expires a code after ${10} minutes`, async () => {
     const first = await requestCode("known@lab.test");
     vi.useFakeTimers({ toFake: ["Date"] });
