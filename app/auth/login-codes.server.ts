@@ -2,6 +2,7 @@ import { sql } from "kysely";
 import { getEnv } from "~/env.server";
 import { db } from "~/db.server";
 import { hmacHex } from "./hashing.server";
+import { takeRateLimit } from "./rate-limit.server";
 
 /**
  * Server-side ledger of e-mailed sign-in codes. remix-auth-totp keeps its state in a cookie the
@@ -36,28 +37,16 @@ const keyed = (value: string) => hmacHex(getEnv().totpSecret, value);
 export type RequestVerdict = { allowed: true } | { allowed: false; retryAfterSeconds: number };
 
 /**
- * May this client request another code for this address now? Counts requests in the sliding
- * window; the answer does not depend on whether the address has an account.
+ * May this client request another code for this address now? Takes one slot per address and per
+ * client in the sliding window, atomically (rate-limit.server.ts), so parallel requests cannot
+ * overrun the limits; the answer does not depend on whether the address has an account.
  */
-export async function checkCodeRequest(email: string, client: string, now = new Date()): Promise<RequestVerdict> {
-  const since = new Date(now.getTime() - SIGN_IN_POLICY.windowMinutes * 60_000);
-  const count = async (column: "email" | "client_key", value: string) => {
-    const rows = await db()
-      .selectFrom("login_codes")
-      .select("created_at")
-      .where(column, "=", value)
-      .where("created_at", ">", since)
-      .orderBy("created_at", "asc")
-      .execute();
-    return rows.map((r) => r.created_at);
-  };
-  const byAddress = await count("email", email);
-  const byClient = await count("client_key", client);
-  const blockedBy = (times: Date[], max: number) => (times.length >= max ? times[times.length - max] : undefined);
-  const oldest = blockedBy(byAddress, SIGN_IN_POLICY.maxRequestsPerAddress) ?? blockedBy(byClient, SIGN_IN_POLICY.maxRequestsPerClient);
-  if (!oldest) return { allowed: true };
-  const freeAt = oldest.getTime() + SIGN_IN_POLICY.windowMinutes * 60_000;
-  return { allowed: false, retryAfterSeconds: Math.max(1, Math.ceil((freeAt - now.getTime()) / 1000)) };
+export async function checkCodeRequest(email: string, client: string): Promise<RequestVerdict> {
+  const windowMinutes = SIGN_IN_POLICY.windowMinutes;
+  return takeRateLimit([
+    { bucket: `code:address:${keyed(email)}`, max: SIGN_IN_POLICY.maxRequestsPerAddress, windowMinutes },
+    { bucket: `code:client:${client}`.slice(0, 200), max: SIGN_IN_POLICY.maxRequestsPerClient, windowMinutes },
+  ]);
 }
 
 /**

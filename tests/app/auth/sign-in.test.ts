@@ -39,6 +39,7 @@ describe.skipIf(!hasTestDatabase)("sign-in with an e-mailed code", () => {
   beforeEach(async () => {
     outbox.length = 0;
     await t.db.deleteFrom("login_codes").execute();
+    await t.db.deleteFrom("rate_limit_events").execute();
   });
   afterEach(() => {
     vi.useRealTimers();
@@ -231,6 +232,21 @@ describe.skipIf(!hasTestDatabase)("sign-in with an e-mailed code", () => {
     // A forged first hop does not help: the proxy's own hop is the last one.
     expect((await requestCode("one-more@lab.test", { client: "203.0.113.1, 198.51.100.7" })).out.status).toBe(429);
     expect((await requestCode("one-more@lab.test", { client: "192.0.2.44" })).out.status).toBe(302);
+  });
+
+  it("holds the per-client limit under 100 parallel requests (one client, many addresses)", async () => {
+    const results = await Promise.all(
+      Array.from({ length: 100 }, (_, i) => requestCode(`parallel${i}@lab.test`, { client: "198.51.100.50" })),
+    );
+    expect(results.filter((r) => r.out.status === 302)).toHaveLength(policy.maxRequestsPerClient);
+    expect(results.filter((r) => r.out.status === 429)).toHaveLength(100 - policy.maxRequestsPerClient);
+    expect(outbox).toHaveLength(policy.maxRequestsPerClient);
+  });
+
+  it("holds the per-address limit under 40 parallel requests for one address", async () => {
+    const results = await Promise.all(Array.from({ length: 40 }, (_, i) => requestCode("known@lab.test", { client: `10.9.0.${i}` })));
+    expect(results.filter((r) => r.out.status === 302)).toHaveLength(policy.maxRequestsPerAddress);
+    expect(outbox).toHaveLength(policy.maxRequestsPerAddress);
   });
 
   it("refuses malformed addresses without sending mail", async () => {
