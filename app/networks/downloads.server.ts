@@ -1,4 +1,5 @@
 import { formatNetworkCsv, parseNetworkCsv } from "@domain/network/index";
+import { csvTextSafe } from "~/downloads/escape";
 import { stoichiometricMatrixCsv } from "./matrix-csv";
 import type { NetworkRecord, VersionRecord } from "./networks.server";
 import { massActionOdes, odesLatexDocument } from "./odes";
@@ -16,7 +17,7 @@ export function downloadFile(network: NetworkRecord, version: VersionRecord, fil
     new Response(body, { headers: { "Content-Type": `${type}; charset=utf-8`, "Content-Disposition": `attachment; filename="${name}"` } });
   switch (file) {
     case "network.csv":
-      return send(formatNetworkCsv(parseNetworkCsv(version.csv)), "text/csv", `${stem}.csv`);
+      return send(csvTextSafe(formatNetworkCsv(parseNetworkCsv(version.csv))), "text/csv", `${stem}.csv`);
     case "odes.tex":
       return send(odesLatexDocument(`${network.name} (version ${version.number})`, massActionOdes(structureOf(version.csv))), "application/x-tex", `${stem}-odes.tex`);
     case "stoichiometric-matrix.csv":
