@@ -30,3 +30,4 @@ export { type ConservationAnalysis, type ConservationOptions, analyseConservatio
 export { type DirectedGraph, connectedComponents, stronglyConnectedComponents, terminalComponents } from "./graph";
 export { type TheoremVerdict, deficiencyZeroVerdict, deficiencyOneVerdict } from "./deficiency-theorems";
 export { type NetworkStructure, type ReactionSummary, analyseStructure } from "./structure";
+export { NETWORK_LIMITS, networkLimitProblems, rateValueWithinLimits } from "./limits";
