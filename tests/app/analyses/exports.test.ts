@@ -52,7 +52,7 @@ describe("exports and the page's view of a result", () => {
   it("CSV cells a spreadsheet would execute get a leading apostrophe; plain numbers stay numbers", () => {
     const evil = { ...result, species: ["=cmd", ...result.species.slice(1)] } as AnalysisResult;
     const first = result.species[0]!;
-    evil.parametrisation = { free: ["@SUM(A1)"], expressions: { "+x": "-k1*x", "-1": "2" } };
+    evil.parametrisation = { ...result.parametrisation!, free: ["@SUM(A1)"], expressions: { "+x": "-k1*x", "-1": "2" } };
     evil.steadyStates = (result.steadyStates ?? []).map((st) => ({ ...st, concentrations: { ...st.concentrations, "=cmd": st.concentrations[first]! } }));
     const params = exportAnalysis("parametrisation.csv", evil, meta).body;
     const cells = params.trim().split("\n").slice(1).flatMap((l) => l.split(","));
