@@ -68,7 +68,7 @@ describe.skipIf(!hasTestDatabase)("fair queues", () => {
     const db = asAnalysesDb(t.db);
     const job = (lab: typeof alpha, v: string) => makeJob(t.db, { kind: "analysis", labId: lab.lab.id, networkVersionId: v, params: analysisParams(), startedBy: lab.owner.id, timeLimitSeconds: 60 });
     const busy = await job(alpha, alphaVersion);
-    await t.db.updateTable("analyses").set({ status: "running", worker_id: "w0", heartbeat_at: new Date() }).where("id", "=", busy.id).execute();
+    await asAnalysesDb(t.db).updateTable("analyses").set({ status: "running", worker_id: "w0", heartbeat_at: new Date() }).where("id", "=", busy.id).execute();
     const older = [await job(alpha, alphaVersion), await job(alpha, alphaVersion), await job(alpha, alphaVersion)];
     const tiny = await job(beta, betaVersion);
     // The queue message names alpha's oldest waiting job; beta's job goes first anyway.
