@@ -160,13 +160,37 @@ function guardBody(req: http.IncomingMessage, res: http.ServerResponse): Promise
 
 const READS = new Set(["GET", "HEAD", "OPTIONS"]);
 
+/**
+ * Adds SECURITY_HEADERS to whatever the response writes, at writeHead time. Not with setHeader up
+ * front: Node merges a later writeHead(status, [name, value, …]) into set headers one setHeader
+ * at a time, so of several Set-Cookie lines (the sign-in sets three) only the last would survive.
+ */
+function addSecurityHeaders(res: http.ServerResponse): void {
+  const original = res.writeHead.bind(res) as (...args: unknown[]) => http.ServerResponse;
+  res.writeHead = ((status: number, ...rest: unknown[]) => {
+    const headersAt = typeof rest[0] === "string" ? 1 : 0;
+    const headers = rest[headersAt];
+    const has = (name: string) =>
+      Array.isArray(headers)
+        ? headers.some((h, i) => i % 2 === 0 && String(h).toLowerCase() === name.toLowerCase())
+        : headers && typeof headers === "object"
+          ? Object.keys(headers).some((k) => k.toLowerCase() === name.toLowerCase())
+          : res.hasHeader(name);
+    const missing = Object.entries(SECURITY_HEADERS).filter(([name]) => !has(name));
+    if (Array.isArray(headers)) rest[headersAt] = [...headers, ...missing.flat()];
+    else if (headers && typeof headers === "object") rest[headersAt] = { ...headers, ...Object.fromEntries(missing) };
+    else for (const [name, value] of missing) res.setHeader(name, value);
+    return original(status, ...rest);
+  }) as typeof res.writeHead;
+}
+
 /** The request listener: security headers and client address first, then static files, then body limits, then the app. */
 export function appListener(options: ListenerOptions): http.RequestListener {
   const clientDir = path.resolve(options.clientDir);
   const assetsDir = path.join(clientDir, "assets");
   const publicPath = options.publicPath || "/";
   return (req, res) => {
-    for (const [name, value] of Object.entries(SECURITY_HEADERS)) res.setHeader(name, value);
+    addSecurityHeaders(res);
     setClientAddress(req, options.trustProxy ?? false);
     if (req.method === "GET" || req.method === "HEAD") {
       const pathname = (req.url ?? "/").split("?")[0];

@@ -167,6 +167,23 @@ describe("request guards: body limits, NUL characters, security headers", () => 
     expect((await server.send("/labs/alpha", { method: "POST", headers: { "Content-Type": "application/x-www-form-urlencoded" }, body: "name=fine" })).status).toBe(200);
   });
 
+  it("keeps every Set-Cookie line the app writes (the sign-in sets several) alongside the security headers", async () => {
+    const cookies = await listen(
+      appListener({
+        clientDir: path.join(os.tmpdir(), "stillpoint-no-client"),
+        // As @react-router/node writes a response: one raw array, Set-Cookie repeated.
+        handle: (_req, res) => res.writeHead(302, ["Location", "/next", "Set-Cookie", "a=1", "Set-Cookie", "b=2", "Set-Cookie", "c=3"]).end(),
+      }),
+    );
+    try {
+      const out = await cookies.send("/sign-in", { method: "POST", headers: { "Content-Type": "application/x-www-form-urlencoded" }, body: "email=a" });
+      expect(out.headers["set-cookie"]).toEqual(["a=1", "b=2", "c=3"]);
+      expect(out.headers["x-frame-options"]).toBe("DENY");
+    } finally {
+      await cookies.close();
+    }
+  });
+
   it("sends the security headers on pages and on refusals", async () => {
     for (const out of [await server.send("/labs"), await server.send("/sign-in", { method: "POST", headers: { "Content-Length": "99999999" }, body: "" }).catch(() => undefined)]) {
       if (!out) continue;
