@@ -17,7 +17,7 @@ export async function checkHealth(db: Kysely<any>, version: string): Promise<Hea
     return {
       ok: false,
       version,
-      database: { reachable: false, error: err instanceof Error ? err.message : String(err) },
+      database: { reachable: false, error: err instanceof Error ? err.message : err instanceof Response ? "cannot connect" : String(err) },
       migrations: { current: false, applied: 0, pending: [] },
     };
   }

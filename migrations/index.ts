@@ -2,6 +2,7 @@ import type { Migration } from "kysely";
 import * as initial from "./20261201220000_initial";
 import * as accounts from "./20261201230000_accounts";
 import * as analyses from "./20261201234500_analyses";
+import * as rateLimits from "./20261202070000_rate_limits";
 
 /**
  * Every migration, keyed by its file name without extension, in the order they run.
@@ -12,4 +13,5 @@ export const migrations: Record<string, Migration> = {
   "20261201220000_initial": initial,
   "20261201230000_accounts": accounts,
   "20261201234500_analyses": analyses,
+  "20261202070000_rate_limits": rateLimits,
 };

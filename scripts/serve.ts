@@ -11,7 +11,9 @@ import { createReadStream, type Stats, statSync } from "node:fs";
 import http from "node:http";
 import path from "node:path";
 import { pathToFileURL } from "node:url";
+import { Readable } from "node:stream";
 import type { ServerBuild } from "react-router";
+import { bodyLimitFor, errorBody, nulLocation, SECURITY_HEADERS } from "./lib/request-guards";
 
 const CONTENT_TYPES: Record<string, string> = {
   ".js": "text/javascript; charset=utf-8",
@@ -98,12 +100,97 @@ export interface ListenerOptions {
   handle: http.RequestListener;
 }
 
-/** The request listener: client address first, then static files, then the app. */
+/** Answers with the API's error shape and stops reading whatever the client is still sending. */
+function refuse(req: http.IncomingMessage, res: http.ServerResponse, status: number, body: string) {
+  if (res.headersSent) return;
+  res.writeHead(status, { "Content-Type": "application/json; charset=utf-8", Connection: "close" });
+  res.end(body, () => req.destroy());
+}
+
+/**
+ * Reads a write's body up to the route's limit (refusing a larger declared length unread and
+ * cutting a chunked body off at the limit), refuses NUL characters, and hands the app a copy of
+ * the request whose body is the bytes read. Resolves undefined when it has answered itself.
+ */
+function guardBody(req: http.IncomingMessage, res: http.ServerResponse): Promise<http.IncomingMessage | undefined> {
+  const pathname = (req.url ?? "/").split("?")[0]!;
+  const limit = bodyLimitFor(pathname);
+  const tooLarge = () => errorBody("payload_too_large", `The request body is larger than this address accepts (${Math.round(limit / 1024)} KiB).`, { limitBytes: limit });
+  const declared = Number(req.headers["content-length"] ?? 0);
+  if (declared > limit) {
+    refuse(req, res, 413, tooLarge());
+    return Promise.resolve(undefined);
+  }
+  return new Promise((resolve) => {
+    const chunks: Buffer[] = [];
+    let size = 0;
+    let done = false;
+    req.on("data", (chunk: Buffer) => {
+      if (done) return;
+      size += chunk.length;
+      if (size > limit) {
+        done = true;
+        req.pause();
+        refuse(req, res, 413, tooLarge());
+        resolve(undefined);
+        return;
+      }
+      chunks.push(chunk);
+    });
+    req.on("error", () => {
+      if (!done) resolve(undefined);
+      done = true;
+    });
+    req.on("end", () => {
+      if (done) return;
+      done = true;
+      const body = Buffer.concat(chunks);
+      const nul = nulLocation(String(req.headers["content-type"] ?? ""), body);
+      if (nul) {
+        refuse(req, res, 400, errorBody("invalid_request", `The request contains a NUL character in ${nul}; remove it and send again.`, { where: nul }));
+        return resolve(undefined);
+      }
+      // The app reads the body from this copy; everything else is the original request's.
+      const copy = Readable.from(body.length > 0 ? [body] : []) as unknown as http.IncomingMessage;
+      Object.assign(copy, { method: req.method, url: req.url, headers: req.headers, rawHeaders: req.rawHeaders, socket: req.socket, httpVersion: req.httpVersion });
+      resolve(copy);
+    });
+  });
+}
+
+const READS = new Set(["GET", "HEAD", "OPTIONS"]);
+
+/**
+ * Adds SECURITY_HEADERS to whatever the response writes, at writeHead time. Not with setHeader up
+ * front: Node merges a later writeHead(status, [name, value, …]) into set headers one setHeader
+ * at a time, so of several Set-Cookie lines (the sign-in sets three) only the last would survive.
+ */
+function addSecurityHeaders(res: http.ServerResponse): void {
+  const original = res.writeHead.bind(res) as (...args: unknown[]) => http.ServerResponse;
+  res.writeHead = ((status: number, ...rest: unknown[]) => {
+    const headersAt = typeof rest[0] === "string" ? 1 : 0;
+    const headers = rest[headersAt];
+    const has = (name: string) =>
+      Array.isArray(headers)
+        ? headers.some((h, i) => i % 2 === 0 && String(h).toLowerCase() === name.toLowerCase())
+        : headers && typeof headers === "object"
+          ? Object.keys(headers).some((k) => k.toLowerCase() === name.toLowerCase())
+          : res.hasHeader(name);
+    const missing = Object.entries(SECURITY_HEADERS).filter(([name]) => !has(name));
+    if (Array.isArray(headers)) rest[headersAt] = [...headers, ...missing.flat()];
+    else if (headers && typeof headers === "object") rest[headersAt] = { ...headers, ...Object.fromEntries(missing) };
+    else for (const [name, value] of missing) res.setHeader(name, value);
+    return original(status, ...rest);
+  }) as typeof res.writeHead;
+}
+
+/** The request listener: security headers and client address first, then static files, then body limits, then the app. */
 export function appListener(options: ListenerOptions): http.RequestListener {
   const clientDir = path.resolve(options.clientDir);
   const assetsDir = path.join(clientDir, "assets");
   const publicPath = options.publicPath || "/";
   return (req, res) => {
+    addSecurityHeaders(res);
     setClientAddress(req, options.trustProxy ?? false);
     if (req.method === "GET" || req.method === "HEAD") {
       const pathname = (req.url ?? "/").split("?")[0];
@@ -114,7 +201,10 @@ export function appListener(options: ListenerOptions): http.RequestListener {
         if (found) return sendFile(req, res, found, asset !== undefined);
       }
     }
-    void options.handle(req, res);
+    if (READS.has(req.method ?? "GET")) return void options.handle(req, res);
+    void guardBody(req, res).then((guarded) => {
+      if (guarded) void options.handle(guarded, res);
+    });
   };
 }
 

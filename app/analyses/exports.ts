@@ -1,10 +1,10 @@
 /**
- * Downloads of a finished analysis: the whole result as JSON, tables as CSV (papaparse), formulas
+ * Downloads of a finished analysis: the whole result as JSON, tables as CSV (papaparse, formula-safe cells), formulas
  * as a LaTeX document. Pure functions of the stored result, so a share link exports the same.
  */
-import Papa from "papaparse";
 import type { AnalysisResult, ScanResult } from "./result-types";
 import { toTex } from "./latex";
+import { csvTable, texCommentText } from "~/downloads/escape";
 
 export type ExportFile = "result.json" | "parametrisation.csv" | "steady-states.csv" | "formulas.tex";
 export const EXPORT_FILES: readonly ExportFile[] = ["result.json", "parametrisation.csv", "steady-states.csv", "formulas.tex"];
@@ -22,7 +22,7 @@ export function exportAnalysis(file: ExportFile, r: AnalysisResult, meta: Export
       return { body: JSON.stringify({ ...meta, result: r }, null, 2) + "\n", contentType: "application/json; charset=utf-8" };
     case "parametrisation.csv": {
       const rows = Object.entries(r.parametrisation?.expressions ?? {}).map(([species, expression]) => ({ species, expression, free: (r.parametrisation?.free ?? []).join(" ") }));
-      return { body: Papa.unparse(rows, { columns: ["species", "expression", "free"], newline: "\n" }) + "\n", contentType: "text/csv; charset=utf-8" };
+      return { body: csvTable(["species", "expression", "free"], rows), contentType: "text/csv; charset=utf-8" };
     }
     case "steady-states.csv": {
       const rows = (r.steadyStates ?? []).map((s, i) => ({
@@ -31,7 +31,7 @@ export function exportAnalysis(file: ExportFile, r: AnalysisResult, meta: Export
         verdict: s.verdict,
         eigenvalues: s.eigenvalues.map((e) => (typeof e === "number" ? `${e}` : `${e.re}${e.im < 0 ? "-" : "+"}${Math.abs(e.im)}i`)).join(" "),
       }));
-      return { body: Papa.unparse(rows, { columns: ["state", ...r.species, "verdict", "eigenvalues"], newline: "\n" }) + "\n", contentType: "text/csv; charset=utf-8" };
+      return { body: csvTable(["state", ...r.species, "verdict", "eigenvalues"], rows), contentType: "text/csv; charset=utf-8" };
     }
     case "formulas.tex":
       return { body: latexDocument(r, meta), contentType: "application/x-tex; charset=utf-8" };
@@ -40,7 +40,7 @@ export function exportAnalysis(file: ExportFile, r: AnalysisResult, meta: Export
 
 function latexDocument(r: AnalysisResult, meta: ExportMeta): string {
   const lines = [
-    `% Steady-state analysis exported from Stillpoint: ${meta.network}, version ${meta.version}, engine ${meta.engineVersion}.`,
+    `% Steady-state analysis exported from Stillpoint: ${texCommentText(meta.network)}, version ${meta.version}, engine ${texCommentText(meta.engineVersion)}.`,
     "% Mass-action kinetics, positive concentrations, generic values of the symbolic parameters.",
     "\\documentclass{article}",
     "\\usepackage{amsmath}",
@@ -72,5 +72,5 @@ export function scanCsv(s: ScanResult): string {
         ? [{ [s.parameter.name]: p.value, state: "", count: 0, verdict: "" }]
         : p.states.map((st, i) => ({ [s.parameter.name]: p.value, state: i + 1, count: p.states!.length, verdict: st.verdict, ...st.concentrations })),
   );
-  return Papa.unparse(rows, { columns: [s.parameter.name, "state", "count", "verdict", ...s.species], newline: "\n" }) + "\n";
+  return csvTable([s.parameter.name, "state", "count", "verdict", ...s.species], rows);
 }

@@ -47,6 +47,14 @@ export interface TimeCourseParams {
 export type Problems = { field: string; message: string }[];
 export type Parsed<T> = { ok: true; value: T } | { ok: false; problems: Problems };
 
+/**
+ * What no lab may exceed, whatever its owner sets (anyone can create a lab, so a lab's own limits
+ * cannot be the only bound): the longest time limit of one job, and how many jobs may wait or run
+ * at once per person and per lab. Each lab's share of the workers is further kept fair when a
+ * worker picks its next job (claimNextJob in app/jobs).
+ */
+export const SITE_LIMITS = { maxTimeLimitSeconds: 900, maxActiveJobsPerUser: 10, maxActiveJobsPerLab: 20 } as const;
+
 export interface Limits {
   maxTimeLimitSeconds: number;
   maxBasisSize: number;

@@ -4,7 +4,9 @@
  */
 import { sql } from "kysely";
 import type { AnalysisStatus, JsonObject } from "~/db/schema";
-import type { Limits } from "./params";
+import { SITE_LIMITS, type Limits } from "./params";
+
+export { SITE_LIMITS };
 import { ENGINE_VERSION } from "./engine-version";
 import type { AnalysesDb, JobKind, JobRow } from "./schema";
 
@@ -12,7 +14,9 @@ export const DEFAULT_LIMITS: Limits = { maxTimeLimitSeconds: 300, maxBasisSize: 
 
 export async function labLimits(db: AnalysesDb, labId: string): Promise<Limits> {
   const row = await db.selectFrom("lab_analysis_settings").select(["max_time_limit_seconds", "max_basis_size"]).where("lab_id", "=", labId).executeTakeFirst();
-  return row ? { maxTimeLimitSeconds: row.max_time_limit_seconds, maxBasisSize: row.max_basis_size } : DEFAULT_LIMITS;
+  if (!row) return DEFAULT_LIMITS;
+  // A value stored before the site maximum existed is capped on the way out.
+  return { maxTimeLimitSeconds: Math.min(row.max_time_limit_seconds, SITE_LIMITS.maxTimeLimitSeconds), maxBasisSize: row.max_basis_size };
 }
 
 export async function setLabLimits(db: AnalysesDb, labId: string, limits: Limits): Promise<void> {
@@ -51,6 +55,36 @@ export async function insertJob(db: AnalysesDb, job: NewJob): Promise<JobRow> {
     })
     .returningAll()
     .executeTakeFirstOrThrow();
+}
+
+/**
+ * insertJob, unless the starter (in all their labs) or the lab already has the site's maximum of
+ * jobs waiting or running: counted and inserted in one transaction under advisory locks on the lab
+ * and the starter, so a burst of parallel requests cannot slip past the cap. Returns a message for the person when refused.
+ */
+export async function insertJobWithinCaps(db: AnalysesDb, job: NewJob): Promise<{ ok: true; job: JobRow } | { ok: false; message: string }> {
+  return db.transaction().execute(async (trx) => {
+    // Lab before user, always in this order, so two starters never wait on each other in a cycle.
+    for (const key of [`jobs:lab:${job.labId}`, `jobs:user:${job.startedBy}`]) {
+      await sql`SELECT pg_advisory_xact_lock(hashtextextended(${key}, 16))`.execute(trx);
+    }
+    const active = await trx
+      .selectFrom("analyses")
+      .select([
+        sql<number>`count(*) FILTER (WHERE lab_id = ${job.labId})::int`.as("lab"),
+        sql<number>`count(*) FILTER (WHERE started_by = ${job.startedBy})::int`.as("mine"),
+      ])
+      .where((eb) => eb.or([eb("lab_id", "=", job.labId), eb("started_by", "=", job.startedBy)]))
+      .where("status", "in", ["queued", "running"])
+      .executeTakeFirstOrThrow();
+    if (active.mine >= SITE_LIMITS.maxActiveJobsPerUser) {
+      return { ok: false as const, message: `you already have ${active.mine} jobs waiting or running (at most ${SITE_LIMITS.maxActiveJobsPerUser}); start more when some have finished, or cancel one` };
+    }
+    if (active.lab >= SITE_LIMITS.maxActiveJobsPerLab) {
+      return { ok: false as const, message: `this lab already has ${active.lab} jobs waiting or running (at most ${SITE_LIMITS.maxActiveJobsPerLab}); start more when some have finished` };
+    }
+    return { ok: true as const, job: await insertJob(trx as unknown as AnalysesDb, job) };
+  });
 }
 
 /** A job with what pages need about its network; undefined for other labs (no existence leak). */

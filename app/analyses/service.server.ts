@@ -10,7 +10,7 @@ import { enqueue } from "~/jobs/queue.server";
 import type { LabAccess } from "~/permissions/permissions.server";
 import type { VersionRecord } from "~/networks/networks.server";
 import { parseAnalysisParams, parseRelationParams, parseScanParams, parseTimeCourseParams, type AnalysisParams, type Problems } from "./params";
-import { insertJob, labLimits, requestCancel, type JobRecord } from "./repository.server";
+import { insertJobWithinCaps, labLimits, requestCancel, type JobRecord } from "./repository.server";
 import type { AnalysesDb, JobKind, JobRow } from "./schema";
 
 export type StartOutcome = { ok: true; job: JobRow } | { ok: false; problems: Problems };
@@ -31,7 +31,7 @@ export function networkOf(csv: string): Network {
 export async function startAnalysis(db: AnalysesDb, access: LabAccess, version: VersionRecord, input: Record<string, unknown>): Promise<StartOutcome> {
   const parsed = parseAnalysisParams(input, networkOf(version.csv), await labLimits(db, access.lab.id));
   if (!parsed.ok) return parsed;
-  const job = await insertJob(db, {
+  const inserted = await insertJobWithinCaps(db, {
     kind: "analysis",
     labId: access.lab.id,
     networkVersionId: version.id,
@@ -41,8 +41,9 @@ export async function startAnalysis(db: AnalysesDb, access: LabAccess, version: 
     timeLimitSeconds: parsed.value.timeLimitSeconds,
     notify: parsed.value.notify,
   });
-  await queue(job);
-  return { ok: true, job };
+  if (!inserted.ok) return { ok: false, problems: [{ field: "queue", message: inserted.message }] };
+  await queue(inserted.job);
+  return { ok: true, job: inserted.job };
 }
 
 /** A scan, relation test or time course hanging off an analysis (same network version and settings). */
@@ -61,7 +62,7 @@ export async function startFollowUp(db: AnalysesDb, access: LabAccess, parent: J
   if (!parsed.ok) return parsed;
   if (kind === "timecourse" && (parentParams.rateMode !== "numeric" || !parentParams.initial))
     return { ok: false, problems: [{ field: "endTime", message: "a time course needs an analysis with numeric rate constants and initial concentrations" }] };
-  const job = await insertJob(db, {
+  const inserted = await insertJobWithinCaps(db, {
     kind,
     labId: access.lab.id,
     networkVersionId: parent.network_version_id,
@@ -71,8 +72,9 @@ export async function startFollowUp(db: AnalysesDb, access: LabAccess, parent: J
     timeLimitSeconds: parsed.value.timeLimitSeconds,
     notify: false,
   });
-  await queue(job);
-  return { ok: true, job };
+  if (!inserted.ok) return { ok: false, problems: [{ field: "queue", message: inserted.message }] };
+  await queue(inserted.job);
+  return { ok: true, job: inserted.job };
 }
 
 export async function cancelJob(db: AnalysesDb, job: JobRecord) {

@@ -1,3 +1,4 @@
+import { AsyncLocalStorage } from "node:async_hooks";
 import { redirect } from "react-router";
 import { Authenticator } from "remix-auth";
 import { TOTPStrategy } from "remix-auth-totp";
@@ -17,6 +18,12 @@ export const SIGN_IN_PATHS = {
   magicLink: "/sign-in/magic",
   welcome: "/welcome",
 } as const;
+
+/**
+ * The ledger row of the code issued while handling one request, read back by the sign-in step
+ * for the browser's ticket. (remix-auth copies the Request, so the request object cannot be the key.)
+ */
+export const issuedCode = new AsyncLocalStorage<{ codeId?: string }>();
 
 /** Thrown inside `verify` when our ledger refuses; the strategy turns it into its error cookie. */
 export const CODE_GONE = "That code has expired or was already used. Please request a new one.";
@@ -49,7 +56,9 @@ function createAuthenticator() {
         // The strategy builds the link from the request origin; behind a proxy that is internal.
         const link = new URL(magicLink);
         const publicLink = new URL(link.pathname + link.search, env.appUrl).toString();
-        await recordIssuedCode({ email, code, linkToken: link.searchParams.get("t") ?? "", client: clientKey(request) });
+        const codeId = await recordIssuedCode({ email, code, linkToken: link.searchParams.get("t") ?? "", client: clientKey(request) });
+        const holder = issuedCode.getStore();
+        if (holder) holder.codeId = codeId;
         try {
           await sendMail(signInCodeMail({ to: email, code, magicLink: publicLink, minutes: SIGN_IN_POLICY.codeMinutes }));
         } catch (err) {

@@ -2,6 +2,7 @@ import { sql } from "kysely";
 import { getEnv } from "~/env.server";
 import { db } from "~/db.server";
 import { hmacHex } from "./hashing.server";
+import { takeRateLimit } from "./rate-limit.server";
 
 /**
  * Server-side ledger of e-mailed sign-in codes. remix-auth-totp keeps its state in a cookie the
@@ -36,34 +37,26 @@ const keyed = (value: string) => hmacHex(getEnv().totpSecret, value);
 export type RequestVerdict = { allowed: true } | { allowed: false; retryAfterSeconds: number };
 
 /**
- * May this client request another code for this address now? Counts requests in the sliding
- * window; the answer does not depend on whether the address has an account.
+ * May this client request another code for this address now? Takes one slot per address and per
+ * client in the sliding window, atomically (rate-limit.server.ts), so parallel requests cannot
+ * overrun the limits; the answer does not depend on whether the address has an account.
  */
-export async function checkCodeRequest(email: string, client: string, now = new Date()): Promise<RequestVerdict> {
-  const since = new Date(now.getTime() - SIGN_IN_POLICY.windowMinutes * 60_000);
-  const count = async (column: "email" | "client_key", value: string) => {
-    const rows = await db()
-      .selectFrom("login_codes")
-      .select("created_at")
-      .where(column, "=", value)
-      .where("created_at", ">", since)
-      .orderBy("created_at", "asc")
-      .execute();
-    return rows.map((r) => r.created_at);
-  };
-  const byAddress = await count("email", email);
-  const byClient = await count("client_key", client);
-  const blockedBy = (times: Date[], max: number) => (times.length >= max ? times[times.length - max] : undefined);
-  const oldest = blockedBy(byAddress, SIGN_IN_POLICY.maxRequestsPerAddress) ?? blockedBy(byClient, SIGN_IN_POLICY.maxRequestsPerClient);
-  if (!oldest) return { allowed: true };
-  const freeAt = oldest.getTime() + SIGN_IN_POLICY.windowMinutes * 60_000;
-  return { allowed: false, retryAfterSeconds: Math.max(1, Math.ceil((freeAt - now.getTime()) / 1000)) };
+export async function checkCodeRequest(email: string, client: string): Promise<RequestVerdict> {
+  const windowMinutes = SIGN_IN_POLICY.windowMinutes;
+  return takeRateLimit([
+    { bucket: `code:address:${keyed(email)}`, max: SIGN_IN_POLICY.maxRequestsPerAddress, windowMinutes },
+    { bucket: `code:client:${client}`.slice(0, 200), max: SIGN_IN_POLICY.maxRequestsPerClient, windowMinutes },
+  ]);
 }
 
-/** Records a freshly sent code (and its magic-link token); earlier open codes for the address stop working. */
-export async function recordIssuedCode(args: { email: string; code: string; linkToken: string; client: string }) {
+/**
+ * Records a freshly sent code (and its magic-link token); earlier open codes for the address stop
+ * working. Returns the ledger row id, which the requesting browser gets as its ticket
+ * (code-ticket.server.ts).
+ */
+export async function recordIssuedCode(args: { email: string; code: string; linkToken: string; client: string }): Promise<string> {
   const now = new Date();
-  await db().transaction().execute(async (trx) => {
+  return db().transaction().execute(async (trx) => {
     await trx
       .updateTable("login_codes")
       .set({ invalidated_at: now })
@@ -71,7 +64,7 @@ export async function recordIssuedCode(args: { email: string; code: string; link
       .where("consumed_at", "is", null)
       .where("invalidated_at", "is", null)
       .execute();
-    await trx
+    const row = await trx
       .insertInto("login_codes")
       .values({
         email: args.email,
@@ -80,25 +73,28 @@ export async function recordIssuedCode(args: { email: string; code: string; link
         client_key: args.client,
         expires_at: new Date(now.getTime() + SIGN_IN_POLICY.codeMinutes * 60_000),
       })
-      .execute();
+      .returning("id")
+      .executeTakeFirstOrThrow();
     // Old rows are only needed for the rate-limit window.
     await trx.deleteFrom("login_codes").where("created_at", "<", new Date(now.getTime() - 86_400_000)).execute();
+    return row.id;
   });
 }
 
 export type CodeCheck = "ok" | "wrong" | "locked" | "expired";
 
 /**
- * Checks a typed code against the address's open code, counting a wrong guess. After
- * `maxWrongAttempts` wrong guesses the code is dead ("locked") even if the next guess is right.
+ * Checks a typed code against the issued code the browser's ticket names (`codeId`, the ledger
+ * row), counting a wrong guess on that row. After `maxWrongAttempts` wrong guesses the code is
+ * dead ("locked") even if the next guess is right. The counter belongs to the issued code, so
+ * nobody can burn another person's attempts by naming their address.
  */
-export async function checkTypedCode(email: string, code: string): Promise<{ result: CodeCheck; attemptsLeft: number }> {
-  // The newest code of the address is the only one that can work (a new request replaces older ones).
+export async function checkTypedCode(codeId: string, email: string, code: string): Promise<{ result: CodeCheck; attemptsLeft: number }> {
   const open = await db()
     .selectFrom("login_codes")
     .select(["id", "code_hash", "attempts", "expires_at", "consumed_at", "invalidated_at"])
+    .where("id", "=", codeId)
     .where("email", "=", email)
-    .orderBy("created_at", "desc")
     .executeTakeFirst();
   if (!open || open.consumed_at || open.expires_at <= new Date()) return { result: "expired", attemptsLeft: 0 };
   if (open.attempts >= SIGN_IN_POLICY.maxWrongAttempts) return { result: "locked", attemptsLeft: 0 };

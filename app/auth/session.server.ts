@@ -61,13 +61,25 @@ function createStorage() {
         .executeTakeFirst();
       return (row?.data as never) ?? null;
     },
-    // An upsert: a cookie whose row was deleted (signed out elsewhere) starts over as anonymous.
+    // Only a live row is updated. A row that is gone was ended (sign-out, sign-out everywhere,
+    // expiry) and stays ended: a request that read the session before it was deleted must not
+    // re-insert it. Such a cookie starts over as an anonymous session (identity stripped), so a
+    // visitor mid-sign-in keeps `returnTo` but never a `userId` or `pendingEmail`.
     async updateData(id, data, expires) {
+      const idHash = sha256Hex(id);
       const values = { user_id: userIdOf(data), data: data as JsonObject, expires_at: expiry(expires) };
+      const updated = await db()
+        .updateTable("sessions")
+        .set(values)
+        .where("id_hash", "=", idHash)
+        .where("expires_at", ">", new Date())
+        .executeTakeFirst();
+      if (Number(updated.numUpdatedRows) > 0) return;
+      const { userId: _u, pendingEmail: _p, ...anonymous } = data as SessionData;
       await db()
         .insertInto("sessions")
-        .values({ id_hash: sha256Hex(id), ...values })
-        .onConflict((oc) => oc.column("id_hash").doUpdateSet(values))
+        .values({ id_hash: idHash, user_id: null, data: anonymous as JsonObject, expires_at: expiry(expires) })
+        .onConflict((oc) => oc.column("id_hash").doUpdateSet({ user_id: null, data: anonymous as JsonObject, expires_at: expiry(expires) }))
         .execute();
     },
     async deleteData(id) {
@@ -119,10 +131,31 @@ export async function sweepExpiredSessions(): Promise<void> {
   await db().deleteFrom("sessions").where("expires_at", "<=", new Date()).execute();
 }
 
-/** A local path only, so `returnTo` cannot send anyone to another site. */
+const RETURN_BASE = "http://stillpoint.invalid";
+
+/**
+ * A same-origin path only, normalised, so `returnTo` can neither send anyone to another site nor
+ * break the redirect header. Browsers drop tabs and newlines from URLs (WHATWG URL parsing), so
+ * `/\t/evil.example` would become `//evil.example`, another host: any control character,
+ * whitespace (ASCII or not, e.g. U+3000) or backslash refuses the value outright. What remains is
+ * resolved against a placeholder origin and must stay on it; the answer is the resolved path
+ * (percent-encoded ASCII, safe in a Location header) with no leading `//`.
+ *
+ *   safeReturnTo("/labs/x?y=1")              // "/labs/x?y=1"
+ *   safeReturnTo("/\t/evil.example/phish")  // "/labs"
+ *   safeReturnTo("/a/../b")                  // "/b"
+ */
 export function safeReturnTo(value: unknown, fallback = "/labs"): string {
-  if (typeof value !== "string" || !value.startsWith("/") || value.startsWith("//") || value.includes("\\")) {
+  if (typeof value !== "string" || value.length > 2048 || !value.startsWith("/") || value.startsWith("//")) return fallback;
+  if (/[\u0000-\u0020\u007f-\u00a0\\\s\u2028\u2029\ufeff]/u.test(value)) return fallback;
+  let url: URL;
+  try {
+    url = new URL(value, RETURN_BASE);
+  } catch {
     return fallback;
   }
-  return value;
+  if (url.origin !== RETURN_BASE) return fallback;
+  const path = url.pathname + url.search + url.hash;
+  if (!path.startsWith("/") || path.startsWith("//")) return fallback;
+  return path;
 }

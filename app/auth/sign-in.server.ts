@@ -1,7 +1,8 @@
 import { redirect } from "react-router";
 import { db } from "~/db.server";
 import { recordAudit } from "~/labs/audit.server";
-import { authenticator, CODE_GONE, SIGN_IN_PATHS } from "./authenticator.server";
+import { authenticator, CODE_GONE, issuedCode, SIGN_IN_PATHS } from "./authenticator.server";
+import { readTicket, ticketCookie } from "./code-ticket.server";
 import { clientKey } from "./client-key.server";
 import { checkCodeRequest, checkTypedCode, isOpenLink, looksLikeEmail, normalizeCode, normalizeEmail } from "./login-codes.server";
 import { commitSession, destroySession, getSession, rotateSession, safeReturnTo } from "./session.server";
@@ -26,12 +27,16 @@ function withForm(request: Request, fields: Record<string, string>): Request {
   return new Request(request.url, { method: "POST", headers, body: new URLSearchParams(fields).toString() });
 }
 
-/** Lets the strategy run and adds our session cookie to whatever it throws. */
+/** Lets the strategy run and adds our session cookie (and the ticket of a code it issued) to whatever it throws. */
 async function runStrategy(request: Request, extraCookie?: string): Promise<never> {
+  const issued: { codeId?: string } = {};
   try {
-    await authenticator().authenticate("totp", request);
+    await issuedCode.run(issued, () => authenticator().authenticate("totp", request));
   } catch (thrown) {
-    if (thrown instanceof Response && extraCookie) thrown.headers.append("Set-Cookie", extraCookie);
+    if (thrown instanceof Response) {
+      if (extraCookie) thrown.headers.append("Set-Cookie", extraCookie);
+      if (issued.codeId) thrown.headers.append("Set-Cookie", ticketCookie(issued.codeId));
+    }
     throw thrown;
   }
   throw new Error("remix-auth-totp returned instead of redirecting");
@@ -52,14 +57,19 @@ export async function requestSignInCode(request: Request): Promise<Refusal> {
   return runStrategy(withForm(request, { email }), await commitSession(session));
 }
 
-/** Step 2a: the typed code. Wrong guesses are counted per code; the strategy checks the rest. */
+/**
+ * Step 2a: the typed code. Wrong guesses are counted on the issued code named by this browser's
+ * signed ticket (not on the address in the unsigned `_totp` cookie); the strategy checks the rest.
+ */
 export async function verifySignInCode(request: Request): Promise<Refusal> {
   const { email } = readTotpCookie(request);
   if (!email) throw redirect(SIGN_IN_PATHS.start);
   const form = await request.formData();
   const code = normalizeCode(form.get("code"));
   if (!code) return { status: 400, error: "Please enter the code from the e-mail." };
-  const check = await checkTypedCode(email, code);
+  const codeId = readTicket(request);
+  if (!codeId) return { status: 400, error: CODE_GONE };
+  const check = await checkTypedCode(codeId, email, code);
   if (check.result === "expired") return { status: 400, error: CODE_GONE };
   if (check.result === "locked") return { status: 429, error: "Too many wrong codes. Please request a new one." };
   if (check.result === "wrong") {

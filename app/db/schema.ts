@@ -146,6 +146,13 @@ export interface SessionsTable {
 }
 
 /** Ledger of e-mailed sign-in codes: single use, attempt and rate limits (same migration). */
+/** One counted action in a rate-limit bucket (migrations/20261202070000_rate_limits.ts). */
+export interface RateLimitEventsTable {
+  id: Generated<string>;
+  bucket: string;
+  created_at: CreatedAt;
+}
+
 export interface LoginCodesTable {
   id: Generated<string>;
   /** Lower-case. */
@@ -173,6 +180,7 @@ export interface Database {
   audit_events: AuditEventsTable;
   sessions: SessionsTable;
   login_codes: LoginCodesTable;
+  rate_limit_events: RateLimitEventsTable;
 }
 
 export type User = Selectable<UsersTable>;

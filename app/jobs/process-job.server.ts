@@ -25,6 +25,29 @@ export interface ProcessOptions {
   onChildStarted?: (analysisId: string, pid: number | undefined) => void;
 }
 
+/**
+ * Claims the next job fairly, atomically: of the queued jobs, the one whose lab has the fewest
+ * jobs running, then whose starter has the fewest running, then the job this queue message names,
+ * then the oldest. A queue message only means "there is work" (each job has one), so every queued
+ * job is still claimed exactly once, but one lab's burst no longer makes another lab's tiny job wait
+ * behind all of it. `FOR UPDATE SKIP LOCKED` lets workers claim side by side.
+ */
+export async function claimNextJob(db: AnalysesDb, workerId: string, preferId: string | null): Promise<JobRow | undefined> {
+  const picked = await sql<{ id: string }>`
+    SELECT a.id FROM analyses a
+    WHERE a.status = 'queued' AND a.cancel_requested_at IS NULL
+    ORDER BY
+      (SELECT count(*) FROM analyses r WHERE r.lab_id = a.lab_id AND r.status = 'running'),
+      (SELECT count(*) FROM analyses r WHERE r.started_by = a.started_by AND r.status = 'running'),
+      (a.id = ${preferId}) DESC NULLS LAST,
+      a.created_at, a.id
+    LIMIT 1
+    FOR UPDATE OF a SKIP LOCKED`.execute(db);
+  const id = picked.rows[0]?.id;
+  if (!id) return undefined;
+  return claim(db, id, workerId);
+}
+
 async function claim(db: AnalysesDb, id: string, workerId: string): Promise<JobRow | undefined> {
   return db
     .updateTable("analyses")
@@ -68,20 +91,23 @@ export function stopAllChildren(reason: string): void {
 
 const seconds = (ms: number) => `${Math.round(ms / 100) / 10} s`;
 
-/** Processes job `id` if it is still queued; returns the final status it wrote (or null if not claimed). */
-export async function processJob(db: AnalysesDb, id: string, options: ProcessOptions): Promise<string | null> {
-  const row = await claim(db, id, options.workerId);
-  if (!row) {
-    // Cancelled while waiting (e.g. after a requeue): settle it rather than leave it queued.
-    await db
-      .updateTable("analyses")
-      .set({ status: "cancelled", finished_at: sql`now()`, error: "Cancelled before a worker started it.", progress: { stage: "cancelled" } })
-      .where("id", "=", id)
-      .where("status", "=", "queued")
-      .where("cancel_requested_at", "is not", null)
-      .execute();
-    return null;
-  }
+/**
+ * Handles one queue message: settles the named job if it was cancelled while waiting, then claims
+ * the fairest queued job (claimNextJob; usually the named one) and runs it. Returns the final status
+ * it wrote, or null if nothing was claimed.
+ */
+export async function processJob(db: AnalysesDb, messageId: string, options: ProcessOptions): Promise<string | null> {
+  // Cancelled while waiting (e.g. after a requeue): settle it rather than leave it queued.
+  await db
+    .updateTable("analyses")
+    .set({ status: "cancelled", finished_at: sql`now()`, error: "Cancelled before a worker started it.", progress: { stage: "cancelled" } })
+    .where("id", "=", messageId)
+    .where("status", "=", "queued")
+    .where("cancel_requested_at", "is not", null)
+    .execute();
+  const row = await db.transaction().execute((trx) => claimNextJob(trx as unknown as AnalysesDb, options.workerId, messageId));
+  if (!row) return null;
+  const id = row.id;
   const started = Date.now();
   const limitMs = row.time_limit_seconds * 1000;
   let progress: JobProgress = { stage: "starting", message: "job process starting", elapsedMs: 0 };

@@ -4,6 +4,7 @@
  * row", so a duplicate delivery is harmless (the claim in process-job.server.ts is atomic).
  */
 import PgBoss from "pg-boss";
+import { SITE_LIMITS } from "~/analyses/params";
 
 export const QUEUE = "stillpoint-jobs";
 
@@ -30,10 +31,14 @@ export function getBoss(url: string, options: { supervise?: boolean } = {}): Pro
   return boss;
 }
 
-/** Puts a job id on the queue; the queue message expires a minute after the job's own time limit. */
+/**
+ * Puts a job id on the queue. The message expires a minute after the longest time limit any job
+ * may have: the worker that takes it may run another (fairer) job than the one it names.
+ */
 export async function enqueue(url: string, analysisId: string, timeLimitSeconds: number): Promise<void> {
   const boss = await getBoss(url);
-  await boss.send(QUEUE, { analysisId } satisfies JobMessage, { expireInSeconds: timeLimitSeconds + 60, retryLimit: 1, retryDelay: 5 });
+  const longest = Math.max(timeLimitSeconds, SITE_LIMITS.maxTimeLimitSeconds);
+  await boss.send(QUEUE, { analysisId } satisfies JobMessage, { expireInSeconds: longest + 60, retryLimit: 1, retryDelay: 5 });
 }
 
 export async function stopBosses(): Promise<void> {

@@ -8,6 +8,7 @@ import path from "node:path";
 import { fileURLToPath } from "node:url";
 import type { ChildMessage } from "./child";
 import type { JobPayload } from "./compute";
+import { reapWithParent } from "./reaper.server";
 
 export type ChildOutcome =
   | { kind: "result"; result: Record<string, unknown> }
@@ -30,6 +31,8 @@ export function runInChild(payload: JobPayload, options: { engineTimeoutMs: numb
     // Bounded memory: a blown-up basis fails this child, not the machine (common practice).
     env: { ...process.env, NODE_OPTIONS: "--max-old-space-size=1536" },
   });
+  // If this worker is killed, the child goes too (a retry must not race a forgotten attempt).
+  if (child.pid !== undefined) reapWithParent(child.pid);
   let settled: ChildOutcome | undefined;
   let stopReason: string | undefined;
   let stderr = "";

@@ -10,6 +10,24 @@ import { createInvitation, InvitationError, resendInvitation, revokeInvitation }
 import { parseLabName, renameLab } from "./labs.server";
 import { changeRole, MembershipError, removeMember } from "./memberships.server";
 import { type ActionResult, field, ok, refuse } from "./form.server";
+import { takeRateLimit } from "~/auth/rate-limit.server";
+
+/**
+ * Invitation e-mails go to addresses the sender chooses, so they are rate-limited like sign-in
+ * codes (atomically in the database): per invitation (resends) and per lab (all invitation mail).
+ */
+export const INVITATION_MAIL_POLICY = { windowMinutes: 60, perInvitation: 3, perLab: 30 } as const;
+
+async function takeInvitationMail(labId: string, which: string): Promise<ActionResult | undefined> {
+  const { windowMinutes, perInvitation, perLab } = INVITATION_MAIL_POLICY;
+  const verdict = await takeRateLimit([
+    { bucket: `invite:lab:${labId}`, max: perLab, windowMinutes },
+    { bucket: `invite:one:${labId}:${which}`.slice(0, 200), max: perInvitation, windowMinutes },
+  ]);
+  if (verdict.allowed) return undefined;
+  const minutes = Math.ceil(verdict.retryAfterSeconds / 60);
+  return refuse(429, `Too many invitation e-mails were sent just now. Please wait ${minutes} minute${minutes === 1 ? "" : "s"} and try again.`);
+}
 
 /** The intents of the members page; all of them need the owner role (checked by the route). */
 export const MEMBER_INTENTS = ["invite", "resend", "revoke", "change-role", "remove"] as const;
@@ -50,6 +68,8 @@ export async function runMemberIntent(access: LabAccess, intent: MemberIntent, f
         const role = field(form, "role");
         if (!looksLikeEmail(email)) return refuse(400, "Please enter a valid e-mail address to invite.");
         if (!isLabRole(role)) return refuse(400, "Choose a role: owner, editor or viewer.");
+        const limited = await takeInvitationMail(labId, email);
+        if (limited) return limited;
         const inv = await createInvitation(db(), { labId, actorId, email, role });
         const sent = await mailInvitation(access, { email, role, token: inv.token, expiresAt: inv.expiresAt });
         return sent ? ok(`Invitation sent to ${email}.`) : refuse(502, `The invitation to ${email} is saved, but the e-mail could not be sent. Use “Resend”.`);
@@ -57,6 +77,8 @@ export async function runMemberIntent(access: LabAccess, intent: MemberIntent, f
       case "resend": {
         const invitationId = field(form, "invitationId");
         if (!isUuid(invitationId)) return refuse(400, "No such invitation.");
+        const limited = await takeInvitationMail(labId, invitationId);
+        if (limited) return limited;
         const inv = await resendInvitation(db(), { labId, actorId, invitationId });
         const sent = await mailInvitation(access, { email: inv.email, role: inv.role, token: inv.token, expiresAt: inv.expiresAt });
         return sent ? ok(`A new link was sent to ${inv.email}.`) : refuse(502, "The e-mail could not be sent just now. Please try again.");

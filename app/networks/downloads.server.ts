@@ -1,5 +1,6 @@
 import { formatNetworkCsv, formatReactionList, odeJulia, odePython, parseNetworkCsv } from "@domain/network/index";
 import { formatSbml } from "@domain/network/sbml/index";
+import { csvTextSafe } from "~/downloads/escape";
 import { stoichiometricMatrixCsv } from "./matrix-csv";
 import type { NetworkRecord, VersionRecord } from "./networks.server";
 import { massActionOdes, odesLatexDocument } from "./odes";
@@ -17,7 +18,7 @@ export function downloadFile(network: NetworkRecord, version: VersionRecord, fil
     new Response(body, { headers: { "Content-Type": `${type}; charset=utf-8`, "Content-Disposition": `attachment; filename="${name}"` } });
   switch (file) {
     case "network.csv":
-      return send(formatNetworkCsv(parseNetworkCsv(version.csv)), "text/csv", `${stem}.csv`);
+      return send(csvTextSafe(formatNetworkCsv(parseNetworkCsv(version.csv))), "text/csv", `${stem}.csv`);
     case "odes.tex":
       return send(odesLatexDocument(`${network.name} (version ${version.number})`, massActionOdes(structureOf(version.csv))), "application/x-tex", `${stem}-odes.tex`);
     // Open formats and code (issue 14): SBML Level 3 Version 2, a reaction list, the ODEs as Python and Julia.

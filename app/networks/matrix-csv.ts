@@ -1,5 +1,6 @@
 import Papa from "papaparse";
 import type { NetworkStructure } from "@domain/network/index";
+import { csvCell, csvRows } from "~/downloads/escape";
 
 /**
  * The stoichiometric matrix as CSV: a header `species,r1,r2,…` and one row per species. A
@@ -9,5 +10,5 @@ import type { NetworkStructure } from "@domain/network/index";
 export function stoichiometricMatrixCsv(structure: Pick<NetworkStructure, "species" | "reactionList" | "stoichiometricMatrix">): string {
   const fields = ["species", ...structure.reactionList.map((r) => r.id)];
   const data = structure.species.map((s, i) => [s, ...structure.stoichiometricMatrix[i]!.map(String)]);
-  return Papa.unparse({ fields, data }, { newline: "\n" }) + "\n";
+  return Papa.unparse({ fields: fields.map((f) => String(csvCell(f))), data: csvRows(data) }, { newline: "\n" }) + "\n";
 }

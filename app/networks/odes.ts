@@ -1,4 +1,5 @@
 import type { NetworkStructure } from "@domain/network/index";
+import { latexText } from "~/downloads/escape";
 
 /**
  * Mass-action ODEs written from the structure the page already shows (one code path): the
@@ -114,9 +115,5 @@ export function odesLatexDocument(title: string, odes: SpeciesOde[]): string {
   ].join("\n");
 }
 
-/** Plain text made safe inside a LaTeX paragraph. */
-export function latexText(text: string): string {
-  return text.replace(/[\\{}&%$#_^~]/g, (ch) =>
-    ch === "\\" ? "\\textbackslash{}" : ch === "^" ? "\\textasciicircum{}" : ch === "~" ? "\\textasciitilde{}" : `\\${ch}`,
-  );
-}
+/** Plain text made safe inside a LaTeX paragraph (one definition, in ~/downloads/escape). */
+export { latexText };

@@ -41,6 +41,23 @@ const MAX_NOTE = 500;
 const MAX_TAGS = 12;
 const TAG = /^[\p{L}\p{N}][\p{L}\p{N} _.-]{0,39}$/u;
 
+/**
+ * PostgreSQL cannot store a NUL character in text or JSON, and no name or note needs one (nor any
+ * other control character except tab and line breaks, which descriptions and notes may hold).
+ */
+const CONTROL = /[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f]/;
+const controlMessage = (what: string) => `${what} contains a control character (such as NUL); remove it.`;
+
+/** Line and column (1-based) of the first NUL character in a CSV text, if any. */
+function nulPosition(csv: string): { row: number; columnIndex: number } | undefined {
+  const at = csv.indexOf("\u0000");
+  if (at < 0) return undefined;
+  const before = csv.slice(0, at);
+  const row = before.split("\n").length;
+  const line = before.slice(before.lastIndexOf("\n") + 1);
+  return { row, columnIndex: line.split(",").length };
+}
+
 /** Tags from `enzyme, Teaching` or an array: trimmed, lower-case, without repeats. */
 export function parseTags(raw: unknown): { ok: true; tags: string[] } | { ok: false; message: string } {
   const list = Array.isArray(raw) ? raw : typeof raw === "string" ? raw.split(",") : raw == null ? [] : null;
@@ -57,9 +74,11 @@ export function parseDetails(input: { name?: unknown; description?: unknown; tag
   const name = typeof input.name === "string" ? input.name.trim() : "";
   if (name === "") fields.name = "Give the network a name.";
   else if (name.length > MAX_NAME) fields.name = `Names are at most ${MAX_NAME} characters.`;
+  else if (CONTROL.test(name) || /[\n\r\t]/.test(name)) fields.name = controlMessage("The name");
   const description = typeof input.description === "string" ? input.description.trim() : input.description == null ? "" : null;
   if (description === null) fields.description = "The description must be text.";
   else if (description.length > MAX_DESCRIPTION) fields.description = `Descriptions are at most ${MAX_DESCRIPTION} characters.`;
+  else if (CONTROL.test(description)) fields.description = controlMessage("The description");
   const tags = parseTags(input.tags);
   if (!tags.ok) fields.tags = tags.message;
   if (Object.keys(fields).length > 0) return { ok: false, code: "invalid_request", message: Object.values(fields)[0]!, details: { fields } };
@@ -71,6 +90,9 @@ export function parseChangeNote(raw: unknown, fallback: string): SaveResult<{ no
   if (note === null || note.length > MAX_NOTE) {
     return { ok: false, code: "invalid_request", message: `The change note is text of at most ${MAX_NOTE} characters.`, details: { fields: { changeNote: "Too long." } } };
   }
+  if (CONTROL.test(note)) {
+    return { ok: false, code: "invalid_request", message: controlMessage("The change note"), details: { fields: { changeNote: controlMessage("The change note") } } };
+  }
   return { ok: true, note: note === "" ? fallback : note };
 }
 
@@ -81,6 +103,10 @@ export function checkCsv(csv: unknown): SaveResult<{ csv: string }> {
   }
   if (new TextEncoder().encode(csv).length > MAX_CSV_BYTES) {
     return { ok: false, code: "invalid_request", message: `The network file is larger than ${MAX_CSV_LABEL}.`, details: { fields: { csv: `At most ${MAX_CSV_LABEL}.` } } };
+  }
+  const nul = nulPosition(csv);
+  if (nul) {
+    return { ok: false, code: "invalid_request", message: "The network file contains a NUL character; nothing was saved.", details: { problems: [{ ...nul, message: "a NUL character", expected: "text without control characters" }] } };
   }
   const analysis = analyseCsv(csv);
   if (!analysis.ok) {

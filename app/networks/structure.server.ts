@@ -3,7 +3,7 @@
  * CLI's `analyse --json` uses) and remembered by content hash: a version never changes, so
  * neither does its structure.
  */
-import { analyseStructure, type NetworkFileProblem, type NetworkStructure, tryParseNetworkCsv } from "@domain/network/index";
+import { analyseStructure, networkLimitProblems, type NetworkFileProblem, type NetworkStructure, tryParseNetworkCsv } from "@domain/network/index";
 import { contentHash } from "./networks.server";
 
 export type CsvAnalysis = { ok: true; structure: NetworkStructure } | { ok: false; problems: readonly NetworkFileProblem[] };
@@ -17,6 +17,9 @@ export function analyseCsv(csv: string): CsvAnalysis {
   if (hit) return { ok: true, structure: hit };
   const parsed = tryParseNetworkCsv(csv);
   if (!parsed.ok) return { ok: false, problems: parsed.problems };
+  // Cheap size checks before any algebra: structure grows much faster than the file.
+  const tooLarge = networkLimitProblems(parsed.network);
+  if (tooLarge.length > 0) return { ok: false, problems: tooLarge };
   const structure = analyseStructure(parsed.network);
   if (cache.size >= CACHE_LIMIT) cache.delete(cache.keys().next().value!);
   cache.set(hash, structure);

@@ -10,7 +10,11 @@ export type ApiErrorCode =
   | "invalid_request"
   | "conflict"
   | "rate_limited"
-  | "method_not_allowed";
+  | "method_not_allowed"
+  | "cross_origin"
+  | "unsupported_media_type"
+  | "payload_too_large"
+  | "unavailable";
 
 export interface ApiErrorBody {
   error: { code: ApiErrorCode; message: string; details?: unknown };
@@ -25,6 +29,10 @@ const STATUS: Record<ApiErrorCode, number> = {
   conflict: 409,
   rate_limited: 429,
   method_not_allowed: 405,
+  cross_origin: 403,
+  unsupported_media_type: 415,
+  payload_too_large: 413,
+  unavailable: 503,
 };
 
 export function apiError(code: ApiErrorCode, message: string, details?: unknown, headers?: HeadersInit): Response {

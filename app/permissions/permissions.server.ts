@@ -6,6 +6,7 @@ import { findUserById, type CurrentUser } from "~/auth/users.server";
 import { findUserIdByApiToken } from "~/account/api-tokens.server";
 import { findLabWithRole, listLabsOf } from "~/labs/labs.server";
 import { apiError } from "./api-errors";
+import { assertCookieWriteAllowed } from "./api-origin.server";
 import { hasRole } from "./roles";
 
 /**
@@ -73,7 +74,9 @@ export async function requireLabRole(request: Request, labSlug: string | undefin
 
 /**
  * The caller of a JSON API route: `Authorization: Bearer <personal token>` if the header is
- * present (a bad token is refused, never silently replaced by the cookie), else the session cookie.
+ * present (a bad token is refused, never silently replaced by the cookie), else the session cookie
+ * — and then a write must be same-origin JSON (api-origin.server.ts), so other sites cannot
+ * make the browser write with it.
  */
 export async function requireApiUser(request: Request): Promise<CurrentUser> {
   const header = request.headers.get("authorization");
@@ -86,6 +89,7 @@ export async function requireApiUser(request: Request): Promise<CurrentUser> {
   }
   const user = await getOptionalUser(request);
   if (!user) throw apiError("unauthenticated", "Sign in or send a personal API token as `Authorization: Bearer <token>`.");
+  assertCookieWriteAllowed(request);
   return user;
 }
 

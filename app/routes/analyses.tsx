@@ -3,6 +3,7 @@ import type { Route } from "./+types/analyses";
 import { db } from "~/db.server";
 import { analysisPath } from "~/analyses/paths";
 import { jobJson, labLimits, listJobs, setLabLimits } from "~/analyses/repository.server";
+import { SITE_LIMITS } from "~/analyses/params";
 import { asAnalysesDb } from "~/analyses/schema";
 import { recordAnalysisAudit } from "~/analyses/service.server";
 import { StatusBadge } from "~/analyses/ui/status";
@@ -27,7 +28,8 @@ export async function action({ request, params }: Route.ActionArgs) {
   const maxTimeLimitSeconds = Number(form.get("maxTimeLimitSeconds"));
   const maxBasisSize = Number(form.get("maxBasisSize"));
   const problems = [];
-  if (!Number.isInteger(maxTimeLimitSeconds) || maxTimeLimitSeconds < 1 || maxTimeLimitSeconds > 3600) problems.push({ field: "maxTimeLimitSeconds", message: "expected 1 to 3600 seconds" });
+  const siteMax = SITE_LIMITS.maxTimeLimitSeconds;
+  if (!Number.isInteger(maxTimeLimitSeconds) || maxTimeLimitSeconds < 1 || maxTimeLimitSeconds > siteMax) problems.push({ field: "maxTimeLimitSeconds", message: `expected 1 to ${siteMax} seconds (the site's maximum)` });
   if (!Number.isInteger(maxBasisSize) || maxBasisSize < 1 || maxBasisSize > 1_000_000) problems.push({ field: "maxBasisSize", message: "expected 1 to 1000000" });
   if (problems.length > 0) return data({ problems }, { status: 400 });
   await setLabLimits(asAnalysesDb(db()), access.lab.id, { maxTimeLimitSeconds, maxBasisSize });
@@ -96,7 +98,7 @@ export default function Analyses({ loaderData: d, actionData }: Route.ComponentP
           <Form method="post" className="flex flex-wrap items-end gap-3">
             <label className="space-y-0.5">
               <span className="block">Maximum time limit (s)</span>
-              <input name="maxTimeLimitSeconds" type="number" min={1} max={3600} defaultValue={d.limits.maxTimeLimitSeconds} className="w-28 rounded-md border border-line bg-surface px-2 py-1" />
+              <input name="maxTimeLimitSeconds" type="number" min={1} max={SITE_LIMITS.maxTimeLimitSeconds} defaultValue={d.limits.maxTimeLimitSeconds} className="w-28 rounded-md border border-line bg-surface px-2 py-1" />
             </label>
             <label className="space-y-0.5">
               <span className="block">Maximum basis size</span>

@@ -1,7 +1,7 @@
 import { AlgebraError } from "./errors";
 import type { SourceLocation } from "./errors";
 import type { Polynomial } from "./polynomial";
-import { add, constantPoly, isZeroPoly, mul, neg, pow, scale, sub, variablePoly } from "./polynomial";
+import { add, constantPoly, isZeroPoly, mul, neg, numTerms, pow, scale, sub, totalDegree, variablePoly } from "./polynomial";
 import { parseRational } from "./rational";
 import type { PolynomialRing } from "./ring";
 
@@ -16,6 +16,37 @@ type Token =
   | { kind: "ident"; text: string; pos: number }
   | { kind: "op"; text: "+" | "-" | "*" | "/" | "^" | "(" | ")"; pos: number }
   | { kind: "end"; text: ""; pos: number };
+
+/**
+ * What one polynomial text may ask for, checked before the work is done, so a short input cannot
+ * run for minutes or overflow the stack (each is a located parse error):
+ * nesting of parentheses and signs up to 200 deep; decimal exponents (`1e…`) up to ±1000; a power
+ * of a sum up to degree 1000 and at most 20,000 terms when expanded (`(x+1)^3000` is refused, it
+ * would take tens of seconds) and an estimated expansion work (the last squaring's term pairs
+ * times the coefficient size in 64-bit words) of at most 2,000,000 — about a second here, e.g.
+ * `(x+1)^500` or `(x+y+z+1)^30` pass, `(123456789*x+987654321)^300` does not; a power of a
+ * monomial up to degree 1,000,000.
+ */
+export const PARSE_LIMITS = {
+  maxNesting: 200,
+  maxDecimalExponent: 1000,
+  maxExpandedDegree: 1000,
+  maxExpandedTerms: 20_000,
+  maxMonomialDegree: 1_000_000,
+  maxPowerWork: 2_000_000,
+} as const;
+
+const bitLength = (n: bigint): number => (n < 0n ? -n : n).toString(2).length;
+
+/** Upper bound on the terms of p^e for p with t terms: C(e + t - 1, t - 1), in floating point (only compared). */
+function expandedTermsBound(t: number, e: number): number {
+  let bound = 1;
+  for (let i = 1; i < t; i++) {
+    bound = (bound * (e + i)) / i;
+    if (bound > 1e12) return Infinity;
+  }
+  return bound;
+}
 
 const NUMBER = /\d+(?:\.\d*)?(?:[eE][+-]?\d+)?|\.\d+(?:[eE][+-]?\d+)?/y;
 const IDENT = /[A-Za-z_][A-Za-z0-9_]*/y;
@@ -64,6 +95,10 @@ export function parsePolynomial<C>(ring: PolynomialRing<C>, text: string, option
   tokens.push({ kind: "end", text: "", pos: text.length });
 
   let t = 0;
+  let depth = 0;
+  const nest = (pos: number) => {
+    if (++depth > PARSE_LIMITS.maxNesting) fail(pos, `nesting deeper than ${PARSE_LIMITS.maxNesting} levels`, `at most ${PARSE_LIMITS.maxNesting} nested parentheses or signs`);
+  };
   const peek = () => tokens[t];
   const isOp = (s: string) => peek().kind === "op" && peek().text === s;
 
@@ -92,8 +127,14 @@ export function parsePolynomial<C>(ring: PolynomialRing<C>, text: string, option
   }
 
   function unary(): Polynomial<C> {
-    if (isOp("-")) { t++; return neg(unary()); }
-    if (isOp("+")) { t++; return unary(); }
+    if (isOp("-") || isOp("+")) {
+      const minus = isOp("-");
+      nest(peek().pos);
+      t++;
+      const inner = unary();
+      depth--;
+      return minus ? neg(inner) : inner;
+    }
     return power();
   }
 
@@ -107,7 +148,27 @@ export function parsePolynomial<C>(ring: PolynomialRing<C>, text: string, option
     }
     t++;
     const e = Number(tok.text);
-    if (!Number.isSafeInteger(e) || e > 1_000_000) fail(tok.pos, `exponent ${tok.text} is too large`, "an exponent up to 1000000");
+    const { maxMonomialDegree, maxExpandedDegree, maxExpandedTerms } = PARSE_LIMITS;
+    if (!Number.isSafeInteger(e) || e > maxMonomialDegree) fail(tok.pos, `exponent ${tok.text} is too large`, `an exponent up to ${maxMonomialDegree}`);
+    // Bound the result before computing it: the degree, and for a sum the number of terms.
+    const degree = totalDegree(base) * e;
+    if (numTerms(base) > 1) {
+      if (degree > maxExpandedDegree) {
+        fail(tok.pos, `the power has degree ${degree} when expanded`, `a power of a sum of degree at most ${maxExpandedDegree}`);
+      }
+      if (expandedTermsBound(numTerms(base), e) > maxExpandedTerms) {
+        fail(tok.pos, `the power could have more than ${maxExpandedTerms} terms when expanded`, `a smaller exponent or fewer terms in the base`);
+      }
+      // Coefficients grow like (terms · height)^e over Q; over Z/p they stay the size of p.
+      const height = Math.max(...base.coeffs.map((c) => { const r = F.toRational(c); return bitLength(r.num) + bitLength(r.den); }));
+      const coefficientBits = F.characteristic > 0n ? bitLength(F.characteristic) : e * (Math.log2(numTerms(base)) + height);
+      const half = expandedTermsBound(numTerms(base), Math.ceil(e / 2));
+      if (half * half * (1 + coefficientBits / 64) > PARSE_LIMITS.maxPowerWork) {
+        fail(tok.pos, "the power is too large to expand exactly", "a smaller exponent, smaller coefficients or fewer terms in the base");
+      }
+    } else if (degree > maxMonomialDegree) {
+      fail(tok.pos, `the power has degree ${degree}`, `a monomial of degree at most ${maxMonomialDegree}`);
+    }
     return pow(base, e);
   }
 
@@ -115,6 +176,10 @@ export function parsePolynomial<C>(ring: PolynomialRing<C>, text: string, option
     const tok = peek();
     if (tok.kind === "num") {
       t++;
+      const exponent = /[eE][+-]?0*(\d+)$/.exec(tok.text);
+      if (exponent && (exponent[1]!.length > 4 || Number(exponent[1]) > PARSE_LIMITS.maxDecimalExponent)) {
+        return fail(tok.pos, `the number '${tok.text.length > 30 ? `${tok.text.slice(0, 30)}…` : tok.text}' is too large to work with exactly`, `a decimal exponent from -${PARSE_LIMITS.maxDecimalExponent} to ${PARSE_LIMITS.maxDecimalExponent}`);
+      }
       const r = parseRational(tok.text);
       if (!r) return fail(tok.pos, `bad number '${tok.text}'`, "an integer, a fraction or a decimal");
       try {
@@ -130,10 +195,12 @@ export function parsePolynomial<C>(ring: PolynomialRing<C>, text: string, option
       return variablePoly(ring, i);
     }
     if (isOp("(")) {
+      nest(tok.pos);
       t++;
       const inner = expression();
       if (!isOp(")")) fail(peek().pos, `found '${peek().text || "end of input"}'`, "')'");
       t++;
+      depth--;
       return inner;
     }
     return fail(tok.pos, `found '${tok.text || "end of input"}'`, "a number, a variable or '('");

@@ -6,8 +6,12 @@
  */
 export type Complex = Readonly<Record<string, number>>;
 
-/** Species names: a letter, then letters, digits or `_`. */
-export const SPECIES_NAME = /^[A-Za-z][A-Za-z0-9_]*$/;
+/**
+ * Species (and rate) names: a letter, then letters, digits or `_` — but not a name every
+ * JavaScript object already has (`toString`, `valueOf`, `constructor`, …): complexes and many
+ * tables are plain objects keyed by name, and such a name would read the built-in instead.
+ */
+export const SPECIES_NAME = /^(?!(?:constructor|hasOwnProperty|isPrototypeOf|propertyIsEnumerable|toLocaleString|toString|valueOf)$)[A-Za-z][A-Za-z0-9_]*$/;
 
 /** Builds a complex from (species, coefficient) pairs, summing repeats and sorting keys. Example: [["S",1],["E",1]] → { E: 1, S: 1 }. */
 export function makeComplex(terms: Iterable<readonly [string, number]>): Complex {

@@ -33,3 +33,4 @@ export { type NetworkStructure, type ReactionSummary, analyseStructure } from ".
 export { parseReactionList, formatReactionList } from "./reaction-list";
 export { NETWORK_FORMATS, type NetworkFormat, type NetworkDocument, formatFromName, sniffFormat, readNetworkDocument } from "./formats";
 export { odePython, odeJulia, massActionTerms, type OdeCodeOptions } from "./ode-code";
+export { NETWORK_LIMITS, networkLimitProblems, rateValueWithinLimits } from "./limits";

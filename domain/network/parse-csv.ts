@@ -1,5 +1,6 @@
 import { formatRational, parseRational, eq, type Rational } from "../algebra/rational";
 import { SPECIES_NAME, type Complex } from "./complex";
+import { NETWORK_LIMITS, rateValueWithinLimits } from "./limits";
 import { readCsvTable, type CsvLine } from "./csv-table";
 import { NetworkFileError, type NetworkFileProblem } from "./errors";
 import type { Arrow, DirectedReaction, Network, NetworkRow } from "./model";
@@ -10,7 +11,7 @@ export const NETWORK_COLUMNS = ["reaction", "label", "rate", "reverse_rate", "ra
 export type NetworkColumn = (typeof NETWORK_COLUMNS)[number];
 
 const EXPECTED_VALUE = "a positive decimal such as 0.5 or 2e-3, or a fraction such as 3/2";
-const EXPECTED_SYMBOL = "a name starting with a letter, then letters, digits or `_` (e.g. `k1`, `kcat`)";
+const EXPECTED_SYMBOL = "a name starting with a letter, then letters, digits or `_` (e.g. `k1`, `kcat`), other than a built-in name such as `toString`";
 
 interface RowDraft {
   readonly line: number;
@@ -156,6 +157,11 @@ function readRow(row: CsvLine, columns: ColumnMap, width: number, problems: Netw
   const value = (c: "rate_value" | "reverse_rate_value"): Rational | undefined => {
     const s = cell(c);
     if (s === "") return undefined;
+    // Bound the text before it becomes an exact rational: `1e60000000` would take tens of seconds.
+    if (!rateValueWithinLimits(s)) {
+      problems.push({ ...at(c), message: `rate value \`${s.length > 40 ? `${s.slice(0, 40)}…` : s}\` is too large to work with exactly`, expected: `${EXPECTED_VALUE}, at most ${NETWORK_LIMITS.maxRateValueChars} characters with an exponent from -${NETWORK_LIMITS.maxRateValueExponent} to ${NETWORK_LIMITS.maxRateValueExponent}` });
+      return undefined;
+    }
     const v = parseRational(s);
     if (v === null) problems.push({ ...at(c), message: `\`${s}\` is not a number`, expected: EXPECTED_VALUE });
     else if (v.num <= 0n) problems.push({ ...at(c), message: `rate value \`${s}\` is not positive`, expected: EXPECTED_VALUE });

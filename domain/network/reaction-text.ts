@@ -115,7 +115,7 @@ function parseTerm(part: string, side: string): { species: string; coefficient: 
   if (!SPECIES_NAME.test(name)) {
     return {
       message: `bad species name \`${name}\``,
-      expected: "a name starting with a letter, then letters, digits or `_` (e.g. `ATP`, `S_p2`)",
+      expected: "a name starting with a letter, then letters, digits or `_` (e.g. `ATP`, `S_p2`), other than a built-in name such as `toString`",
     };
   }
   return { species: name, coefficient };

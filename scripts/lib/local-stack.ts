@@ -1,9 +1,12 @@
 /**
  * What `npm start` and `npm run dev` share: PostgreSQL (installed and initialised on first run),
  * migrations, demo data, maildev and the background worker, then the app server the caller
- * starts; Ctrl-C stops everything this process started, in reverse order. If one child dies on
- * its own, the rest are stopped rather than left to limp along.
+ * starts; Ctrl-C stops everything this process started, in reverse order. A child that dies on
+ * its own (the worker, the app server, maildev) is restarted (scripts/lib/supervisor.ts); only
+ * one that keeps crashing makes the rest stop, rather than limp along.
  */
+import { existsSync } from "node:fs";
+import path from "node:path";
 import { type Env, getEnv } from "../../app/env.server";
 import { startLocalDatabase } from "../db/local";
 import { migrate } from "../migrate";
@@ -11,6 +14,7 @@ import { seed } from "../seed";
 import { log } from "./log";
 import { type Managed, onShutdown } from "./processes";
 import { assertPortsFree, startMaildev, startWorkerIfPresent } from "./services";
+import { supervise } from "./supervisor";
 
 export interface LocalStackOptions {
   /** Tag for log lines: "start" or "dev". */
@@ -44,19 +48,20 @@ export function runLocalStack(options: LocalStackOptions): void {
     database = await startLocalDatabase(env);
     await migrate(env.databaseUrl);
     await seed(env.databaseUrl);
-    children.push(await startMaildev(env.smtp.port, env.maildevWebPort));
+    children.push(await supervise("mail", () => startMaildev(env.smtp.port, env.maildevWebPort)));
     log("mail", `maildev: web UI ${env.maildevUrl} · SMTP 127.0.0.1:${env.smtp.port}`);
 
     options.prepare?.();
     const childEnv = { ...process.env, DATABASE_URL: env.databaseUrl, NODE_ENV: options.nodeEnv };
-    const worker = startWorkerIfPresent(childEnv);
-    if (worker) children.push(worker);
-    children.push(await options.startApp(env, childEnv));
+    if (existsSync(path.resolve("app/jobs/worker.server.ts"))) {
+      children.push(await supervise("worker", () => startWorkerIfPresent(childEnv)!));
+    }
+    children.push(await supervise("app", () => options.startApp(env, childEnv)));
     options.announce(env);
 
     const first = await Promise.race(children.map((c) => c.exited.then((code) => ({ c, code }))));
     if (stopping) return;
-    log(label, `${first.c.name} exited (code ${first.code}); stopping the rest`);
+    log(label, `${first.c.name} keeps exiting (last code ${first.code}); stopping the rest`);
     await shutdown();
     process.exit(1);
   }

@@ -5,6 +5,8 @@ import os from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { appListener, setClientAddress } from "../../scripts/serve";
+import { BODY_LIMITS, bodyLimitFor } from "../../scripts/lib/request-guards";
+import { MAX_CSV_BYTES } from "~/networks/grid";
 import { hasTestDatabase, type TestDatabase } from "../app/support/test-db";
 import { run, setUpAccountsDb, tearDownAccountsDb } from "../app/auth/fixtures";
 
@@ -101,6 +103,96 @@ describe("static files", () => {
     expect((await server.send("/assets/missing.js")).body).toBe("app GET /assets/missing.js");
     expect((await server.send("/%2e%2e/secret.txt")).body).toBe("app GET /%2e%2e/secret.txt");
     expect((await server.send("/favicon.svg", { method: "POST" })).body).toBe("app POST /favicon.svg");
+  });
+});
+
+describe("request guards: body limits, NUL characters, security headers", () => {
+  let server: Awaited<ReturnType<typeof listen>>;
+  let reached = 0;
+  beforeAll(async () => {
+    server = await listen(
+      appListener({
+        clientDir: path.join(os.tmpdir(), "stillpoint-no-client"),
+        handle: (req, res) => {
+          reached++;
+          let size = 0;
+          req.on("data", (c: Buffer) => (size += c.length));
+          req.on("end", () => res.writeHead(200, { "Content-Type": "text/plain" }).end(`app ${req.method} ${req.url} ${size}`));
+        },
+      }),
+    );
+  });
+  afterAll(async () => server.close());
+
+  it("refuses a declared body over the route's limit without reading it (anonymous sign-in included)", async () => {
+    const before = reached;
+    const out = await server.send("/sign-in", { method: "POST", headers: { "Content-Length": String(100 * 1024 * 1024), "Content-Type": "application/x-www-form-urlencoded" }, body: "email=a" }).catch((e) => ({ status: -1, headers: {}, body: String(e) }));
+    expect(out.status).toBe(413);
+    expect(JSON.parse(out.body).error.code).toBe("payload_too_large");
+    expect(reached).toBe(before);
+  });
+
+  it("cuts off a chunked body at the limit, and lets an upload-sized body through on upload routes only", async () => {
+    const big = "x".repeat(300 * 1024);
+    const chunked = { "Transfer-Encoding": "chunked", "Content-Type": "text/csv" };
+    const before = reached;
+    const signIn = await server.send("/sign-in", { method: "POST", headers: chunked, body: big });
+    expect(signIn.status).toBe(413);
+    const other = await server.send("/labs/alpha", { method: "POST", headers: chunked, body: big });
+    expect(other.status).toBe(413);
+    expect(reached).toBe(before);
+    const upload = await server.send("/api/labs/alpha/networks", { method: "POST", headers: chunked, body: big });
+    expect(upload.status).toBe(200);
+    expect(upload.body).toBe(`app POST /api/labs/alpha/networks ${big.length}`);
+    const form = await server.send("/labs/alpha/networks/new.data", { method: "POST", headers: chunked, body: big });
+    expect(form.status).toBe(200);
+    expect(bodyLimitFor("/sign-in")).toBe(BODY_LIMITS.anonymous);
+    expect(BODY_LIMITS.upload).toBeGreaterThanOrEqual(2 * MAX_CSV_BYTES);
+  });
+
+  it("refuses NUL characters in form fields, JSON and multipart parts, naming where", async () => {
+    const form = await server.send("/labs/alpha", { method: "POST", headers: { "Content-Type": "application/x-www-form-urlencoded" }, body: "intent=rename&name=Lab%00X" });
+    expect(form.status).toBe(400);
+    expect(JSON.parse(form.body).error).toMatchObject({ code: "invalid_request", details: { where: "field `name`" } });
+    const json = await server.send("/api/labs", { method: "POST", headers: { "Content-Type": "application/json" }, body: JSON.stringify({ lab: { name: "a\u0000b" } }) });
+    expect(json.status).toBe(400);
+    expect(JSON.parse(json.body).error.details.where).toBe("JSON at `lab.name`");
+    const multipart = await server.send("/api/labs/alpha/networks", {
+      method: "POST",
+      headers: { "Content-Type": "multipart/form-data; boundary=XX" },
+      body: '--XX\r\nContent-Disposition: form-data; name="file"; filename="a.csv"\r\n\r\nreaction\nA\u0000 -> B\r\n--XX--\r\n',
+    });
+    expect(multipart.status).toBe(400);
+    expect(JSON.parse(multipart.body).error.details.where).toBe("part `file`");
+    expect((await server.send("/labs/alpha", { method: "POST", headers: { "Content-Type": "application/x-www-form-urlencoded" }, body: "name=fine" })).status).toBe(200);
+  });
+
+  it("keeps every Set-Cookie line the app writes (the sign-in sets several) alongside the security headers", async () => {
+    const cookies = await listen(
+      appListener({
+        clientDir: path.join(os.tmpdir(), "stillpoint-no-client"),
+        // As @react-router/node writes a response: one raw array, Set-Cookie repeated.
+        handle: (_req, res) => res.writeHead(302, ["Location", "/next", "Set-Cookie", "a=1", "Set-Cookie", "b=2", "Set-Cookie", "c=3"]).end(),
+      }),
+    );
+    try {
+      const out = await cookies.send("/sign-in", { method: "POST", headers: { "Content-Type": "application/x-www-form-urlencoded" }, body: "email=a" });
+      expect(out.headers["set-cookie"]).toEqual(["a=1", "b=2", "c=3"]);
+      expect(out.headers["x-frame-options"]).toBe("DENY");
+    } finally {
+      await cookies.close();
+    }
+  });
+
+  it("sends the security headers on pages and on refusals", async () => {
+    for (const out of [await server.send("/labs"), await server.send("/sign-in", { method: "POST", headers: { "Content-Length": "99999999" }, body: "" }).catch(() => undefined)]) {
+      if (!out) continue;
+      expect(out.headers["content-security-policy"]).toMatch(/default-src 'self'/);
+      expect(out.headers["content-security-policy"]).toMatch(/frame-ancestors 'none'/);
+      expect(out.headers["x-frame-options"]).toBe("DENY");
+      expect(out.headers["x-content-type-options"]).toBe("nosniff");
+      expect(out.headers["referrer-policy"]).toBe("strict-origin-when-cross-origin");
+    }
   });
 });
 

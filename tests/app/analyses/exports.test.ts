@@ -36,4 +36,31 @@ describe("exports and the page's view of a result", () => {
     expect(view.conservation).toEqual([{ text: "E + C", total: "1/2" }]);
     expect(view.parametrisation!.rows.every((r) => r.tex.includes("="))).toBe(true);
   });
+
+  it("a network name with line breaks cannot leave the TeX comment (formulas.tex, also behind share links)", () => {
+    for (const evil of ["Evil\n\\input{/etc/hostname}", "Evil\r\\immediate\\write18{x}", "Evil\u2028\\def\\a{}", "Evil^^J\\input{x}"]) {
+      const tex = exportAnalysis("formulas.tex", result, { ...meta, network: evil }).body;
+      const lines = tex.split(/\r\n|\r|\n|\u2028|\u2029/);
+      // Every line before \documentclass is a comment; nothing of the name starts a live line.
+      const head = lines.slice(0, lines.indexOf("\\documentclass{article}"));
+      expect(head.length).toBe(2);
+      for (const line of head) expect(line.startsWith("%")).toBe(true);
+      expect(tex).not.toContain("^^J");
+    }
+  });
+
+  it("CSV cells a spreadsheet would execute get a leading apostrophe; plain numbers stay numbers", () => {
+    const evil = { ...result, species: ["=cmd", ...result.species.slice(1)] } as AnalysisResult;
+    const first = result.species[0]!;
+    evil.parametrisation = { ...result.parametrisation!, free: ["@SUM(A1)"], expressions: { "+x": "-k1*x", "-1": "2" } };
+    evil.steadyStates = (result.steadyStates ?? []).map((st) => ({ ...st, concentrations: { ...st.concentrations, "=cmd": st.concentrations[first]! } }));
+    const params = exportAnalysis("parametrisation.csv", evil, meta).body;
+    const cells = params.trim().split("\n").slice(1).flatMap((l) => l.split(","));
+    for (const cell of cells) expect(cell).not.toMatch(/^["]?[=+@]/);
+    expect(params).toContain("'-k1*x");
+    expect(params).toContain("'@SUM(A1)");
+    expect(params.split("\n")).toContain("-1,2,'@SUM(A1)");
+    const states = exportAnalysis("steady-states.csv", evil, meta).body;
+    expect(states.split("\n")[0]).toMatch(/^state,'=cmd,/);
+  });
 });

@@ -37,6 +37,22 @@ describe("sign-in helpers (no database)", () => {
     for (const bad of ["https://evil.example", "//evil.example", "/\\evil", "labs", null, 42]) expect(safeReturnTo(bad)).toBe("/labs");
   });
 
+  it("refuses returnTo values a browser would turn into another host, and never yields a broken header", () => {
+    // From the drill: `returnTo=/%09/evil.example/phish` (decoded: a tab), %0a, %0d, U+3000.
+    const attacks = ["/\t/evil.example/phish", "/\n/evil.example", "/\r/evil.example", "/\u3000/evil.example", "/a\nb", "/a\rb",
+      "/\u3000", "/.//evil.example", "/%2e//evil.example", "/x/..//evil.example", "/\u0000", "/\u00a0/evil.example", "/ /evil.example"];
+    for (const raw of attacks) {
+      const safe = safeReturnTo(raw);
+      expect(() => new Headers({ Location: safe })).not.toThrow();
+      // What a browser does with the Location: strip tab/newline, resolve against the page.
+      const landed = new URL(safe.replace(/[\t\n\r]/g, ""), "https://app.example.org/sign-in");
+      expect(landed.origin, JSON.stringify(raw)).toBe("https://app.example.org");
+    }
+    expect(safeReturnTo("/\t/evil.example/phish")).toBe("/labs");
+    expect(safeReturnTo("/labs/a/../b?x=%20y#z")).toBe("/labs/b?x=%20y#z");
+    expect(safeReturnTo("/labs/é")).toBe("/labs/%C3%A9");
+  });
+
   it("reads the pending address and error from remix-auth-totp's cookie", () => {
     const value = new URLSearchParams({ email: "ada@example.org", totp: '{"jwe":"x","attempts":0}', error: "That code didn't work." }).toString();
     const req = new Request("http://x/", { headers: { Cookie: `other=1; _totp=${value}; more=2` } });

@@ -78,6 +78,33 @@ describe.skipIf(!hasTestDatabase)("server-side sessions", () => {
     expect(audit.details).toEqual({ sessions: before });
   });
 
+  it("a request that read the session before 'sign out everywhere' cannot bring it back by saving", async () => {
+    const { getSession, commitSession, destroyAllSessionsOf } = await import("~/auth/session.server");
+    const stolen = await sessionCookieFor(userId);
+    // A stolen cookie's request (say, the lab switch) reads its session...
+    const inFlight = await getSession(makeRequest("/", { cookie: stolen }));
+    expect(inFlight.get("userId")).toBe(userId);
+    // ...the victim signs out everywhere...
+    await destroyAllSessionsOf(userId);
+    // ...and then the in-flight request saves what it read.
+    inFlight.set("labSlug", "somewhere");
+    await commitSession(inFlight);
+    expect(await isSignedIn(stolen)).toBeNull();
+    expect(await sessionRows(userId)).toHaveLength(0);
+  });
+
+  it("an anonymous session whose row is gone still keeps what it is given (sign-in needs returnTo)", async () => {
+    const { getSession, commitSession } = await import("~/auth/session.server");
+    const first = await getSession(new Request(APP_URL));
+    first.set("returnTo", "/labs/x");
+    const cookie = (await commitSession(first)).split(";")[0]!;
+    await t.db.deleteFrom("sessions").where("user_id", "is", null).execute();
+    const again = await getSession(makeRequest("/", { cookie }));
+    again.set("returnTo", "/labs/y");
+    await commitSession(again);
+    expect((await getSession(makeRequest("/", { cookie }))).get("returnTo")).toBe("/labs/y");
+  });
+
   it("a signed-out cookie reused for a new sign-in gets a fresh session id (no fixation)", async () => {
     const { getSession, rotateSession } = await import("~/auth/session.server");
     const planted = await sessionCookieFor(otherId);

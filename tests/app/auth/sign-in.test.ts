@@ -39,6 +39,7 @@ describe.skipIf(!hasTestDatabase)("sign-in with an e-mailed code", () => {
   beforeEach(async () => {
     outbox.length = 0;
     await t.db.deleteFrom("login_codes").execute();
+    await t.db.deleteFrom("rate_limit_events").execute();
   });
   afterEach(() => {
     vi.useRealTimers();
@@ -149,6 +150,33 @@ describe.skipIf(!hasTestDatabase)("sign-in with an e-mailed code", () => {
     expect(await signedInAs(right.cookie)).toBeNull();
   });
 
+  it("wrong codes sent with someone else's address (forged _totp cookie) do not lock that person's code", async () => {
+    const victim = await requestCode("known@lab.test");
+    // The attacker never asked for a code; they write the victim's address into the unsigned cookie.
+    const forged = "_totp=email=known%40lab.test";
+    const wrong = victim.code === "AAAAAA" ? "BBBBBB" : "AAAAAA";
+    for (let i = 0; i < policy.maxWrongAttempts + 2; i++) {
+      const r = await typeCode(forged, wrong);
+      expect(r.out.status).toBe(400);
+      expect(await signedInAs(r.cookie)).toBeNull();
+    }
+    const row = await t.db.selectFrom("login_codes").select("attempts").where("email", "=", "known@lab.test").orderBy("created_at", "desc").executeTakeFirstOrThrow();
+    expect(row.attempts).toBe(0);
+    const done = await typeCode(victim.cookie, victim.code!);
+    expect(done.out.status).toBe(302);
+    expect(await signedInAs(done.cookie)).toBe("known@lab.test");
+  });
+
+  it("a ticket for one's own code cannot spend attempts on another address's code", async () => {
+    const victim = await requestCode("known@lab.test");
+    const attacker = await requestCode("attacker@lab.test", { client: "192.0.2.9" });
+    const swapped = attacker.cookie.replace("email=attacker%40lab.test", "email=known%40lab.test");
+    expect(swapped).not.toBe(attacker.cookie);
+    for (let i = 0; i < policy.maxWrongAttempts; i++) await typeCode(swapped, "AAAAAA");
+    const done = await typeCode(victim.cookie, victim.code!);
+    expect(done.out.status).toBe(302);
+  });
+
   it(`expires a code after ${10} minutes`, async () => {
     const first = await requestCode("known@lab.test");
     vi.useFakeTimers({ toFake: ["Date"] });
@@ -204,6 +232,21 @@ describe.skipIf(!hasTestDatabase)("sign-in with an e-mailed code", () => {
     // A forged first hop does not help: the proxy's own hop is the last one.
     expect((await requestCode("one-more@lab.test", { client: "203.0.113.1, 198.51.100.7" })).out.status).toBe(429);
     expect((await requestCode("one-more@lab.test", { client: "192.0.2.44" })).out.status).toBe(302);
+  });
+
+  it("holds the per-client limit under 100 parallel requests (one client, many addresses)", async () => {
+    const results = await Promise.all(
+      Array.from({ length: 100 }, (_, i) => requestCode(`parallel${i}@lab.test`, { client: "198.51.100.50" })),
+    );
+    expect(results.filter((r) => r.out.status === 302)).toHaveLength(policy.maxRequestsPerClient);
+    expect(results.filter((r) => r.out.status === 429)).toHaveLength(100 - policy.maxRequestsPerClient);
+    expect(outbox).toHaveLength(policy.maxRequestsPerClient);
+  });
+
+  it("holds the per-address limit under 40 parallel requests for one address", async () => {
+    const results = await Promise.all(Array.from({ length: 40 }, (_, i) => requestCode("known@lab.test", { client: `10.9.0.${i}` })));
+    expect(results.filter((r) => r.out.status === 302)).toHaveLength(policy.maxRequestsPerAddress);
+    expect(outbox).toHaveLength(policy.maxRequestsPerAddress);
   });
 
   it("refuses malformed addresses without sending mail", async () => {

@@ -32,6 +32,7 @@ describe.skipIf(!hasTestDatabase)("invitations", () => {
   beforeEach(async () => {
     outbox.length = 0;
     await t.db.deleteFrom("invitations").execute();
+    await t.db.deleteFrom("rate_limit_events").execute();
     await t.db.deleteFrom("memberships").where("user_id", "=", invitee.id).execute();
   });
 
@@ -109,6 +110,19 @@ describe.skipIf(!hasTestDatabase)("invitations", () => {
     expect((await accept(oldToken!, inviteeCookie)).status).toBe(404);
     expect((await accept(newToken, inviteeCookie)).status).toBe(302);
     expect(await roleOf(invitee.id)).toBe("viewer");
+  });
+
+  it("limits invitation re-sends, even when they arrive in parallel", async () => {
+    await invite("ivan@lab.test", "viewer");
+    const id = (await t.db.selectFrom("invitations").select("id").executeTakeFirstOrThrow()).id;
+    outbox.length = 0;
+    const resend = () => run(members.action, makeRequest("/labs/kinetics/members", { form: { intent: "resend", invitationId: id }, cookie: ownerCookie }), { labSlug: "kinetics" });
+    const results = await Promise.all(Array.from({ length: 12 }, resend));
+    const { perInvitation } = (await import("~/labs/lab-actions.server")).INVITATION_MAIL_POLICY;
+    expect(results.filter((r) => r.status === 200)).toHaveLength(perInvitation);
+    expect(results.filter((r) => r.status === 429)).toHaveLength(12 - perInvitation);
+    expect((results.find((r) => r.status === 429)!.body as { error: string }).error).toMatch(/Too many invitation e-mails/);
+    expect(outbox).toHaveLength(perInvitation);
   });
 
   it("does not invite someone who is already a member", async () => {

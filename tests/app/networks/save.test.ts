@@ -33,4 +33,26 @@ describe("network input checks", () => {
     expect(huge.ok).toBe(false);
     if (!huge.ok) expect(huge.message).toMatch(/256 KB/);
   });
+
+  it("refuses a network larger than the stated limits before computing its structure", async () => {
+    const { NETWORK_LIMITS } = await import("@domain/network/index");
+    const n = NETWORK_LIMITS.maxSpecies + 1;
+    const csv = ["reaction,rate", ...Array.from({ length: n - 1 }, (_, i) => `S${i} -> S${i + 1},k${i}`)].join("\n") + "\n";
+    const r = checkCsv(csv);
+    expect(r.ok).toBe(false);
+    if (!r.ok) expect(r.details!.problems![0]).toMatchObject({ row: 1, message: `the network has ${n} species` });
+  });
+
+  it("refuses NUL characters in names, notes and the file with a located message (PostgreSQL cannot store them)", () => {
+    const name = parseDetails({ name: "Cy\u0000cle" });
+    expect(name.ok).toBe(false);
+    if (!name.ok) expect(name.details!.fields!.name).toMatch(/control character/);
+    const description = parseDetails({ name: "Cycle", description: "a\u0000b" });
+    expect(description.ok).toBe(false);
+    if (!description.ok) expect(Object.keys(description.details!.fields!)).toEqual(["description"]);
+    expect(parseChangeNote("fix\u0000", "-").ok).toBe(false);
+    const csv = checkCsv("reaction,label,rate\nA -> B,x\u0000y,k1\n");
+    expect(csv.ok).toBe(false);
+    if (!csv.ok) expect(csv.details!.problems![0]).toMatchObject({ row: 2, columnIndex: 2, message: "a NUL character" });
+  });
 });

@@ -57,3 +57,39 @@ describe("parser and canonical printer", () => {
     expect(P.format(P.parse("100*x + 51*y + 50 + 1/3"))).toBe("-x - 50*y - 17"); // 1/3 = 34 mod 101
   });
 });
+
+describe("parser limits (checked before the work)", () => {
+  const located = (text: string) => {
+    try {
+      R.parse(text);
+    } catch (e) {
+      expect(e).toBeInstanceOf(AlgebraError);
+      return (e as AlgebraError).message;
+    }
+    throw new Error(`parsed ${text.slice(0, 20)}…`);
+  };
+
+  it("refuses deep nesting and long sign chains with a location, not a stack overflow", () => {
+    expect(located(`${"(".repeat(5000)}x${")".repeat(5000)}`)).toMatch(/nesting deeper than 200 levels/);
+    expect(located(`${"-".repeat(5000)}x`)).toMatch(/nesting deeper than 200 levels/);
+    expect(fmt(`${"(".repeat(200)}x${")".repeat(200)}`)).toBe("x");
+  });
+
+  it("refuses powers too large to expand, and still expands moderate ones exactly", () => {
+    expect(located("(x+1)^3000")).toMatch(/degree 3000 when expanded/);
+    expect(located("(123456789*x+987654321)^1000")).toMatch(/too large to expand exactly/);
+    expect(located("(x^1000000)^1000000")).toMatch(/degree 1000000000000/);
+    // Binomial theorem: the coefficient of x^250 in (x+1)^500 is C(500, 250).
+    let c = 1n;
+    for (let k = 1n; k <= 250n; k++) c = (c * (500n - k + 1n)) / k;
+    const terms = R.format(R.parse("(x+1)^500")).split(" + ");
+    expect(terms).toHaveLength(501);
+    expect(terms).toContain(`${c}*x^250`);
+  });
+
+  it("refuses decimals with huge exponents (a BigInt cannot hold 10^99999999999)", () => {
+    expect(located("x - 1e99999999999")).toMatch(/too large to work with exactly/);
+    expect(located("2E-5000")).toMatch(/too large to work with exactly/);
+    expect(fmt("1e3*x")).toBe("1000*x");
+  });
+});

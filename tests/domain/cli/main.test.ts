@@ -51,6 +51,13 @@ describe("cli errors go to stderr with exit code 2", () => {
     ["divide without divisor", ["divide", "f"], { f: "vars: x\nx^2\n" }, /at least one divisor/],
     ["division by zero polynomial", ["divide", "f"], { f: "vars: x\nx^2\n0\n" }, /zero polynomial at line 3/],
     ["denominator not invertible mod p", ["groebner", "f", "--field", "7"], { f: "vars: x\nx - 1/7\n" }, /division by zero.*line 2, column 6/],
+    // Fuzz inputs from the drill (issue 16 #1): located errors, never a raw RangeError or minutes of work.
+    ["deep parentheses", ["groebner", "f"], { f: `vars: x\n${"(".repeat(20000)}x${")".repeat(20000)}\n` }, /nesting deeper than 200 levels.*line 2, column 201/],
+    ["a long chain of signs", ["groebner", "f"], { f: `vars: x\n${"-".repeat(20000)}x\n` }, /nesting deeper than 200 levels.*line 2/],
+    ["power of a sum too large to expand", ["groebner", "f"], { f: "vars: x\n(x+1)^3000\n" }, /degree 3000 when expanded.*line 2, column 7/],
+    ["number with a huge exponent", ["groebner", "f"], { f: "vars: x\nx - 1e99999999999\n" }, /too large to work with exactly.*line 2, column 5/],
+    ["exponent past 32 bits", ["groebner", "f"], { f: "vars: x\nx^4294967296\n" }, /exponent 4294967296 is too large.*line 2, column 3/],
+    ["monomial degree overflow by nested powers", ["groebner", "f"], { f: "vars: x\n(x^1000000)^1000000\n" }, /degree 1000000000000.*line 2/],
   ];
   for (const [name, argv, files, msg] of cases) {
     it(name, async () => {
