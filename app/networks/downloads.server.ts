@@ -17,8 +17,10 @@ export function downloadFile(network: NetworkRecord, version: VersionRecord, fil
   switch (file) {
     case "network.csv":
       return send(formatNetworkCsv(parseNetworkCsv(version.csv)), "text/csv", `${stem}.csv`);
-    case "odes.tex":
-      return send(odesLatexDocument(`${network.name} (version ${version.number})`, massActionOdes(structureOf(version.csv))), "application/x-tex", `${stem}-odes.tex`);
+    case "odes.tex": {
+      const structure = structureOf(version.csv);
+      return send(odesLatexDocument(`${network.name} (version ${version.number})`, massActionOdes(structure), structure.constants), "application/x-tex", `${stem}-odes.tex`);
+    }
     case "stoichiometric-matrix.csv":
       return send(stoichiometricMatrixCsv(structureOf(version.csv)), "text/csv", `${stem}-stoichiometric-matrix.csv`);
     default:

@@ -29,12 +29,15 @@ const GRID_COLUMNS = [
 export function NetworkEditor({
   mode,
   initialRows,
+  initialConstants = "",
   details,
   demos = [],
   failure,
 }: {
   mode: "create" | "version";
   initialRows: GridRow[];
+  /** Constant species as written after `# constant:`, e.g. `A = 2, ATP`. */
+  initialConstants?: string;
   details?: { name: string; description: string; tags: string };
   demos?: DemoNetwork[];
   failure?: EditorFailure | null;
@@ -44,7 +47,8 @@ export function NetworkEditor({
   const [fileProblems, setFileProblems] = useState<{ name: string; problems: readonly NetworkFileProblem[] } | null>(null);
   const [dragging, setDragging] = useState(false);
   const fileInput = useRef<HTMLInputElement>(null);
-  const check = useMemo(() => checkGrid(rows), [rows]);
+  const [constants, setConstants] = useState(initialConstants);
+  const check = useMemo(() => checkGrid(rows, constants), [rows, constants]);
   const blank = rows.every((r) => GRID_COLUMNS.every((c) => r[c.key].trim() === ""));
   const navigation = useNavigation();
   const saving = navigation.state === "submitting";
@@ -69,6 +73,7 @@ export function NetworkEditor({
     const loaded = csvToGrid(text);
     const parsed = tryParseNetworkCsv(text);
     edit(() => loaded.rows);
+    setConstants(loaded.constants);
     setNotices(loaded.notices);
     setFileProblems({ name: file.name, problems: parsed.ok ? [] : parsed.problems });
   }
@@ -76,6 +81,7 @@ export function NetworkEditor({
   function loadDemo(demo: DemoNetwork) {
     const loaded = csvToGrid(demo.csv);
     edit(() => loaded.rows.map((r) => ({ ...r, sourceLine: undefined })));
+    setConstants(loaded.constants);
     setNotices([]);
     setFileProblems(null);
   }
@@ -281,6 +287,33 @@ export function NetworkEditor({
         <button type="button" className="btn-quiet py-1.5" onClick={() => edit((rs) => [...rs, emptyRow()])}>
           + Add a reaction
         </button>
+      </div>
+
+      <div className="space-y-1">
+        <label className="block space-y-1 text-sm font-medium">
+          Constant species <span className="font-normal text-muted">(held at a fixed concentration, e.g. a feed: <code>A = 2, ATP</code>; a name without a value is a symbolic concentration)</span>
+          <input
+            value={constants}
+            onChange={(e) => {
+              setConstants(e.target.value);
+              setEditedAfter(failure);
+            }}
+            placeholder="A = 2, B"
+            aria-invalid={check.constants.length > 0}
+            className={`${inputCls} ${check.constants.length > 0 ? "border-danger" : ""}`}
+            data-testid="constants-input"
+          />
+        </label>
+        {check.constants.length > 0 && (
+          <ul className="text-xs text-danger" data-testid="constants-problems">
+            {check.constants.map((p, i) => (
+              <li key={i}>
+                {p.message}
+                {p.expected ? ` — expected ${p.expected}` : ""}
+              </li>
+            ))}
+          </ul>
+        )}
       </div>
 
       <input type="hidden" name="csv" value={check.csv} />
