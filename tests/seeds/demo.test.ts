@@ -9,7 +9,7 @@ describe("demo networks", () => {
     "%s is a valid network file",
     (_name, csv) => {
       const network = parseNetworkCsv(csv);
-      expect(network.species.length).toBeGreaterThan(1);
+      expect(network.species.length + (network.constants?.length ?? 0)).toBeGreaterThan(1);
     },
   );
 
