@@ -291,8 +291,9 @@ export function NetworkEditor({
 
       <div className="space-y-1">
         <label className="block space-y-1 text-sm font-medium">
-          Constant species <span className="font-normal text-muted">(held at a fixed concentration, e.g. a feed: <code>A = 2, ATP</code>; a name without a value is a symbolic concentration)</span>
+          Constant species
           <input
+            aria-describedby="constants-hint"
             value={constants}
             onChange={(e) => {
               setConstants(e.target.value);
@@ -304,6 +305,10 @@ export function NetworkEditor({
             data-testid="constants-input"
           />
         </label>
+        {/* Kept outside the label so the field's accessible name stays "Constant species". */}
+        <p id="constants-hint" className="text-xs text-muted">
+          Species held at a fixed concentration, such as a feed or a buffered cofactor: <code>A = 2, ATP</code>. Without a value the concentration stays symbolic, like a rate constant.
+        </p>
         {check.constants.length > 0 && (
           <ul className="text-xs text-danger" data-testid="constants-problems">
             {check.constants.map((p, i) => (
