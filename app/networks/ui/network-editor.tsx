@@ -138,7 +138,7 @@ export function NetworkEditor({
             .
           </p>
           <p className="text-xs text-muted">
-            CSV with a header row (<code>reaction,rate,reverse_rate,rate_value,reverse_rate_value,label</code>), comma or semicolon, at most {MAX_CSV_LABEL}. It is
+            CSV with a header row (<code>reaction,rate,reverse_rate,rate_value,reverse_rate_value,label</code>), comma or semicolon, and an optional <code># constant: A = 2, B</code> line for species held constant; at most {MAX_CSV_LABEL}. It is
             read here in your browser first; nothing is saved until you press Save.
           </p>
           <input
