@@ -1,7 +1,9 @@
 /**
  * The invented demo scenario: the Halvorsen Enzyme Lab, a small group studying enzyme kinetics,
  * with one member per role and three small mass-action networks in Stillpoint's CSV format
- * (header `reaction,label,rate,reverse_rate,rate_value,reverse_rate_value`, one reaction per row).
+ * (header `reaction,label,rate,reverse_rate,rate_value,reverse_rate_value`, one reaction per row,
+ * and a `# constant:` line for species held constant). Each network's `claims` state what its
+ * texts say in a form tests/seeds/demo-data.test.ts checks against the engine.
  * All addresses use the reserved `.test` domain; mail to them lands in the local catcher.
  */
 import type { LabRole } from "../app/db/schema";
@@ -13,10 +15,15 @@ export interface DemoPerson {
   isSiteAdmin?: boolean;
 }
 
+import type { DemoClaims } from "../app/networks/demos";
+
 export interface DemoNetwork {
   name: string;
   description: string;
+  /** Earlier demo descriptions of this network: a re-seed replaces them (and no text a person wrote). */
+  previousDescriptions?: string[];
   tags: string[];
+  claims?: DemoClaims;
   /** Oldest first; each becomes a numbered, content-hashed version. */
   versions: { csv: string; changeNote: string; author: string }[];
 }
@@ -40,6 +47,8 @@ export const DEMO_NETWORKS: DemoNetwork[] = [
       "Enzyme E binds sucrose S reversibly into the complex C, which releases the product P. " +
       "The textbook two-step enzyme mechanism, with the lab's bench estimates as rate values.",
     tags: ["enzyme", "michaelis-menten", "teaching"],
+    // The product only accumulates: no positive steady state in any class.
+    claims: { deficiency: 0, weaklyReversible: false, steadyStates: { count: 0, stable: 0, initial: { E: "1", S: "1" } } },
     versions: [
       {
         author: "owner@halvorsen.test",
@@ -54,6 +63,8 @@ export const DEMO_NETWORKS: DemoNetwork[] = [
       "A substrate switched between its unphosphorylated form S0 and phosphorylated form S1 by a kinase K " +
       "and a phosphatase F, each acting through an enzyme–substrate complex.",
     tags: ["signalling", "phosphorylation"],
+    // One-site cycle: one positive steady state per class for these rates (the class of S0 = 1, K = F = 1/2 checked).
+    claims: { deficiency: 1, weaklyReversible: false, steadyStates: { count: 1, stable: 1, initial: { S0: "1", K: "1/2", F: "1/2" } } },
     versions: [
       {
         author: "editor@halvorsen.test",
@@ -77,13 +88,28 @@ export const DEMO_NETWORKS: DemoNetwork[] = [
     name: "Autocatalytic switch",
     description:
       "X makes more of itself from the feed A (two X help a third one form) and decays into the waste B. " +
-      "With suitable rates the reactor has more than one positive steady state.",
-    tags: ["bistability", "autocatalysis"],
+      "The inflow holds A at 2 and the outflow holds B at 3 (both declared constant), so only X changes. " +
+      "With these rates the reactor has three positive steady states, X = 1, 2 and 3: the outer two are stable " +
+      "and the middle one is not, so the reactor is a bistable switch.",
+    previousDescriptions: [
+      "X makes more of itself from the feed A (two X help a third one form) and decays into the waste B. " +
+        "With suitable rates the reactor has more than one positive steady state.",
+    ],
+    tags: ["bistability", "autocatalysis", "fed reactor"],
+    // Schlögl's second model with reservoir species (Z. Physik 253, 1972): with A and B constant,
+    // dX/dt = 3·2·X² − X³ − 11·X + 2·3 = −(X − 1)(X − 2)(X − 3) (expanded by hand).
+    claims: { deficiency: 1, weaklyReversible: true, steadyStates: { count: 3, stable: 2, concentrations: [{ X: 1 }, { X: 2 }, { X: 3 }] } },
     versions: [
       {
         author: "owner@halvorsen.test",
         changeNote: "Reactor model as sketched at the group meeting.",
         csv: csv(HEADER, "A + 2X <-> 3X,autocatalysis,k1,k2,1,1", "X <-> B,decay,k3,k4,1,1"),
+      },
+      {
+        author: "owner@halvorsen.test",
+        changeNote:
+          "Feed A and waste B held constant by the inflow and outflow (as closed, the model was deficiency zero and weakly reversible: one steady state per class, no switch); rate values from the reactor runs.",
+        csv: csv("# constant: A = 2, B = 3", HEADER, "A + 2X <-> 3X,autocatalysis,k1,k2,3,1", "X <-> B,decay,k3,k4,11,2"),
       },
     ],
   },

@@ -56,6 +56,14 @@ export async function seedDemo(db: Kysely<Database>): Promise<SeedSummary> {
         .where("lab_id", "=", lab.id)
         .where("name", "=", network.name)
         .executeTakeFirst();
+      // A demo text that was corrected replaces its earlier wording, never a person's own text.
+      if (existing && network.previousDescriptions?.length)
+        await trx
+          .updateTable("networks")
+          .set({ description: network.description })
+          .where("id", "=", existing.id)
+          .where("description", "in", network.previousDescriptions)
+          .execute();
       const networkId =
         existing?.id ??
         (

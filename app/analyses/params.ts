@@ -64,14 +64,20 @@ export const DEFAULT_TIME_LIMIT_SECONDS = 120;
 export const DEFAULT_MAX_TERMS = 20_000;
 const NAME = /^[A-Za-z][A-Za-z0-9_]*$/;
 
+/**
+ * The parameters a run can set: the rate symbols, then the constant species (a held
+ * concentration enters the rates like a rate constant, so it is set, overridden and scanned the same way).
+ */
 export function rateSymbols(network: Network): string[] {
-  return [...new Set(network.reactions.map((r) => r.rate))];
+  return [...new Set([...network.reactions.map((r) => r.rate), ...(network.constants ?? []).map((c) => c.name)])];
 }
 
-/** Rate values the file itself gives, as text. */
+/** Rate values and constant concentrations the file itself gives, as text. */
 export function fileRateValues(network: Network): Record<string, string> {
   const out: Record<string, string> = {};
-  for (const r of network.reactions) if (r.rateValue && !(r.rate in out)) out[r.rate] = r.rateValue.den === 1n ? `${r.rateValue.num}` : `${r.rateValue.num}/${r.rateValue.den}`;
+  const text = (v: { num: bigint; den: bigint }) => (v.den === 1n ? `${v.num}` : `${v.num}/${v.den}`);
+  for (const r of network.reactions) if (r.rateValue && !(r.rate in out)) out[r.rate] = text(r.rateValue);
+  for (const c of network.constants ?? []) if (c.value) out[c.name] = text(c.value);
   return out;
 }
 

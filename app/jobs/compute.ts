@@ -28,7 +28,10 @@ export interface ComputeOptions {
   onProgress?: (p: AnalysisProgress) => void;
 }
 
-/** The network with the analysis' rate mode applied: symbolic drops every value, numeric adds overrides. */
+/**
+ * The network with the analysis' rate mode applied: symbolic drops every value, numeric adds
+ * overrides. Constant species' concentrations are treated like rate values (see rateSymbols).
+ */
 export function networkFor(csv: string, params: Pick<AnalysisParams, "rateMode" | "rateValues">, override?: { rate: string; value: Rational }): Network {
   const network = parseNetworkCsv(csv);
   const value = (rate: string, fromFile: Rational | undefined): Rational | undefined => {
@@ -37,7 +40,20 @@ export function networkFor(csv: string, params: Pick<AnalysisParams, "rateMode" 
     const given = params.rateValues[rate];
     return given !== undefined ? (parseRational(given) ?? fromFile) : fromFile;
   };
-  return { ...network, reactions: network.reactions.map((r) => ({ ...r, rateValue: value(r.rate, r.rateValue) })) };
+  const withRate = <T extends { rateValue?: Rational }>(r: T, v: Rational | undefined): T => {
+    const { rateValue: _old, ...rest } = r;
+    return (v === undefined ? rest : { ...rest, rateValue: v }) as T;
+  };
+  const constants = network.constants?.map((c) => {
+    const v = value(c.name, c.value);
+    const { value: _old, ...rest } = c;
+    return v === undefined ? rest : { ...rest, value: v };
+  });
+  return {
+    ...network,
+    reactions: network.reactions.map((r) => withRate(r, value(r.rate, r.rateValue))),
+    ...(constants ? { constants } : {}),
+  };
 }
 
 export function initialMap(initial: Record<string, string> | null): Map<string, Rational> | undefined {

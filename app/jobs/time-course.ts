@@ -6,47 +6,35 @@
 import { integrateStiff } from "@domain/numeric/index";
 import type { Network } from "@domain/network/index";
 import type { AnalysisProgress } from "@domain/steady-state/index";
+import { kineticsRing, massActionOdes } from "@domain/steady-state/kinetics";
+import { floatSystem } from "@domain/steady-state/float-eval";
 
 export interface MassActionFloat {
   f: (x: number[]) => number[];
   jacobian: (x: number[]) => number[][];
 }
 
-/** Floating-point right-hand side and Jacobian; throws when a rate constant has no value. */
+/**
+ * Floating-point right-hand side and Jacobian, compiled from the domain's exact mass-action ODEs
+ * (one builder for every consumer, so constant species are honoured the same way: a held
+ * concentration multiplies the rate constant). Throws when a rate constant or a constant
+ * species has no value.
+ */
 export function massActionFloat(network: Network): MassActionFloat {
-  const n = network.species.length;
-  const idx = new Map(network.species.map((s, i) => [s, i]));
-  const reactions = network.reactions.map((r) => {
-    if (!r.rateValue) throw new Error(`The time course needs a value for every rate constant; ${r.rate} has none.`);
-    const k = Number(r.rateValue.num) / Number(r.rateValue.den);
-    const reactant = Object.entries(r.reactant).map(([s, a]) => [idx.get(s)!, a] as const);
-    const change = new Array<number>(n).fill(0);
-    for (const [s, a] of Object.entries(r.reactant)) change[idx.get(s)!] -= a;
-    for (const [s, b] of Object.entries(r.product)) change[idx.get(s)!] += b;
-    return { k, reactant, change };
-  });
-  return {
-    f(x) {
-      const out = new Array<number>(n).fill(0);
-      for (const r of reactions) {
-        let rate = r.k;
-        for (const [s, a] of r.reactant) rate *= x[s] ** a;
-        for (let s = 0; s < n; s++) if (r.change[s] !== 0) out[s] += r.change[s] * rate;
-      }
-      return out;
-    },
-    jacobian(x) {
-      const J = Array.from({ length: n }, () => new Array<number>(n).fill(0));
-      for (const r of reactions) {
-        for (const [t, a] of r.reactant) {
-          let d = r.k * a * x[t] ** (a - 1);
-          for (const [s, b] of r.reactant) if (s !== t) d *= x[s] ** b;
-          for (let s = 0; s < n; s++) if (r.change[s] !== 0) J[s][t] += r.change[s] * d;
-        }
-      }
-      return J;
-    },
-  };
+  const kin = kineticsRing(network);
+  if (kin.rateParameters.length > 0) {
+    const held = new Set((network.constants ?? []).map((c) => c.name));
+    const rates = kin.rateParameters.filter((p) => !held.has(p));
+    const constants = kin.rateParameters.filter((p) => held.has(p));
+    throw new Error(
+      `The time course needs a value for every rate constant and constant species; ${[
+        ...(rates.length > 0 ? [`rate constant${rates.length === 1 ? "" : "s"} ${rates.join(", ")}`] : []),
+        ...(constants.length > 0 ? [`constant species ${constants.join(", ")}`] : []),
+      ].join(" and ")} ${kin.rateParameters.length === 1 ? "has" : "have"} none.`,
+    );
+  }
+  const system = floatSystem(massActionOdes(network, kin), kin.species.map((_, i) => i));
+  return { f: (x) => system.values(x), jacobian: (x) => system.jacobian(x) };
 }
 
 /** At most `max` samples, evenly spread over the accepted steps (first and last kept). */

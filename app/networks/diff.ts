@@ -20,11 +20,18 @@ export interface NetworkDiff {
   reactionsAdded: ReactionSummary[];
   reactionsRemoved: ReactionSummary[];
   reactionsChanged: ReactionChange[];
+  /**
+   * Species held constant or released, or held at another concentration, e.g.
+   * `A held constant at 2`, `B held constant (symbolic)`, `A no longer held constant`, `A: 2 → 5/2`.
+   * Holding a species also changes the reactions' complexes, which the lists above show.
+   */
+  constantsChanged: string[];
   /** True when nothing above is non-empty. */
   identical: boolean;
 }
 
-type Side = Pick<NetworkStructure, "species" | "reactionList">;
+/** `constants` may be missing from a structure stored before constant species existed. */
+type Side = Pick<NetworkStructure, "species" | "reactionList"> & { constants?: NetworkStructure["constants"] };
 
 export const reactionText = (r: Pick<ReactionSummary, "reactant" | "product">) => `${r.reactant} → ${r.product}`;
 
@@ -56,8 +63,23 @@ export function diffNetworks(before: Side, after: Side): NetworkDiff {
     if (old.rate !== now.rate) changes.push(`rate symbol ${old.rate} → ${now.rate}`);
     if (old.rateValue !== now.rateValue) changes.push(`rate value ${show(old.rateValue)} → ${show(now.rateValue)}`);
     if (old.label !== now.label) changes.push(`label ${show(old.label)} → ${show(now.label)}`);
+    const heldText = (h: Record<string, number> | undefined) => (h ? Object.entries(h).map(([sp, c]) => (c === 1 ? sp : `${c}${sp}`)).join(" + ") : undefined);
+    if (heldText(old.held) !== heldText(now.held)) changes.push(`constant species consumed ${show(heldText(old.held))} → ${show(heldText(now.held))}`);
     if (changes.length > 0) reactionsChanged.push({ reaction: reactionText(now), before: old, after: now, changes });
   }
-  const identical = [speciesAdded, speciesRemoved, reactionsAdded, reactionsRemoved, reactionsChanged].every((l) => l.length === 0);
-  return { speciesAdded, speciesRemoved, reactionsAdded, reactionsRemoved, reactionsChanged, identical };
+  const constantsChanged = diffConstants(before.constants ?? [], after.constants ?? []);
+  const identical = [speciesAdded, speciesRemoved, reactionsAdded, reactionsRemoved, reactionsChanged, constantsChanged].every((l) => l.length === 0);
+  return { speciesAdded, speciesRemoved, reactionsAdded, reactionsRemoved, reactionsChanged, constantsChanged, identical };
+}
+
+function diffConstants(before: NetworkStructure["constants"], after: NetworkStructure["constants"]): string[] {
+  const out: string[] = [];
+  const held = (v: string | undefined) => v ?? "symbolic";
+  for (const c of after) {
+    const old = before.find((b) => b.name === c.name);
+    if (!old) out.push(c.value ? `${c.name} held constant at ${c.value}` : `${c.name} held constant (symbolic)`);
+    else if (old.value !== c.value) out.push(`${c.name}: ${held(old.value)} → ${held(c.value)}`);
+  }
+  for (const b of before) if (!after.some((c) => c.name === b.name)) out.push(`${b.name} no longer held constant`);
+  return out;
 }

@@ -16,11 +16,16 @@ export function downloadFile(network: NetworkRecord, version: VersionRecord, fil
   const stem = `${slug(network.name)}-v${version.number}`;
   const send = (body: string, type: string, name: string) =>
     new Response(body, { headers: { "Content-Type": `${type}; charset=utf-8`, "Content-Disposition": `attachment; filename="${name}"` } });
+  // The open formats and code do not carry constant species yet: refuse rather than drop them.
+  if (["network.xml", "network.txt", "odes.py", "odes.jl"].includes(file ?? "") && (parseNetworkCsv(version.csv).constants ?? []).length > 0)
+    return new Response("This version holds species constant; the SBML, reaction-list and ODE-code downloads do not carry constant species yet. Download the CSV instead.", { status: 409, headers: { "Content-Type": "text/plain; charset=utf-8" } });
   switch (file) {
     case "network.csv":
       return send(csvTextSafe(formatNetworkCsv(parseNetworkCsv(version.csv))), "text/csv", `${stem}.csv`);
-    case "odes.tex":
-      return send(odesLatexDocument(`${network.name} (version ${version.number})`, massActionOdes(structureOf(version.csv))), "application/x-tex", `${stem}-odes.tex`);
+    case "odes.tex": {
+      const structure = structureOf(version.csv);
+      return send(odesLatexDocument(`${network.name} (version ${version.number})`, massActionOdes(structure), structure.constants), "application/x-tex", `${stem}-odes.tex`);
+    }
     // Open formats and code (issue 14): SBML Level 3 Version 2, a reaction list, the ODEs as Python and Julia.
     case "network.xml":
       return send(formatSbml(parseNetworkCsv(version.csv), { id: slug(network.name), name: network.name }), "application/sbml+xml", `${stem}.xml`);

@@ -1,12 +1,15 @@
 import Papa from "papaparse";
 import { NETWORK_COLUMNS, type NetworkColumn, type NetworkFileProblem, tryParseNetworkCsv } from "@domain/network/index";
 import { readCsvTable } from "@domain/network/csv-table";
+import { CONSTANT_DIRECTIVE } from "@domain/network/constant-species";
 
 /**
  * The editor's form grid and its round trip to our CSV format. Runs in the browser (preview)
  * and on the server; validation is always the domain parser on the CSV the grid writes, so the
  * browser and the server report the same problems. The grid writes the header on line 1 and
- * grid row i on line i + 2, which is how problems are mapped back to rows.
+ * grid row i on line i + 2, which is how problems are mapped back to rows. The constant species
+ * (one text field, `A = 2, ATP`) are written as a `# constant:` line after the last row, so they
+ * shift no row's line; their problems are reported apart (column `constant`).
  */
 
 export type GridCells = Record<NetworkColumn, string>;
@@ -31,15 +34,22 @@ export function emptyRow(): GridRow {
 /** Cells are single-line inputs; a pasted newline would shift every later line number. */
 const oneLine = (s: string) => s.replace(/[\r\n]+/g, " ").trim();
 
-/** CSV text of the grid: header with the columns in use (always `reaction`), one line per row. */
-export function gridToCsv(rows: readonly GridCells[]): string {
+/**
+ * CSV text of the grid: header with the columns in use (always `reaction`), one line per row, then
+ * the constant species' declaration when given. Example: rows [A + X -> 2X] and constants "A = 2"
+ * give `reaction` / `A + X -> 2X` / `# constant: A = 2`.
+ */
+export function gridToCsv(rows: readonly GridCells[], constants = ""): string {
   const used = NETWORK_COLUMNS.filter((c) => c === "reaction" || rows.some((r) => oneLine(r[c]) !== ""));
   const data = rows.map((r) => used.map((c) => oneLine(r[c])));
-  return Papa.unparse({ fields: [...used], data }, { newline: "\n" }) + "\n";
+  const declaration = oneLine(constants) === "" ? "" : `# constant: ${oneLine(constants)}\n`;
+  return Papa.unparse({ fields: [...used], data }, { newline: "\n" }) + "\n" + declaration;
 }
 
 export interface LoadedGrid {
   rows: GridRow[];
+  /** The entries of every `# constant:` line, joined by `, ` (e.g. `A = 2, ATP`), or "". */
+  constants: string;
   /** Things the grid could not keep (unknown columns, unreadable header), in plain words. */
   notices: string[];
 }
@@ -51,7 +61,16 @@ export interface LoadedGrid {
 export function csvToGrid(text: string): LoadedGrid {
   const table = readCsvTable(text);
   const notices: string[] = [];
-  if (!table.header) return { rows: [emptyRow()], notices: ["The file is empty: start typing reactions below."] };
+  const declarations = table.comments.filter((c) => CONSTANT_DIRECTIVE.test(c.text));
+  const constants = declarations
+    .map((c) => c.text.replace(CONSTANT_DIRECTIVE, "").trim())
+    .filter((t) => t !== "")
+    .join(", ");
+  // Other comments have no place in the grid: say so rather than lose them unseen.
+  const commentNotices: string[] = [];
+  for (const c of table.comments)
+    if (!CONSTANT_DIRECTIVE.test(c.text)) commentNotices.push(`The comment on line ${c.line} (\`${c.text.trim().slice(0, 80)}\`) is not kept by the grid.`);
+  if (!table.header) return { rows: [emptyRow()], constants, notices: ["The file is empty: start typing reactions below.", ...commentNotices] };
   const columnOf = new Map<number, NetworkColumn>();
   table.header.cells.forEach((cell, j) => {
     const name = cell.toLowerCase();
@@ -76,7 +95,7 @@ export function csvToGrid(text: string): LoadedGrid {
     return row;
   });
   for (const p of table.problems) notices.push(`Line ${p.row}: ${p.message}.`);
-  return { rows: rows.length > 0 ? rows : [emptyRow()], notices };
+  return { rows: rows.length > 0 ? rows : [emptyRow()], constants, notices: [...notices, ...commentNotices] };
 }
 
 export interface GridCheck {
@@ -86,23 +105,27 @@ export interface GridCheck {
   general: NetworkFileProblem[];
   /** Problems per grid row index. */
   byRow: Map<number, NetworkFileProblem[]>;
+  /** Problems of the constant species' declaration. */
+  constants: NetworkFileProblem[];
   count: number;
 }
 
 /** Validates the grid with the domain parser and maps each problem to its grid row. */
-export function checkGrid(rows: readonly GridCells[]): GridCheck {
-  const csv = gridToCsv(rows);
+export function checkGrid(rows: readonly GridCells[], constantsText = ""): GridCheck {
+  const csv = gridToCsv(rows, constantsText);
   const result = tryParseNetworkCsv(csv);
   const general: NetworkFileProblem[] = [];
   const byRow = new Map<number, NetworkFileProblem[]>();
+  const constants: NetworkFileProblem[] = [];
   if (!result.ok) {
     for (const p of result.problems) {
       const index = p.row - 2;
-      if (index >= 0 && index < rows.length) byRow.set(index, [...(byRow.get(index) ?? []), p]);
+      if (p.column === "constant") constants.push(p);
+      else if (index >= 0 && index < rows.length) byRow.set(index, [...(byRow.get(index) ?? []), p]);
       else general.push(p);
     }
   }
-  return { ok: result.ok, csv, general, byRow, count: result.ok ? 0 : result.problems.length };
+  return { ok: result.ok, csv, general, byRow, constants, count: result.ok ? 0 : result.problems.length };
 }
 
 /** Moves row `from` to `to` (both indexes into the same array); returns a new array. */

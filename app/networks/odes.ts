@@ -6,15 +6,19 @@ import { latexText } from "~/downloads/escape";
  * stoichiometric matrix N, the complex composition Y and each reaction's rate symbol.
  * dx_s/dt = Σ_j N[s][j] · k_j · Π_t x_t^Y[t][c(j)], where c(j) is reaction j's reactant complex
  * (Horn & Jackson, Arch. Rational Mech. Anal. 47, 1972, eq. 2.5). Rate constants stay symbolic;
- * terms with the same rate symbol and reactant are merged.
+ * terms with the same rate symbol and reactant are merged. A constant species of the reactant
+ * (`held` in the reaction list) appears as a factor marked `constant`, its concentration written
+ * like any other (its value, if given, is in the structure's `constants`), and has no equation.
+ * The exact builder the analyses use is domain/steady-state/kinetics.ts; this one writes the same
+ * equations from the page's structure without values substituted.
  */
 
 export interface OdeTerm {
   /** Integer coefficient, never 0. */
   coefficient: number;
   rate: string;
-  /** Species with their exponents, in the network's species order. */
-  factors: { species: string; power: number }[];
+  /** Species with their exponents, in the network's species order, then the constant species. */
+  factors: { species: string; power: number; constant?: true }[];
 }
 
 export interface SpeciesOde {
@@ -27,10 +31,12 @@ export function massActionOdes(structure: Pick<NetworkStructure, "species" | "co
   const monomials = structure.reactionList.map((r) => {
     const c = complexIndex.get(r.reactant);
     if (c === undefined) throw new Error(`reactant complex ${r.reactant} of ${r.id} is not among the complexes`);
-    const factors = structure.species
+    const factors: OdeTerm["factors"] = structure.species
       .map((species, s) => ({ species, power: structure.complexComposition[s]![c]! }))
       .filter((f) => f.power !== 0);
-    return { rate: r.rate, factors, key: `${r.rate}|${r.reactant}` };
+    const held = Object.entries(r.held ?? {});
+    for (const [species, power] of held) factors.push({ species, power, constant: true });
+    return { rate: r.rate, factors, key: `${r.rate}|${r.reactant}|${held.map(([s, p]) => `${p}${s}`).join("+")}` };
   });
   return structure.species.map((species, s) => {
     const merged = new Map<string, OdeTerm>();
@@ -99,14 +105,23 @@ export function odesAlignedLatex(odes: SpeciesOde[]): string {
 }
 
 /** A complete LaTeX document with the ODEs in an `align*` block (the download). */
-export function odesLatexDocument(title: string, odes: SpeciesOde[]): string {
+export function odesLatexDocument(title: string, odes: SpeciesOde[], constants: readonly { name: string; value?: string }[] = []): string {
   const lines = odes.map((o) => "  " + odeToLatex(o).replace(" = ", " &= "));
+  // Held species have no equation; the document says at what concentration they are held.
+  const held =
+    constants.length === 0
+      ? []
+      : [
+          `Held constant: ${constants.map((c) => `$${concentrationTex(c.name)}${c.value ? ` = ${c.value.replace(/^(\d+)\/(\d+)$/, "\\tfrac{$1}{$2}")}` : ""}$`).join(", ")}${constants.some((c) => !c.value) ? " (without a value: a parameter)" : ""}.`,
+          "",
+        ];
   return [
     "% Mass-action ODEs exported from Stillpoint; rate constants symbolic, species as concentrations.",
     "\\documentclass{article}",
     "\\usepackage{amsmath}",
     "\\begin{document}",
     `\\section*{${latexText(title)}}`,
+    ...held,
     "\\begin{align*}",
     lines.join(" \\\\\n"),
     "\\end{align*}",

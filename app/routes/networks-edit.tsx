@@ -28,7 +28,8 @@ export async function action({ request, params }: Route.ActionArgs) {
 
 export default function EditNetworkPage({ loaderData, actionData }: Route.ComponentProps) {
   const { lab, network, version } = loaderData;
-  const rows = csvToGrid(version.csv).rows.map((r) => ({ ...r, sourceLine: undefined }));
+  const loaded = csvToGrid(version.csv);
+  const rows = loaded.rows.map((r) => ({ ...r, sourceLine: undefined }));
   return (
     <div className="space-y-6">
       <header>
@@ -40,7 +41,7 @@ export default function EditNetworkPage({ loaderData, actionData }: Route.Compon
         <h1 className="text-2xl font-semibold tracking-tight">New version</h1>
         <p className="mt-1 text-sm text-muted">Starting from version {version.number}. Saving adds version {version.number + 1}; earlier versions never change.</p>
       </header>
-      <NetworkEditor mode="version" initialRows={rows} failure={actionData} />
+      <NetworkEditor mode="version" initialRows={rows} initialConstants={loaded.constants} failure={actionData} />
     </div>
   );
 }

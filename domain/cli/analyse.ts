@@ -30,6 +30,8 @@ export function toJson(r: SteadyStateAnalysis): Record<string, unknown> {
   const s = r.structure;
   return {
     species: s.species,
+    // Added key: species held constant (the complexes and matrices are formed without them).
+    constants: s.constants,
     complexes: s.complexes,
     reactions: s.reactions,
     rank: s.rank,
@@ -84,6 +86,8 @@ export function toReport(r: SteadyStateAnalysis): string {
   const lines: string[] = [];
   const section = (title: string) => lines.push("", title, "-".repeat(title.length));
   lines.push(`Species (${s.species.length}): ${s.species.join(", ")}`);
+  if (s.constants.length > 0)
+    lines.push(`Held constant (${s.constants.length}): ${s.constants.map((c) => (c.value ? `${c.name} = ${c.value}` : `${c.name} (symbolic)`)).join(", ")}`);
   lines.push(`Complexes (${s.complexes.length}): ${s.complexes.join(", ")}`);
   lines.push(`Directed reactions: ${s.reactions}; rank ${s.rank}; linkage classes ${s.linkageClasses}; deficiency ${s.deficiency}; weakly reversible: ${s.weaklyReversible ? "yes" : "no"}`);
   lines.push(`Conservation laws: ${s.conservationLaws.length === 0 ? "none" : s.conservationLaws.map(law).join("; ")}`);

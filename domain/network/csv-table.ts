@@ -12,6 +12,8 @@ export interface CsvTable {
   /** The first row that is neither blank nor a comment, or null for an empty file. */
   readonly header: CsvLine | null;
   readonly rows: readonly CsvLine[];
+  /** Comment lines (first non-blank character `#`), as written, e.g. the `# constant: …` declaration. */
+  readonly comments: readonly { readonly line: number; readonly text: string }[];
   readonly problems: readonly NetworkFileProblem[];
 }
 
@@ -38,6 +40,7 @@ export function readCsvTable(input: string): CsvTable {
   const delimiter = detectDelimiter(text);
   const problems: NetworkFileProblem[] = [];
   const located: CsvLine[] = [];
+  const comments: { line: number; text: string }[] = [];
   let start = 0;
   Papa.parse<string[]>(text, {
     delimiter,
@@ -47,7 +50,12 @@ export function readCsvTable(input: string): CsvTable {
       const rowStart = start;
       start = cursor;
       const line = lineAt(Math.min(rowStart, Math.max(text.length - 1, 0)));
-      if (/^[ \t]*#/.test(text.slice(rowStart, rowStart + 200))) return;
+      if (/^[ \t]*#/.test(text.slice(rowStart, rowStart + 200))) {
+        // A comment is kept whole, as one line of text (papaparse may have split it at commas).
+        const end = line < lineStarts.length ? lineStarts[line] : text.length;
+        comments.push({ line, text: text.slice(rowStart, end).replace(/\r?\n$|\r$/, "") });
+        return;
+      }
       const cells = (result.data as string[]).map((c) => c.trim());
       for (const e of result.errors) {
         problems.push({
@@ -66,7 +74,7 @@ export function readCsvTable(input: string): CsvTable {
     },
   });
   const [header = null, ...rows] = located;
-  return { delimiter, header, rows, problems };
+  return { delimiter, header, rows, comments, problems };
 }
 
 function lineStartOffsets(text: string): number[] {

@@ -4,6 +4,8 @@
  * - parseNetworkCsv(text) → Network, or a NetworkFileError listing every located problem.
  * - formatNetworkCsv(network) → CSV text that parses back to the same network.
  * - analyseStructure(network) → NetworkStructure, plain JSON-friendly data (rationals as strings).
+ * - Constant species (`# constant: A = 2, B`): network.constants, each reaction's `held` part;
+ *   importers (e.g. SBML boundary species) fill `constants` and strip them from the complexes.
  * - The exact pieces (complexes, Y, incidence and stoichiometric matrices, conservation laws) for
  *   the steady-state layer.
  *
@@ -13,7 +15,8 @@
  */
 export type { Complex } from "./complex";
 export { SPECIES_NAME, makeComplex, formatComplex, sameComplex, compareNames } from "./complex";
-export type { Arrow, DirectedReaction, Network, NetworkRow } from "./model";
+export type { Arrow, ConstantSpecies, DirectedReaction, Network, NetworkRow } from "./model";
+export { CONSTANT_DIRECTIVE, formatConstantDeclaration, readConstantDeclarations, splitComplex } from "./constant-species";
 export { type NetworkFileProblem, NetworkFileError, formatProblem } from "./errors";
 export { NETWORK_COLUMNS, type NetworkColumn, parseNetworkCsv, tryParseNetworkCsv } from "./parse-csv";
 export { parseReactionText, type ParsedReaction, type ReactionTextResult } from "./reaction-text";

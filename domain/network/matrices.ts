@@ -2,20 +2,23 @@ import { fromInt, toNumber } from "../algebra/rational";
 import { createMatrix, multiply, type Matrix } from "../linear/matrix";
 import { formatComplex, type Complex } from "./complex";
 import type { Network } from "./model";
+import { splitComplex } from "./constant-species";
 
 /**
  * The network's complexes in order of first appearance (rows top to bottom, each row's left side
- * before its right side). Example: `E + S <-> C`, `C -> E + P` gives [E + S, C, E + P].
+ * before its right side), formed from the species that are not held constant.
+ * Example: `E + S <-> C`, `C -> E + P` gives [E + S, C, E + P]; `A + 2X <-> 3X` with A constant gives [2X, 3X].
  */
 export function complexesOf(network: Network): Complex[] {
+  const constant = new Set((network.constants ?? []).map((c) => c.name));
   const seen = new Map<string, Complex>();
   const note = (c: Complex) => {
     const key = formatComplex(c);
     if (!seen.has(key)) seen.set(key, c);
   };
   for (const r of network.rows) {
-    note(r.left);
-    note(r.right);
+    note(splitComplex(r.left, constant)[0]);
+    note(splitComplex(r.right, constant)[0]);
   }
   for (const r of network.reactions) {
     note(r.reactant);

@@ -37,11 +37,37 @@ export interface DirectedReaction {
   readonly row: number;
   /** Whether this is the row's written direction or the reverse half of a `<->` row. */
   readonly direction: "forward" | "reverse";
+  /**
+   * The constant species of the reactant as written (e.g. { A: 1 } for `A + 2X -> 3X` with A held
+   * constant): their concentrations multiply the rate constant. `reactant` and `product` hold only
+   * the other species. Absent when the reactant has no constant species.
+   */
+  readonly held?: Complex;
+}
+
+/**
+ * A species held at a fixed concentration (a feed, a chemostatted cofactor), declared on a
+ * `# constant: A = 2, ATP` line of the file. It is not a variable of the network: it leaves the
+ * species list, the complexes and the stoichiometric matrix, and its concentration multiplies the
+ * rate constant of each reaction that consumes it.
+ */
+export interface ConstantSpecies {
+  readonly name: string;
+  /** The given concentration; absent means symbolic (a parameter named like the species). */
+  readonly value?: Rational;
+  /** 1-based line of the declaration. */
+  readonly line: number;
 }
 
 export interface Network {
-  /** In order of first appearance in the file (left to right, top to bottom). */
+  /**
+   * In order of first appearance in the file (left to right, top to bottom), without the
+   * constant species.
+   */
   readonly species: readonly string[];
   readonly reactions: readonly DirectedReaction[];
+  /** Rows as written: their complexes still contain the constant species. */
   readonly rows: readonly NetworkRow[];
+  /** Species held constant, in declaration order; absent or empty when none. */
+  readonly constants?: readonly ConstantSpecies[];
 }

@@ -1,9 +1,10 @@
 import { formatRational, parseRational, eq, type Rational } from "../algebra/rational";
-import { SPECIES_NAME, type Complex } from "./complex";
+import { SPECIES_NAME, formatComplex, type Complex } from "./complex";
 import { NETWORK_LIMITS, rateValueWithinLimits } from "./limits";
 import { readCsvTable, type CsvLine } from "./csv-table";
 import { NetworkFileError, type NetworkFileProblem } from "./errors";
-import type { Arrow, DirectedReaction, Network, NetworkRow } from "./model";
+import type { Arrow, ConstantSpecies, DirectedReaction, Network, NetworkRow } from "./model";
+import { readConstantDeclarations, splitComplex, type DeclaredConstant } from "./constant-species";
 import { parseReactionText } from "./reaction-text";
 import { defaultRateName } from "./rate-names";
 
@@ -47,6 +48,9 @@ interface CellRef {
  * (right→left). A missing rate symbol gets the default `k<i>` where i is the 1-based index of
  * the directed reaction (`k<i>_2`, `k<i>_3`, … if that name is already taken). The same symbol
  * on several reactions means one shared rate constant; its values must agree.
+ * A comment line `# constant: A = 2, B` holds species at a given or symbolic concentration (see
+ * constant-species.ts): they leave the species list and the reactions' complexes, and stay in
+ * `network.constants` and each reaction's `held` part. Other `#` lines are comments.
  * Format and checks are common practice for CSV input (RFC 4180 quoting).
  *
  * Example: parseNetworkCsv("reaction\nA <-> B\n") has species [A, B] and reactions
@@ -88,7 +92,9 @@ export function tryParseNetworkCsv(
       expected: "one reaction per row after the header",
     });
   }
-  const network = assemble(drafts, columns, problems);
+  const constants = readConstantDeclarations(table.comments);
+  problems.push(...constants.problems);
+  const network = assemble(drafts, columns, problems, constants.declared);
   if (problems.length > 0) return { ok: false, problems: sortProblems(problems) };
   return { ok: true, network };
 }
@@ -200,12 +206,26 @@ function readRow(row: CsvLine, columns: ColumnMap, width: number, problems: Netw
   };
 }
 
-function assemble(drafts: RowDraft[], columns: ColumnMap, problems: NetworkFileProblem[]): Network {
-  const species: string[] = [];
+function assemble(drafts: RowDraft[], columns: ColumnMap, problems: NetworkFileProblem[], declared: readonly DeclaredConstant[]): Network {
+  const written: string[] = [];
   for (const d of drafts) {
-    for (const s of d.speciesInOrder) if (!species.includes(s)) species.push(s);
+    for (const s of d.speciesInOrder) if (!written.includes(s)) written.push(s);
   }
-  const speciesSet = new Set(species);
+  const speciesSet = new Set(written);
+  const constantSet = new Set(declared.map((c) => c.name));
+  for (const c of declared) {
+    if (!speciesSet.has(c.name) && drafts.every((d) => d.valid)) {
+      problems.push({
+        row: c.line,
+        column: "constant",
+        columnIndex: c.column,
+        message: `\`${c.name}\` is declared constant but is not a species of any reaction`,
+        expected: written.length > 0 ? `one of the species ${written.join(", ")}` : "a species that appears in a reaction",
+      });
+    }
+  }
+  const species = written.filter((s) => !constantSet.has(s));
+  const constants: ConstantSpecies[] = declared.map((c) => ({ name: c.name, ...(c.value ? { value: c.value } : {}), line: c.line }));
 
   const ref = (line: number, column: NetworkColumn): CellRef => ({ line, column, columnIndex: columns[column]! + 1 });
   const values = new Map<string, { value: Rational; at: CellRef }>();
@@ -239,17 +259,36 @@ function assemble(drafts: RowDraft[], columns: ColumnMap, problems: NetworkFileP
     noteSymbol(d.rate, d.rateValue, ref(d.line, "rate"), ref(d.line, "rate_value"));
     noteSymbol(d.reverseRate, d.reverseRateValue, ref(d.line, "reverse_rate"), ref(d.line, "reverse_rate_value"));
   }
+  // Held at fixed concentrations, a row whose two sides differ only in constant species changes
+  // nothing: say so rather than keep a reaction the theory would not have.
+  for (const d of drafts) {
+    if (!d.valid || constantSet.size === 0) continue;
+    const [left] = splitComplex(d.left, constantSet);
+    const [right] = splitComplex(d.right, constantSet);
+    if (formatComplex(left) === formatComplex(right)) {
+      problems.push({
+        row: d.line,
+        column: "reaction",
+        columnIndex: columns.reaction! + 1,
+        message: `with ${[...new Set(d.speciesInOrder.filter((s) => constantSet.has(s)))].join(", ")} held constant, this reaction changes no other species (both sides are \`${formatComplex(left)}\`)`,
+        expected: "a reaction that changes at least one species not declared constant, or fewer constant species",
+      });
+    }
+  }
 
-  const taken = new Set<string>([...explicit, ...species]);
+  const taken = new Set<string>([...explicit, ...written]);
   const rows: NetworkRow[] = [];
   const reactions: DirectedReaction[] = [];
-  const addReaction = (d: RowDraft, reactant: Complex, product: Complex, rate: string, direction: "forward" | "reverse") => {
+  const addReaction = (d: RowDraft, reactantAsWritten: Complex, productAsWritten: Complex, rate: string, direction: "forward" | "reverse") => {
     const v = values.get(rate)?.value;
+    const [reactant, held] = splitComplex(reactantAsWritten, constantSet);
+    const [product] = splitComplex(productAsWritten, constantSet);
     reactions.push({
       id: `r${reactions.length + 1}`,
       ...(d.label !== undefined ? { label: d.label } : {}),
       reactant,
       product,
+      ...(Object.keys(held).length > 0 ? { held } : {}),
       rate,
       ...(v !== undefined ? { rateValue: v } : {}),
       row: d.line,
@@ -285,5 +324,5 @@ function assemble(drafts: RowDraft[], columns: ColumnMap, problems: NetworkFileP
       ...(d.reverseRateValue !== undefined ? { reverseRateValue: d.reverseRateValue } : {}),
     });
   }
-  return { species, reactions, rows };
+  return { species, reactions, rows, ...(constants.length > 0 ? { constants } : {}) };
 }

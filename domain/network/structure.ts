@@ -26,11 +26,16 @@ export interface ReactionSummary {
   /** Exact value as text (`1/2`), when given. */
   readonly rateValue?: string;
   readonly row: number;
+  /** Constant species of the reactant with their coefficients; their concentrations multiply the rate. */
+  readonly held?: Record<string, number>;
 }
 
 /** Plain-data, JSON-friendly structural analysis of a network; keys follow the CLI contract. */
 export interface NetworkStructure {
+  /** Species that are variables (constant species are not among them). */
   readonly species: string[];
+  /** Species held constant, in declaration order: value as exact text, or absent when symbolic. */
+  readonly constants: { readonly name: string; readonly value?: string }[];
   /** Canonical texts, order of first appearance. */
   readonly complexes: string[];
   /** Number of directed reactions. */
@@ -126,6 +131,7 @@ export function analyseStructure(network: Network, options: ConservationOptions 
 
   return {
     species: [...network.species],
+    constants: (network.constants ?? []).map((c) => ({ name: c.name, ...(c.value ? { value: formatRational(c.value) } : {}) })),
     complexes: names,
     reactions: network.reactions.length,
     reactionList: network.reactions.map((r) => ({
@@ -136,6 +142,7 @@ export function analyseStructure(network: Network, options: ConservationOptions 
       rate: r.rate,
       ...(r.rateValue !== undefined ? { rateValue: formatRational(r.rateValue) } : {}),
       row: r.row,
+      ...(r.held ? { held: { ...r.held } } : {}),
     })),
     complexComposition: toIntegerRows(y),
     incidenceMatrix: toIntegerRows(inc),

@@ -195,7 +195,8 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
   let zeroDimensionalBasis = false;
   let positivePoint: Record<string, number> | null = null;
   if (!numericRates) {
-    steadyStatesReason = `Listing steady states needs a value for every rate constant; missing: ${kin.rateParameters.join(", ")}.`;
+    const heldSymbolic = (network.constants ?? []).some((c) => kin.rateParameters.includes(c.name));
+    steadyStatesReason = `Listing steady states needs a value for every rate constant${heldSymbolic ? " and constant species" : ""}; missing: ${kin.rateParameters.join(", ")}.`;
     if (options.initial) warnings.push(steadyStatesReason);
   } else if (!classGiven) {
     steadyStatesReason = `The steady states depend on the totals of the conservation laws (${structure.conservationLaws.map(lawText).join("; ")}): give the initial concentrations to fix them.`;

@@ -21,11 +21,14 @@ export interface KineticsRing {
   readonly ring: QRing;
   /** Species in ring order (elimination order). */
   readonly species: readonly string[];
-  /** Rate symbols kept symbolic, in first-use order. */
+  /**
+   * Rate symbols kept symbolic, in first-use order, then the constant species without a value
+   * (a symbolic concentration behaves like a rate parameter).
+   */
   readonly rateParameters: readonly string[];
   /** Total symbols (one per conservation law), possibly empty. */
   readonly totals: readonly string[];
-  /** Values substituted for rate symbols. */
+  /** Values substituted for rate symbols and for constant species with a given concentration. */
   readonly rateValues: ReadonlyMap<string, Rational>;
 }
 
@@ -58,7 +61,12 @@ export function kineticsRing(network: Network, options: KineticsRingOptions = {}
     if (substitute && value) rateValues.set(name, value);
     else rateParameters.push(name);
   }
-  const taken = new Set([...species, ...rateTable(network).keys()]);
+  const constants = network.constants ?? [];
+  for (const c of constants) {
+    if (substitute && c.value) rateValues.set(c.name, c.value);
+    else rateParameters.push(c.name);
+  }
+  const taken = new Set([...species, ...rateTable(network).keys(), ...constants.map((c) => c.name)]);
   const totals: string[] = [];
   for (let i = 1; i <= (options.totalCount ?? 0); i++) {
     let name = `T${i}`;
@@ -75,7 +83,9 @@ export function kineticsRing(network: Network, options: KineticsRingOptions = {}
 /**
  * Mass-action right-hand sides dx_s/dt = Σ_reactions k·x^y(reactant)·(y_s(product) − y_s(reactant)),
  * one polynomial per species of `kin.species` (Horn & Jackson, Arch. Rational Mech. Anal. 47, 1972, eq. 2.5).
- * Example: E + S <-> C (k1, k2), C -> E + P (k3) gives dS/dt = −k1·E·S + k2·C.
+ * A constant species of the reactant multiplies k by its concentration (its value, or its symbol).
+ * Example: E + S <-> C (k1, k2), C -> E + P (k3) gives dS/dt = −k1·E·S + k2·C; with A constant
+ * at 2, A + 2X -> 3X (k1) gives dX/dt = 2·k1·X².
  */
 export function massActionOdes(network: Network, kin: KineticsRing): QPoly[] {
   const { ring } = kin;
@@ -86,7 +96,12 @@ export function massActionOdes(network: Network, kin: KineticsRing): QPoly[] {
     for (const [s, c] of Object.entries(r.reactant)) exps[index.get(s)!] = c;
     const value = kin.rateValues.get(r.rate);
     if (!value) exps[ring.indexOf(r.rate)] += 1;
-    const coefficient = value ?? ONE;
+    let coefficient = value ?? ONE;
+    for (const [s, c] of Object.entries(r.held ?? {})) {
+      const held = kin.rateValues.get(s);
+      if (held) for (let i = 0; i < c; i++) coefficient = mulQ(coefficient, held);
+      else exps[ring.indexOf(s)] += c;
+    }
     const change = new Map<string, number>();
     for (const [s, c] of Object.entries(r.product)) change.set(s, (change.get(s) ?? 0) + c);
     for (const [s, c] of Object.entries(r.reactant)) change.set(s, (change.get(s) ?? 0) - c);

@@ -9,7 +9,7 @@ describe("demo networks", () => {
     "%s is a valid network file",
     (_name, csv) => {
       const network = parseNetworkCsv(csv);
-      expect(network.species.length).toBeGreaterThan(1);
+      expect(network.species.length + (network.constants?.length ?? 0)).toBeGreaterThan(1);
     },
   );
 
@@ -87,5 +87,17 @@ describe.skipIf(!hasTestDatabase)("seedDemo", () => {
     const again = await seedDemo(t.db);
     expect(again.versionsAdded).toBe(0);
     expect(await counts()).toEqual(before);
+  });
+
+  it("replaces a demo's earlier description on a re-seed, never a text a person wrote", async () => {
+    const demo = DEMO_NETWORKS.find((n) => n.previousDescriptions?.length)!;
+    const describe = (text: string) => t.db.updateTable("networks").set({ description: text }).where("name", "=", demo.name).execute();
+    const current = async () => (await t.db.selectFrom("networks").select("description").where("name", "=", demo.name).executeTakeFirstOrThrow()).description;
+    await describe(demo.previousDescriptions![0]!);
+    await seedDemo(t.db);
+    expect(await current()).toBe(demo.description);
+    await describe("Our own notes on this reactor.");
+    await seedDemo(t.db);
+    expect(await current()).toBe("Our own notes on this reactor.");
   });
 });

@@ -2,8 +2,9 @@ import type { NetworkDiff } from "../diff";
 
 /** Species and reactions added, removed and changed between two versions. */
 export function DiffView({ diff }: { diff: NetworkDiff }) {
-  if (diff.identical) return <p className="text-sm text-muted" data-testid="diff-identical">Same species and reactions in both versions.</p>;
-  const rx = (r: { reactant: string; product: string; rate: string; rateValue?: string }) => `${r.reactant} → ${r.product}  (${r.rate}${r.rateValue ? ` = ${r.rateValue}` : ""})`;
+  if (diff.identical) return <p className="text-sm text-muted" data-testid="diff-identical">Same species, constant species and reactions in both versions.</p>;
+  const rx = (r: { reactant: string; product: string; rate: string; rateValue?: string; held?: Record<string, number> }) =>
+    `${r.reactant} → ${r.product}  (${r.rate}${r.rateValue ? ` = ${r.rateValue}` : ""}${r.held ? `, times constant ${Object.entries(r.held).map(([s, c]) => (c === 1 ? s : `${s}^${c}`)).join("·")}` : ""})`;
   return (
     <div className="grid gap-4 md:grid-cols-2" data-testid="diff">
       <Group title="Species added" tone="ok" items={diff.speciesAdded} testId="species-added" />
@@ -13,6 +14,11 @@ export function DiffView({ diff }: { diff: NetworkDiff }) {
       <div className="md:col-span-2">
         <Group title="Reactions changed" tone="signal" items={diff.reactionsChanged.map((c) => `${c.reaction}: ${c.changes.join("; ")}`)} testId="reactions-changed" />
       </div>
+      {(diff.constantsChanged ?? []).length > 0 ? (
+        <div className="md:col-span-2">
+          <Group title="Constant species" tone="signal" items={diff.constantsChanged} testId="constants-changed" />
+        </div>
+      ) : null}
     </div>
   );
 }

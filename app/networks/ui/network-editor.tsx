@@ -31,12 +31,15 @@ const GRID_COLUMNS = [
 export function NetworkEditor({
   mode,
   initialRows,
+  initialConstants = "",
   details,
   demos = [],
   failure,
 }: {
   mode: "create" | "version";
   initialRows: GridRow[];
+  /** Constant species as written after `# constant:`, e.g. `A = 2, ATP`. */
+  initialConstants?: string;
   details?: { name: string; description: string; tags: string };
   demos?: DemoNetwork[];
   failure?: EditorFailure | null;
@@ -47,7 +50,8 @@ export function NetworkEditor({
   const [pasted, setPasted] = useState("");
   const [dragging, setDragging] = useState(false);
   const fileInput = useRef<HTMLInputElement>(null);
-  const check = useMemo(() => checkGrid(rows), [rows]);
+  const [constants, setConstants] = useState(initialConstants);
+  const check = useMemo(() => checkGrid(rows, constants), [rows, constants]);
   const blank = rows.every((r) => GRID_COLUMNS.every((c) => r[c.key].trim() === ""));
   const navigation = useNavigation();
   const saving = navigation.state === "submitting";
@@ -87,6 +91,7 @@ export function NetworkEditor({
     const loaded = csvToGrid(text);
     const parsed = tryParseNetworkCsv(text);
     edit(() => loaded.rows);
+    setConstants(loaded.constants);
     setNotices(loaded.notices);
     setFileProblems({ name: file.name, problems: parsed.ok ? [] : parsed.problems });
   }
@@ -106,6 +111,7 @@ export function NetworkEditor({
   function loadDemo(demo: DemoNetwork) {
     const loaded = csvToGrid(demo.csv);
     edit(() => loaded.rows.map((r) => ({ ...r, sourceLine: undefined })));
+    setConstants(loaded.constants);
     setNotices([]);
     setFileProblems(null);
   }
@@ -162,7 +168,7 @@ export function NetworkEditor({
             .
           </p>
           <p className="text-xs text-muted">
-            CSV with a header row (<code>reaction,rate,reverse_rate,rate_value,reverse_rate_value,label</code>), comma or semicolon; SBML (<code>.xml</code>, <code>.sbml</code>,
+            CSV with a header row (<code>reaction,rate,reverse_rate,rate_value,reverse_rate_value,label</code>), comma or semicolon, and an optional <code># constant: A = 2, B</code> line for species held constant; SBML (<code>.xml</code>, <code>.sbml</code>,
             mass-action rate laws); or a reaction list (<code>.txt</code>). At most {MAX_CSV_LABEL}. It is read here in your browser first; nothing is saved until you press Save.
           </p>
           <input
@@ -350,6 +356,38 @@ export function NetworkEditor({
         <button type="button" className="btn-quiet py-1.5" onClick={() => edit((rs) => [...rs, emptyRow()])}>
           + Add a reaction
         </button>
+      </div>
+
+      <div className="space-y-1">
+        <label className="block space-y-1 text-sm font-medium">
+          Constant species
+          <input
+            aria-describedby="constants-hint"
+            value={constants}
+            onChange={(e) => {
+              setConstants(e.target.value);
+              setEditedAfter(failure);
+            }}
+            placeholder="A = 2, B"
+            aria-invalid={check.constants.length > 0}
+            className={`${inputCls} ${check.constants.length > 0 ? "border-danger" : ""}`}
+            data-testid="constants-input"
+          />
+        </label>
+        {/* Kept outside the label so the field's accessible name stays "Constant species". */}
+        <p id="constants-hint" className="text-xs text-muted">
+          Species held at a fixed concentration, such as a feed or a buffered cofactor: <code>A = 2, ATP</code>. Without a value the concentration stays symbolic, like a rate constant.
+        </p>
+        {check.constants.length > 0 && (
+          <ul className="text-xs text-danger" data-testid="constants-problems">
+            {check.constants.map((p, i) => (
+              <li key={i}>
+                {p.message}
+                {p.expected ? ` — expected ${p.expected}` : ""}
+              </li>
+            ))}
+          </ul>
+        )}
       </div>
 
       <input type="hidden" name="csv" value={check.csv} />

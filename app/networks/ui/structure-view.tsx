@@ -98,6 +98,18 @@ export function StructureView({ structure, name }: { structure: NetworkStructure
             </tbody>
           </table>
         </div>
+        {(s.constants ?? []).length > 0 && (
+          <p className="mt-2 text-sm text-muted" data-testid="constant-species">
+            Held constant (not variables; their concentrations multiply the rate constants of the reactions that consume them, and they are left out of the complexes and matrices):{" "}
+            {(s.constants ?? []).map((c, k) => (
+              <span key={c.name}>
+                {k > 0 ? ", " : ""}
+                <span className="font-mono text-ink">{c.name}</span> {c.value ? `= ${c.value}` : "(symbolic)"}
+              </span>
+            ))}
+            .
+          </p>
+        )}
       </Section>
 
       <Section id="stoichiometric-matrix" title="Stoichiometric matrix" help={GLOSSARY.stoichiometricMatrix}>

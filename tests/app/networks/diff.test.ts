@@ -34,3 +34,24 @@ describe("diffNetworks", () => {
     expect(diffNetworks(b, a).reactionsRemoved).toHaveLength(1);
   });
 });
+
+describe("diffNetworks with constant species", () => {
+  const side = (csv: string) => analyseStructure(parseNetworkCsv(csv));
+  it("names species held, released and held at another concentration", () => {
+    const v1 = side("# constant: A = 2\nreaction\nA + X -> 2X\nX -> B\n");
+    const v2 = side("# constant: A = 5/2, B\nreaction\nA + X -> 2X\nX -> B\n");
+    const d = diffNetworks(v1, v2);
+    expect(d.constantsChanged).toEqual(["A: 2 → 5/2", "B held constant (symbolic)"]);
+    expect(d.speciesRemoved).toEqual(["B"]);
+    expect(d.identical).toBe(false);
+    expect(diffNetworks(v2, v1).constantsChanged).toEqual(["A: 5/2 → 2", "B no longer held constant"]);
+    const ordered = side("# constant: A = 2\nreaction,rate\nA + X -> 2X,k1\nX -> B,k2\n");
+    expect(diffNetworks(ordered, side("reaction,rate\nX -> B,k2\nA + X -> 2X,k1\n# constant: A = 2\n")).identical).toBe(true);
+  });
+
+  it("treats a structure stored before constant species existed as having none", () => {
+    const v1 = side("reaction\nA -> B\n");
+    const { constants: _drop, ...old } = v1;
+    expect(diffNetworks(old, v1).identical).toBe(true);
+  });
+});

@@ -72,3 +72,31 @@ describe("checkGrid", () => {
     expect(moveRow(["a", "b"], 0, -1)).toEqual(["a", "b"]);
   });
 });
+
+describe("constant species in the grid", () => {
+  it("reads the `# constant:` lines into one field and writes them back after the rows", () => {
+    const g = csvToGrid("# constant: A = 2\nreaction\nA + 2X <-> 3X\nX <-> B\n# constants: B\n");
+    expect(g.constants).toBe("A = 2, B");
+    expect(g.notices).toEqual([]);
+    const csv = gridToCsv(g.rows, g.constants);
+    expect(csv).toBe("reaction\nA + 2X <-> 3X\nX <-> B\n# constant: A = 2, B\n");
+  });
+
+  it("keeps row lines unchanged and reports declaration problems apart from the rows", () => {
+    const g = csvToGrid("reaction\nA + X -> 2X\n");
+    const check = checkGrid(g.rows, "A = 0, Q");
+    expect(check.ok).toBe(false);
+    expect(check.byRow.size).toBe(0);
+    expect(check.constants.map((p) => p.message)).toEqual([
+      "the concentration `0` of `A` is not a positive number",
+      "`Q` is declared constant but is not a species of any reaction",
+    ]);
+    expect(checkGrid(g.rows, "A = 1/2").ok).toBe(true);
+  });
+
+  it("says which comment lines the grid does not keep", () => {
+    expect(csvToGrid("# Restored from version 1 as version 3.\nreaction\nA -> B\n").notices).toEqual([
+      "The comment on line 1 (`# Restored from version 1 as version 3.`) is not kept by the grid.",
+    ]);
+  });
+});

@@ -60,3 +60,13 @@ describe("massActionOdes", () => {
     expect(latexText("a\\b^c~")).toBe("a\\textbackslash{}b\\textasciicircum{}c\\textasciitilde{}");
   });
 });
+
+describe("massActionOdes with constant species", () => {
+  it("writes a held species as a factor of the rate and gives it no equation (Schlögl, Z. Physik 253, 1972)", () => {
+    const s = structureOf("# constant: A = 2, B\nreaction,rate,reverse_rate\nA + 2X <-> 3X,k1,k2\nX <-> B,k3,k4\n");
+    const odes = massActionOdes(s);
+    expect(odes.map(odeToText)).toEqual(["dX/dt = k1·X^2·A - k2·X^3 - k3·X + k4·B"]);
+    const tex = odesLatexDocument("Fed switch", odes, s.constants);
+    expect(tex).toContain("Held constant: $[\\mathrm{A}] = 2$, $[\\mathrm{B}]$ (without a value: a parameter).");
+  });
+});

@@ -100,3 +100,27 @@ describe("cli analyse errors: stderr and exit code 2", () => {
     expect(parseInitial("S=1, E=1/10,P=0.25").get("E")).toEqual({ num: 1n, den: 10n });
   });
 });
+
+describe("cli analyse with constant species", () => {
+  it("the fed Schlögl file drives analyse: X alone is a variable, three positive steady states (Schlögl, Z. Physik 253, 1972)", async () => {
+    const r = await cli(["analyse", "fed.csv", "--json"], { "fed.csv": fixture("fed-schloegl.csv") });
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.out);
+    expect(j.species).toEqual(["X"]);
+    expect(j.constants).toEqual([{ name: "A", value: "2" }, { name: "B", value: "3" }]);
+    expect(j.complexes).toEqual(["2X", "3X", "X", "0"]);
+    expect(j.odes).toEqual([{ species: "X", rhs: "-X^3 + 6*X^2 - 11*X + 6" }]);
+    // Roots of −(X − 1)(X − 2)(X − 3), expanded by hand in the fixture's header.
+    expect(j.steadyStates.map((s: { concentrations: { X: number }; stable: boolean }) => [s.concentrations.X, s.stable])).toEqual([
+      [1, true],
+      [2, false],
+      [3, true],
+    ]);
+  });
+
+  it("a bad declaration fails with its line and column", async () => {
+    const r = await cli(["analyse", "bad.csv"], { "bad.csv": "# constant: A = -2\nreaction\nA + X -> 2X\nX -> 0\n" });
+    expect(r.code).not.toBe(0);
+    expect(r.err).toContain("line 1, column 13 (constant): the concentration `-2` of `A` is not a positive number");
+  });
+});
