@@ -59,9 +59,9 @@ describe("a job's process dies with its worker", () => {
   });
 
   it("the job process that runInChild forks dies when its worker is SIGKILLed mid-computation", async () => {
-    // The symbolic two-site run takes its whole budget (the worker tests rely on that): slow by construction.
-    const csv = readFileSync("tests/fixtures/networks/two-site-phosphorylation.csv", "utf8");
-    const payload = { kind: "analysis", csv, params: analysisParams({ rateMode: "symbolic", timeLimitSeconds: 120 }) };
+    // Slow by construction: 3^10 positive steady states to list (see the fixture's header).
+    const csv = readFileSync("tests/fixtures/networks/ten-switches.csv", "utf8");
+    const payload = { kind: "analysis", csv, params: analysisParams({ timeLimitSeconds: 120 }) };
     const workerCode = `
       const { runInChild } = await import(${JSON.stringify(new URL("../../../app/jobs/run-child.server.ts", import.meta.url).pathname)});
       const run = runInChild(${JSON.stringify(payload)}, { engineTimeoutMs: 120000, onProgress: () => {} });
