@@ -18,15 +18,8 @@ export function reduceDouble(x: number, p: number, invp: number): number {
   return r;
 }
 
-export function invModP(a: number, p: number): number {
-  let r0 = p, r1 = a, t0 = 0, t1 = 1;
-  while (r1 !== 0) {
-    const q = Math.floor(r0 / r1);
-    const r2 = r0 - q * r1; r0 = r1; r1 = r2;
-    const t2 = t0 - q * t1; t0 = t1; t1 = t2;
-  }
-  return t0 < 0 ? t0 + p : t0;
-}
+/** Inverse modulo p: the field layer's one extended Euclid. */
+export { invMod as invModP } from "../field";
 
 export const mulModP = (a: number, b: number, p: number): number => (a * b) % p;
 

@@ -1,3 +1,4 @@
+import { invMod } from "../field";
 import { gcdBig } from "../rational";
 import type { Rational } from "../rational";
 
@@ -51,15 +52,6 @@ export function rationalModP(r: Rational, p: number, P: bigint = BigInt(p)): num
   let num = Number(r.num % P);
   if (num < 0) num += p;
   if (den < 0) den += p;
-  return (num * invSmall(den, p)) % p;
+  return (num * invMod(den, p)) % p;
 }
 
-function invSmall(a: number, p: number): number {
-  let r0 = p, r1 = a, t0 = 0, t1 = 1;
-  while (r1 !== 0) {
-    const q = Math.floor(r0 / r1);
-    const r2 = r0 - q * r1; r0 = r1; r1 = r2;
-    const t2 = t0 - q * t1; t0 = t1; t1 = t2;
-  }
-  return t0 < 0 ? t0 + p : t0;
-}

@@ -1,3 +1,4 @@
+import { invMod } from "../field";
 import type { Field } from "../field";
 import { isHuge, lehmerGcd } from "../lehmer-gcd";
 import { gcdBig } from "../rational";
@@ -64,15 +65,7 @@ export function primeCoefficients(p: number): EngineCoefficients<number> {
     const ah = Math.floor(a / 65536);
     return (((ah * b) % p) * 65536 + (a - ah * 65536) * b) % p;
   };
-  const inv = (a: number) => {
-    let r0 = p, r1 = a, t0 = 0, t1 = 1;
-    while (r1 !== 0) {
-      const q = Math.floor(r0 / r1);
-      const r2 = r0 - q * r1; r0 = r1; r1 = r2;
-      const t2 = t0 - q * t1; t0 = t1; t1 = t2;
-    }
-    return t0 < 0 ? t0 + p : t0;
-  };
+  const inv = (a: number) => invMod(a, p);
   return {
     zero: 0,
     one: 1,
