@@ -9,6 +9,7 @@
  * Everything is torn down even on failure; the last line is `N passed, N failed`.
  *
  * `npm test -- tests/app` runs only step 3 with those vitest filters (no build, no browser).
+ * `npm test -- --e2e tests/e2e/folds.e2e.ts` runs only steps 4–5 with those filters (one browser file).
  */
 import { existsSync, mkdtempSync, readFileSync, rmSync } from "node:fs";
 import os from "node:os";
@@ -32,7 +33,8 @@ interface Tally {
   skipped: number;
 }
 
-const filters = process.argv.slice(2);
+const e2eOnly = process.argv.includes("--e2e");
+const filters = process.argv.slice(2).filter((a) => a !== "--e2e");
 const tmp = mkdtempSync(path.join(os.tmpdir(), "stillpoint-test-"));
 // One build per run, inside the project (the server bundle resolves packages from node_modules)
 // but outside build/, which every `react-router build` empties first. test-results/ is git-ignored.
@@ -115,7 +117,7 @@ async function main(): Promise<void> {
     total.failed += t.failed;
     total.skipped += t.skipped;
   };
-  const unitOnly = filters.length > 0;
+  const unitOnly = filters.length > 0 && !e2eOnly;
 
   ensurePostgresInstalled();
   if (!unitOnly && !existsSync(CHROMIUM)) aptInstall(["chromium"]);
@@ -126,7 +128,7 @@ async function main(): Promise<void> {
   await migrate(serverUrl(pg.port, "stillpoint_template"));
 
   const baseEnv = { ...process.env, NODE_ENV: "test", DATA_DIR: path.join(tmp, "data") };
-  add(await runVitest("unit", filters, { ...baseEnv, TEST_DATABASE_URL: serverUrl(pg.port, "stillpoint_template") }));
+  if (!e2eOnly) add(await runVitest("unit", filters, { ...baseEnv, TEST_DATABASE_URL: serverUrl(pg.port, "stillpoint_template") }));
   if (unitOnly) return;
 
   // The app under test gets its own database with the demo seed, and its own mail catcher.
@@ -150,7 +152,7 @@ async function main(): Promise<void> {
   log("test", `app on http://127.0.0.1:${appPort}, maildev on ${webPort} (SMTP ${smtpPort})`);
 
   add(
-    await runVitest("e2e", ["--config", "vitest.e2e.config.ts"], {
+    await runVitest("e2e", ["--config", "vitest.e2e.config.ts", ...(e2eOnly ? filters : [])], {
       ...baseEnv,
       E2E_BASE_URL: `http://127.0.0.1:${appPort}`,
       E2E_MAILDEV_URL: `http://127.0.0.1:${webPort}`,
