@@ -67,16 +67,26 @@ export function groebnerBasis<C>(polys: readonly Polynomial<C>[], options: Groeb
     options = { ...options, timeoutMs: undefined, deadline };
   }
   const limits = new Limits(options);
+  let grevlex: Polynomial<C>[] | null = null;
   if (options.fglm !== false && !isDegreeCompatible(ring)) {
     const viaFglm = tryFglm(polys, ring, options);
-    if (viaFglm) return viaFglm;
+    if (viaFglm.basis) return viaFglm.basis;
+    grevlex = viaFglm.grevlex;
   }
   const strategy = options.strategy ?? defaultStrategy(ring.order);
   if (ring.field === (QQ as unknown)) {
     const qpolys = (polys as unknown as Polynomial<Rational>[]).filter((p) => p.coeffs.length > 0);
     if (qpolys.length === 0) return [];
     const method = options.method ?? "auto";
-    const viaF4 = method === "f4" && isDegreeCompatible(ring) ? multiModularGroebnerQQ(qpolys, limits) : null;
+    const viaF4 = method === "f4" && isDegreeCompatible(ring)
+      ? multiModularGroebnerQQ(qpolys, limits)
+      : (method === "auto" || method === "f4") && grevlex !== null && grevlex.length > 0
+        // Positive-dimensional ideal in a lex or block order (parameters in a lower block): F4
+        // modulo primes in the target order, lifted, and proven against the grevlex basis.
+        // Buchberger's algorithm in these orders wanders through high-degree pairs even modulo p
+        // (two-site cycle with k3, k6 symbolic: > 60 s mod 32003, F4 0.3 s; bench/README.md).
+        ? multiModularGroebnerQQ(qpolys, limits, { reference: grevlex as unknown as Polynomial<Rational>[] })
+        : null;
     const result = viaF4 ?? (method === "buchberger"
       ? plainFractionFree(qpolys.map((p) => clearDenominators(toEngine(p))), qpolys[0].ring, strategy, limits)
       : modularGroebnerQQ(qpolys, strategy, limits));
@@ -100,23 +110,26 @@ function isDegreeCompatible<C>(ring: PolynomialRing<C>): boolean {
   return ring.order.length === 1 && (ring.order[0].kind === "grlex" || ring.order[0].kind === "grevlex");
 }
 
-/** Grevlex basis, then FGLM into the ring's order when the ideal is zero-dimensional; null otherwise. */
-function tryFglm<C>(polys: readonly Polynomial<C>[], ring: PolynomialRing<C>, options: GroebnerOptions): Polynomial<C>[] | null {
+/**
+ * Grevlex basis, then FGLM into the ring's order when the ideal is zero-dimensional; otherwise
+ * no basis, but the grevlex one (which the caller can use to prove a basis in its own order).
+ */
+function tryFglm<C>(polys: readonly Polynomial<C>[], ring: PolynomialRing<C>, options: GroebnerOptions): { basis: Polynomial<C>[] | null; grevlex: Polynomial<C>[] | null } {
   const graded = ring.withOrder("grevlex");
   const moved = polys.map((p) => normalizeTerms(graded, p.coeffs, p.exps.slice()));
   const G = groebnerBasis(moved, { ...options, fglm: false });
-  if (G.length === 0) return null;
-  if (G.length === 1 && G[0].exps[0] === 0) return [ring.one()];
+  if (G.length === 0) return { basis: null, grevlex: null };
+  if (G.length === 1 && G[0].exps[0] === 0) return { basis: [ring.one()], grevlex: G };
   const n = ring.n;
   for (let k = 1; k <= n; k++) {
-    if (!G.some((g) => g.exps[k] > 0 && g.exps[k] === g.exps[0])) return null; // not zero-dimensional
+    if (!G.some((g) => g.exps[k] > 0 && g.exps[k] === g.exps[0])) return { basis: null, grevlex: G }; // not zero-dimensional
   }
   if (ring.field === (QQ as unknown) && options.method !== "buchberger") {
     // Images modulo primes, lifted and proven exactly (fglm-modular.ts); FGLM over Q if that fails.
     // Below ~24 solutions FGLM over Q is as fast (katsura-4, 16: 0.08 s either way; katsura-5, 32:
     // 2.4 s over Q, 0.9 s modular — CPU time measured here).
     const lifted = fglmModularQQ(G as unknown as Polynomial<Rational>[], ring as unknown as PolynomialRing<Rational>, { ...options, minDimension: 24 });
-    if (lifted) return lifted as unknown as Polynomial<C>[];
+    if (lifted) return { basis: lifted as unknown as Polynomial<C>[], grevlex: G };
   }
-  return fglm(G, ring, options);
+  return { basis: fglm(G, ring, options), grevlex: G };
 }
