@@ -78,15 +78,12 @@ export function groebnerBasis<C>(polys: readonly Polynomial<C>[], options: Groeb
     const qpolys = (polys as unknown as Polynomial<Rational>[]).filter((p) => p.coeffs.length > 0);
     if (qpolys.length === 0) return [];
     const method = options.method ?? "auto";
-    const viaF4 = method === "f4" && isDegreeCompatible(ring)
-      ? multiModularGroebnerQQ(qpolys, limits)
-      : (method === "auto" || method === "f4") && grevlex !== null && grevlex.length > 0
-        // Positive-dimensional ideal in a lex or block order (parameters in a lower block): F4
-        // modulo primes in the target order, lifted, and proven against the grevlex basis.
-        // Buchberger's algorithm in these orders wanders through high-degree pairs even modulo p
-        // (two-site cycle with k3, k6 symbolic: > 60 s mod 32003, F4 0.3 s; bench/README.md).
-        ? multiModularGroebnerQQ(qpolys, limits, { reference: grevlex as unknown as Polynomial<Rational>[] })
-        : null;
+    if (grevlex !== null && grevlex.length > 0 && (method === "auto" || method === "f4")) {
+      // Positive-dimensional ideal in a lex or block order (parameters in a lower block).
+      const viaBlock = blockOrderQQ(qpolys, grevlex as unknown as Polynomial<Rational>[], strategy, options, limits, method);
+      if (viaBlock) return viaBlock as unknown as Polynomial<C>[];
+    }
+    const viaF4 = method === "f4" && isDegreeCompatible(ring) ? multiModularGroebnerQQ(qpolys, limits) : null;
     const result = viaF4 ?? (method === "buchberger"
       ? plainFractionFree(qpolys.map((p) => clearDenominators(toEngine(p))), qpolys[0].ring, strategy, limits)
       : modularGroebnerQQ(qpolys, strategy, limits));
@@ -99,6 +96,42 @@ export function groebnerBasis<C>(polys: readonly Polynomial<C>[], options: Groeb
   const K = coefficientsFor(ring.field);
   const basis = buchberger(polys.map(toEngine), K, ring.n, ring.cmp, { strategy, limits });
   return basis.map((p) => fromEngine(ring, p));
+}
+
+/**
+ * Reduction steps the traced Buchberger run modulo p may take in a lex or block order before the
+ * multi-modular F4 path takes over. Buchberger's algorithm in these orders sometimes wanders
+ * through high-degree pairs even modulo p (two-site cycle with k3, k6 symbolic: no end after
+ * 15000 steps, > 60 s), where F4 with sugar needs a few matrices; when it does finish it is
+ * usually the faster route (its exact replay skips the zero reductions). Measured here (steps
+ * and highest pair degree of the run modulo 2^26 − 5 on bench/systems): k1k4 2436 / 9, k2k5
+ * 3936 / 11, totals 5544 / 11; k3k6 passes degree 30 within its first 6000 steps, while its
+ * reduced basis has degree 11. Hence also a degree budget: 3 × the grevlex basis' top degree, at least 12.
+ */
+const TRACE_BUDGET = 6000;
+
+/**
+ * A lex or block order on a positive-dimensional ideal over Q: the traced Buchberger run within
+ * a step budget, then F4 modulo primes in the target order, lifted and proven against the
+ * grevlex basis (f4/multimodular.ts); null when neither completes (the caller goes on).
+ */
+function blockOrderQQ(
+  qpolys: Polynomial<Rational>[],
+  grevlex: Polynomial<Rational>[],
+  strategy: SelectionStrategy,
+  options: GroebnerOptions,
+  limits: Limits,
+  method: "auto" | "f4",
+): Polynomial<Rational>[] | null {
+  if (method === "auto") {
+    try {
+      const maxPairDegree = Math.max(12, 3 * Math.max(...grevlex.map((g) => g.exps[0])));
+      return modularGroebnerQQ(qpolys, strategy, new Limits({ ...options, maxReductions: TRACE_BUDGET, maxPairDegree }));
+    } catch (e) {
+      if (!(e instanceof AlgebraError) || e.code !== "budget" || !/reduction steps/.test(e.message)) throw e;
+    }
+  }
+  return multiModularGroebnerQQ(qpolys, limits, { reference: grevlex });
 }
 
 function useF4ModP<C>(ring: PolynomialRing<C>, method: NonNullable<GroebnerOptions["method"]>): boolean {
