@@ -1,5 +1,5 @@
 import { AlgebraError } from "./errors";
-import { isPrimeField, QQ } from "./field";
+import { isPrimeField, isRationalField } from "./field";
 import { multiModularGroebnerQQ } from "./f4/multimodular";
 import { f4GroebnerModP, f4SupportsPrime } from "./f4/prime-field";
 import type { SelectionStrategy } from "./groebner/buchberger";
@@ -74,7 +74,7 @@ export function groebnerBasis<C>(polys: readonly Polynomial<C>[], options: Groeb
     grevlex = viaFglm.grevlex;
   }
   const strategy = options.strategy ?? defaultStrategy(ring.order);
-  if (ring.field === (QQ as unknown)) {
+  if (isRationalField(ring.field)) {
     const qpolys = (polys as unknown as Polynomial<Rational>[]).filter((p) => p.coeffs.length > 0);
     if (qpolys.length === 0) return [];
     const method = options.method ?? "auto";
@@ -157,7 +157,7 @@ function tryFglm<C>(polys: readonly Polynomial<C>[], ring: PolynomialRing<C>, op
   for (let k = 1; k <= n; k++) {
     if (!G.some((g) => g.exps[k] > 0 && g.exps[k] === g.exps[0])) return { basis: null, grevlex: G }; // not zero-dimensional
   }
-  if (ring.field === (QQ as unknown) && options.method !== "buchberger") {
+  if (isRationalField(ring.field) && options.method !== "buchberger") {
     // Images modulo primes, lifted and proven exactly (fglm-modular.ts); FGLM over Q if that fails.
     // Below ~24 solutions FGLM over Q is as fast (katsura-4, 16: 0.08 s either way; katsura-5, 32:
     // 2.4 s over Q, 0.9 s modular — CPU time measured here).
