@@ -1,9 +1,6 @@
-import type { Kysely, Transaction } from "kysely";
-import type { Database } from "~/db/schema";
+import type { DbExecutor } from "~/db/schema";
 import { randomToken, sha256Hex } from "~/auth/hashing.server";
 import { recordAudit } from "~/labs/audit.server";
-
-type Executor = Kysely<Database> | Transaction<Database>;
 
 /** Recognisable prefix so leaked tokens are easy to spot in logs and secret scanners. */
 export const TOKEN_PREFIX = "stp_";
@@ -22,7 +19,7 @@ export interface ApiTokenSummary {
  * SHA-256, so a database leak does not hand out working tokens.
  */
 export async function createApiToken(
-  db: Executor,
+  db: DbExecutor,
   args: { userId: string; name: string; expiresAt: Date | null },
 ): Promise<{ token: string; id: string }> {
   const token = TOKEN_PREFIX + randomToken(32);
@@ -35,7 +32,7 @@ export async function createApiToken(
   return { token, id: row.id };
 }
 
-export async function listApiTokens(db: Executor, userId: string): Promise<ApiTokenSummary[]> {
+export async function listApiTokens(db: DbExecutor, userId: string): Promise<ApiTokenSummary[]> {
   const rows = await db
     .selectFrom("api_tokens")
     .select(["id", "name", "created_at", "expires_at", "last_used_at", "revoked_at"])
@@ -53,7 +50,7 @@ export async function listApiTokens(db: Executor, userId: string): Promise<ApiTo
 }
 
 /** Revokes one of the user's own tokens; false when there is no such live token of theirs. */
-export async function revokeApiToken(db: Executor, userId: string, tokenId: string): Promise<boolean> {
+export async function revokeApiToken(db: DbExecutor, userId: string, tokenId: string): Promise<boolean> {
   if (!isUuid(tokenId)) return false;
   const row = await db
     .updateTable("api_tokens")
@@ -69,7 +66,7 @@ export async function revokeApiToken(db: Executor, userId: string, tokenId: stri
 }
 
 /** The owner of a live (not revoked, not expired) token, recording when it was used. */
-export async function findUserIdByApiToken(db: Executor, token: string): Promise<string | undefined> {
+export async function findUserIdByApiToken(db: DbExecutor, token: string): Promise<string | undefined> {
   if (!token.startsWith(TOKEN_PREFIX) || token.length > 200) return undefined;
   const now = new Date();
   const row = await db

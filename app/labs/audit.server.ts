@@ -1,7 +1,4 @@
-import type { Kysely, Transaction } from "kysely";
-import type { Database, JsonObject } from "~/db/schema";
-
-type Executor = Kysely<Database> | Transaction<Database>;
+import type { DbExecutor, JsonObject } from "~/db/schema";
 
 export type AuditKind =
   | "auth.signed_in"
@@ -20,7 +17,7 @@ export type AuditKind =
   | "api_token.revoked";
 
 export async function recordAudit(
-  db: Executor,
+  db: DbExecutor,
   event: { kind: AuditKind; actorId: string | null; labId?: string | null; details?: JsonObject },
 ): Promise<void> {
   await db
@@ -39,7 +36,7 @@ export interface AuditEntry {
 }
 
 /** Newest first: a lab's trail (for its owners). */
-export async function listLabAudit(db: Executor, labId: string, limit = 200): Promise<AuditEntry[]> {
+export async function listLabAudit(db: DbExecutor, labId: string, limit = 200): Promise<AuditEntry[]> {
   const rows = await db
     .selectFrom("audit_events as a")
     .leftJoin("users as u", "u.id", "a.actor_id")
@@ -59,7 +56,7 @@ export async function listLabAudit(db: Executor, labId: string, limit = 200): Pr
 }
 
 /** Newest first: a person's own account events (sign-ins, tokens), shown on the account page. */
-export async function listAccountEvents(db: Executor, userId: string, limit = 20) {
+export async function listAccountEvents(db: DbExecutor, userId: string, limit = 20) {
   return db
     .selectFrom("audit_events")
     .select(["id", "kind", "details", "created_at"])

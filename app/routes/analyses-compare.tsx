@@ -6,7 +6,6 @@ import { findJob, jobJson } from "~/analyses/repository.server";
 import type { AnalysisParams } from "~/analyses/params";
 import { presentResult } from "~/analyses/present";
 import type { AnalysisResult } from "~/analyses/result-types";
-import { asAnalysesDb } from "~/analyses/schema";
 import { Tex } from "~/analyses/ui/tex";
 import { requireLabRole } from "~/permissions/permissions.server";
 
@@ -16,7 +15,7 @@ export const meta: Route.MetaFunction = () => [{ title: "Compare analyses · Sti
 export async function loader({ request, params }: Route.LoaderArgs) {
   const access = await requireLabRole(request, params.labSlug, "viewer");
   const url = new URL(request.url);
-  const adb = asAnalysesDb(db());
+  const adb = db();
   const [a, b] = await Promise.all([findJob(adb, access.lab.id, url.searchParams.get("a") ?? undefined), findJob(adb, access.lab.id, url.searchParams.get("b") ?? undefined)]);
   if (!a || !b || a.kind !== "analysis" || b.kind !== "analysis") throw new Response("Not found", { status: 404 });
   if (a.network_id !== b.network_id) throw new Response("Only two analyses of the same network can be compared.", { status: 400 });

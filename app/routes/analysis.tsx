@@ -5,7 +5,6 @@ import { formObject } from "~/analyses/form.server";
 import { analysisPageData } from "~/analyses/page.server";
 import { analysesPath, analysisPath, newAnalysisPath, sharePath } from "~/analyses/paths";
 import { findJob, listJobs } from "~/analyses/repository.server";
-import { asAnalysesDb } from "~/analyses/schema";
 import { cancelJob, recordAnalysisAudit, startFollowUp } from "~/analyses/service.server";
 import { createShareLink, listShareLinks, revokeShareLink, SHARE_DAYS } from "~/analyses/share.server";
 import { AnalysisBody } from "~/analyses/ui/analysis-body";
@@ -23,7 +22,7 @@ const notFound = () => new Response("Not found", { status: 404, statusText: "Not
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const access = await requireLabRole(request, params.labSlug, "viewer");
-  const adb = asAnalysesDb(db());
+  const adb = db();
   const job = await findJob(adb, access.lab.id, params.analysisId);
   if (!job) throw notFound();
   if (job.parent_id) throw redirect(analysisPath(access.lab.slug, job.parent_id));
@@ -41,7 +40,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 
 export async function action({ request, params }: Route.ActionArgs) {
   const access = await requireLabRole(request, params.labSlug, "viewer");
-  const adb = asAnalysesDb(db());
+  const adb = db();
   const job = await findJob(adb, access.lab.id, params.analysisId);
   if (!job || job.parent_id) throw notFound();
   const form = await request.formData();

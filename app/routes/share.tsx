@@ -1,7 +1,6 @@
 import type { Route } from "./+types/share";
 import { db } from "~/db.server";
 import { analysisPageData } from "~/analyses/page.server";
-import { asAnalysesDb } from "~/analyses/schema";
 import { findSharedAnalysis } from "~/analyses/share.server";
 import { AnalysisBody } from "~/analyses/ui/analysis-body";
 import { isUnfinished } from "~/analyses/ui/status";
@@ -11,7 +10,7 @@ export const meta: Route.MetaFunction = ({ data }) => [{ title: `Shared analysis
 
 /** /share/:token — read-only, no sign-in; an unknown, expired or revoked token is a plain 404. */
 export async function loader({ params }: Route.LoaderArgs) {
-  const adb = asAnalysesDb(db());
+  const adb = db();
   const job = await findSharedAnalysis(adb, params.token);
   if (!job || job.parent_id) throw new Response("This share link does not exist, has expired or was revoked.", { status: 404, statusText: "Not Found" });
   return { page: await analysisPageData(adb, job, { sharedView: true }), token: params.token };

@@ -5,7 +5,6 @@ import { hasTestDatabase } from "../support/test-db";
 import type { TestDatabase } from "../support/test-db";
 import { setUpAccountsDb, tearDownAccountsDb } from "../auth/fixtures";
 import { analysisParams, fixtureCsv, makeJob, makeNetwork, makeTeam, waitFor } from "./fixtures";
-import { asAnalysesDb } from "~/analyses/schema";
 import { requestCancel } from "~/analyses/repository.server";
 import { enqueue, stopBosses } from "~/jobs/queue.server";
 import { startWorker, type RunningWorker } from "~/jobs/worker.server";
@@ -40,7 +39,7 @@ describe.skipIf(!hasTestDatabase)("background worker", () => {
     await enqueue(t.url, row.id, timeLimitSeconds);
     return row.id;
   };
-  const row = (id: string) => asAnalysesDb(t.db).selectFrom("analyses").selectAll().where("id", "=", id).executeTakeFirstOrThrow();
+  const row = (id: string) => t.db.selectFrom("analyses").selectAll().where("id", "=", id).executeTakeFirstOrThrow();
   const finished = (id: string, ms: number) => waitFor(async () => ((r) => (["succeeded", "failed", "cancelled"].includes(r.status) ? r : undefined))(await row(id)), ms, `job ${id} to finish`);
 
   it("runs an analysis in a child process and stores exactly the CLI's JSON", async () => {
@@ -81,7 +80,7 @@ describe.skipIf(!hasTestDatabase)("background worker", () => {
     const id = await job(nets.slow, analysisParams(), 60);
     await waitFor(async () => (await row(id)).status === "running", 20_000, "running");
     await new Promise((r) => setTimeout(r, 1000));
-    expect(await requestCancel(asAnalysesDb(t.db), id)).toBe("running");
+    expect(await requestCancel(t.db, id)).toBe("running");
     const done = await finished(id, 10_000);
     expect(done.status).toBe("cancelled");
     expect(done.error).toMatch(/Cancelled after/);
@@ -89,7 +88,7 @@ describe.skipIf(!hasTestDatabase)("background worker", () => {
 
   it("cancels a queued job at once", async () => {
     const r = await makeJob(t.db, { kind: "analysis", labId: team.lab.id, networkVersionId: nets.cubic, params: analysisParams(), startedBy: team.owner.id, timeLimitSeconds: 10 });
-    expect(await requestCancel(asAnalysesDb(t.db), r.id)).toBe("cancelled");
+    expect(await requestCancel(t.db, r.id)).toBe("cancelled");
     expect((await row(r.id)).status).toBe("cancelled");
   });
 
@@ -138,7 +137,7 @@ describe.skipIf(!hasTestDatabase)("background worker", () => {
   it("recovers jobs whose worker process was killed mid-run: retried, or failed with the reason", async () => {
     const retried = await job(nets.slow, analysisParams(), 3);
     const lastTry = await job(nets.slow, analysisParams(), 3);
-    await asAnalysesDb(t.db).updateTable("analyses").set({ max_attempts: 1 }).where("id", "=", lastTry).execute();
+    await t.db.updateTable("analyses").set({ max_attempts: 1 }).where("id", "=", lastTry).execute();
     // A separate worker process, killed with SIGKILL once both jobs run (no chance to clean up).
     const proc: ChildProcess = spawn("npx", ["tsx", "app/jobs/worker.server.ts"], {
       env: { ...process.env, DATABASE_URL: t.url, WORKER_CONCURRENCY: "2" },
@@ -159,7 +158,7 @@ describe.skipIf(!hasTestDatabase)("background worker", () => {
     const again = await finished(retried, 40_000);
     expect(again.attempts).toBe(2);
     expect(["succeeded", "failed"]).toContain(again.status);
-    const stuck = await asAnalysesDb(t.db).selectFrom("analyses").select("id").where("status", "=", "running").execute();
+    const stuck = await t.db.selectFrom("analyses").select("id").where("status", "=", "running").execute();
     expect(stuck).toEqual([]);
   }, 90_000);
 });
