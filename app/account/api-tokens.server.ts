@@ -1,6 +1,7 @@
 import type { DbExecutor } from "~/db/schema";
 import { randomToken, sha256Hex } from "~/auth/hashing.server";
-import { recordAudit } from "~/labs/audit.server";
+import { recordAudit } from "~/shared/audit.server";
+import { isUuid } from "~/shared/uuid";
 
 /** Recognisable prefix so leaked tokens are easy to spot in logs and secret scanners. */
 export const TOKEN_PREFIX = "stp_";
@@ -96,8 +97,4 @@ export function parseExpiryDays(raw: unknown, now = new Date()): { ok: true; val
     return { ok: false, message: "Expiry must be a whole number of days between 1 and 365, or never." };
   }
   return { ok: true, value: new Date(now.getTime() + days * 86_400_000) };
-}
-
-export function isUuid(value: string): boolean {
-  return /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(value);
 }

@@ -3,8 +3,8 @@ import { exportAnalysis, EXPORT_FILES, scanCsv, type ExportFile } from "./export
 import { listJobs, type JobRecord } from "./repository.server";
 import type { AnalysisResult, ScanResult } from "./result-types";
 import type { DbExecutor } from "~/db/schema";
+import { notFound } from "~/shared/responses";
 
-const notFound = () => new Response("Not found", { status: 404, statusText: "Not Found" });
 
 export async function downloadResponse(db: DbExecutor, job: JobRecord, file: string | undefined): Promise<Response> {
   const safeName = job.network_name.replace(/[^A-Za-z0-9_-]+/g, "-").toLowerCase();

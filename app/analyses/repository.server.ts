@@ -7,6 +7,7 @@ import { SITE_LIMITS, type Limits } from "./params";
 
 export { SITE_LIMITS };
 import { ENGINE_VERSION } from "./engine-version";
+import { isUuid } from "~/shared/uuid";
 import type { AnalysisStatus, DbExecutor, JobKind, JobRow, JsonObject } from "~/db/schema";
 
 export const DEFAULT_LIMITS: Limits = { maxTimeLimitSeconds: 300, maxBasisSize: 5000 };
@@ -105,10 +106,8 @@ function jobQuery(db: DbExecutor) {
     .select(["n.id as network_id", "n.name as network_name", "v.number as version_number", "u.display_name as starter_name", "u.email as starter_email"]);
 }
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-
 export async function findJob(db: DbExecutor, labId: string, id: string | undefined): Promise<JobRecord | undefined> {
-  if (!id || !UUID.test(id)) return undefined;
+  if (!isUuid(id)) return undefined;
   return (await jobQuery(db).where("a.id", "=", id).where("a.lab_id", "=", labId).executeTakeFirst()) as JobRecord | undefined;
 }
 

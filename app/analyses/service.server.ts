@@ -11,6 +11,7 @@ import type { VersionRecord } from "~/networks/networks.server";
 import { parseAnalysisParams, parseRelationParams, parseScanParams, parseTimeCourseParams, type AnalysisParams, type Problems } from "./params";
 import { insertJobWithinCaps, labLimits, requestCancel, type JobRecord } from "./repository.server";
 import type { DbExecutor, JobKind, JobRow, JsonObject } from "~/db/schema";
+import { type AuditKind, recordAudit } from "~/shared/audit.server";
 
 export type StartOutcome = { ok: true; job: JobRow } | { ok: false; problems: Problems };
 
@@ -80,6 +81,7 @@ export async function cancelJob(db: DbExecutor, job: JobRecord) {
   return requestCancel(db, job.id);
 }
 
-export async function recordAnalysisAudit(db: DbExecutor, labId: string, actorId: string, kind: string, details: JsonObject): Promise<void> {
-  await db.insertInto("audit_events").values({ lab_id: labId, actor_id: actorId, kind, details }).execute();
+/** An analysis event in the lab's audit trail (the shared writer, with this feature's kinds). */
+export async function recordAnalysisAudit(db: DbExecutor, labId: string, actorId: string, kind: AuditKind & `analysis.${string}`, details: JsonObject): Promise<void> {
+  await recordAudit(db, { kind, actorId, labId, details });
 }

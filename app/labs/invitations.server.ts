@@ -1,7 +1,7 @@
 import type { Kysely } from "kysely";
 import type { Database, DbExecutor, LabRole } from "~/db/schema";
 import { randomToken, sha256Hex } from "~/auth/hashing.server";
-import { recordAudit } from "./audit.server";
+import { recordAudit } from "~/shared/audit.server";
 
 export const INVITATION_DAYS = 7;
 

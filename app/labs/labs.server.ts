@@ -1,6 +1,6 @@
 import type { Kysely } from "kysely";
 import type { Database, DbExecutor, LabRole } from "~/db/schema";
-import { recordAudit } from "./audit.server";
+import { recordAudit } from "~/shared/audit.server";
 
 export interface LabSummary {
   id: string;

@@ -1,6 +1,6 @@
 import type { Kysely, Transaction } from "kysely";
 import type { Database, DbExecutor, LabRole } from "~/db/schema";
-import { recordAudit } from "./audit.server";
+import { recordAudit } from "~/shared/audit.server";
 
 export class MembershipError extends Error {
   constructor(

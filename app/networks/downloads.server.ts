@@ -5,6 +5,7 @@ import { stoichiometricMatrixCsv } from "./matrix-csv";
 import type { NetworkRecord, VersionRecord } from "./networks.server";
 import { massActionOdes, odesLatexDocument } from "./odes";
 import { structureOf } from "./structure.server";
+import { notFound } from "~/shared/responses";
 
 const slug = (name: string) => name.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "") || "network";
 
@@ -38,6 +39,6 @@ export function downloadFile(network: NetworkRecord, version: VersionRecord, fil
     case "stoichiometric-matrix.csv":
       return send(stoichiometricMatrixCsv(structureOf(version.csv)), "text/csv", `${stem}-stoichiometric-matrix.csv`);
     default:
-      throw new Response("No such download", { status: 404, statusText: "Not Found" });
+      throw notFound("No such download");
   }
 }

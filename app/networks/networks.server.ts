@@ -5,11 +5,11 @@
 import { createHash } from "node:crypto";
 import type { Kysely } from "kysely";
 import type { Database, DbExecutor } from "~/db/schema";
+import { recordAudit } from "~/shared/audit.server";
+import { isUuid } from "~/shared/uuid";
 
 export const contentHash = (csv: string) => createHash("sha256").update(csv, "utf8").digest("hex");
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-export const isUuid = (s: string | undefined): s is string => s !== undefined && UUID.test(s);
 
 export interface NetworkRecord {
   id: string;
@@ -222,9 +222,6 @@ export async function setArchived(db: DbExecutor, networkId: string, archived: b
 export async function deleteNetwork(db: Kysely<Database>, network: NetworkRecord, actorId: string) {
   await db.transaction().execute(async (trx) => {
     await trx.deleteFrom("networks").where("id", "=", network.id).execute();
-    await trx
-      .insertInto("audit_events")
-      .values({ kind: "network.deleted", actor_id: actorId, lab_id: network.labId, details: { networkId: network.id, name: network.name } })
-      .execute();
+    await recordAudit(trx, { kind: "network.deleted", actorId, labId: network.labId, details: { networkId: network.id, name: network.name } });
   });
 }

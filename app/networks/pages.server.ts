@@ -13,6 +13,7 @@ import { findNetwork, findVersion, latestVersion, listNetworks, listVersions, ty
 import { structureOf, summaryOf } from "./structure.server";
 import { networkPath } from "./paths";
 import type { NetworkTableRow } from "./ui/network-table";
+import { notFound } from "~/shared/responses";
 
 export { networkPath };
 
@@ -70,7 +71,7 @@ export async function requireNetwork(db: Kysely<Database>, access: LabAccess, ne
   const network = await findNetwork(db, access.lab.id, networkId);
   if (!network) {
     if (api) throw apiError("not_found", "No such network in this lab.");
-    throw new Response("Not found", { status: 404, statusText: "Not Found" });
+    throw notFound();
   }
   return network;
 }
@@ -80,7 +81,7 @@ export async function requireVersion(db: Kysely<Database>, network: NetworkRecor
   const version = raw == null || raw === "" ? await latestVersion(db, network.id) : await findVersion(db, network.id, Number(raw));
   if (!version) {
     if (api) throw apiError("not_found", `Version ${raw} of this network does not exist.`);
-    throw new Response(`No version ${raw}`, { status: 404, statusText: "Not Found" });
+    throw notFound(`No version ${raw}`);
   }
   return version;
 }

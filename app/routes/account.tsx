@@ -3,9 +3,9 @@ import type { Route } from "./+types/account";
 import { db } from "~/db.server";
 import { listApiTokens } from "~/account/api-tokens.server";
 import { parseAccountIntent, runAccountIntent } from "~/account/account-actions.server";
-import { listAccountEvents } from "~/labs/audit.server";
+import { listAccountEvents } from "~/shared/audit.server";
 import { listLabsOf } from "~/labs/labs.server";
-import type { ActionResult } from "~/labs/form.server";
+import type { ActionResult } from "~/shared/form";
 import { formatDate, FormMessage, inputClass, IntentButton, RoleBadge } from "~/labs/ui";
 import { requireUser } from "~/permissions/permissions.server";
 

@@ -8,6 +8,7 @@ import { presentResult } from "~/analyses/present";
 import type { AnalysisResult } from "~/analyses/result-types";
 import { Tex } from "~/analyses/ui/tex";
 import { requireLabRole } from "~/permissions/permissions.server";
+import { notFound } from "~/shared/responses";
 
 export const meta: Route.MetaFunction = () => [{ title: "Compare analyses · Stillpoint" }];
 
@@ -17,7 +18,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const url = new URL(request.url);
   const adb = db();
   const [a, b] = await Promise.all([findJob(adb, access.lab.id, url.searchParams.get("a") ?? undefined), findJob(adb, access.lab.id, url.searchParams.get("b") ?? undefined)]);
-  if (!a || !b || a.kind !== "analysis" || b.kind !== "analysis") throw new Response("Not found", { status: 404 });
+  if (!a || !b || a.kind !== "analysis" || b.kind !== "analysis") throw notFound();
   if (a.network_id !== b.network_id) throw new Response("Only two analyses of the same network can be compared.", { status: 400 });
   const side = (j: typeof a) => {
     const result = j.status === "succeeded" ? (j.result as unknown as AnalysisResult) : null;

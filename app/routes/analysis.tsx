@@ -1,7 +1,6 @@
 import { Link, data, redirect } from "react-router";
 import type { Route } from "./+types/analysis";
 import { db } from "~/db.server";
-import { formObject } from "~/analyses/form.server";
 import { analysisPageData } from "~/analyses/page.server";
 import { analysesPath, analysisPath, newAnalysisPath, sharePath } from "~/analyses/paths";
 import { findJob, listJobs } from "~/analyses/repository.server";
@@ -15,10 +14,11 @@ import { getEnv } from "~/env.server";
 import { networkPath } from "~/networks/paths";
 import { assertLabRole, requireLabRole } from "~/permissions/permissions.server";
 import { hasRole } from "~/permissions/roles";
+import { isUuid } from "~/shared/uuid";
+import { notFound } from "~/shared/responses";
+import { formObject } from "~/shared/form";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `Analysis of ${data?.page.job.network.name ?? "a network"} · Stillpoint` }];
-
-const notFound = () => new Response("Not found", { status: 404, statusText: "Not Found" });
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const access = await requireLabRole(request, params.labSlug, "viewer");
@@ -77,7 +77,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     case "share-revoke": {
       assertLabRole(access, "owner");
       const linkId = String(form.get("linkId") ?? "");
-      if (!/^[0-9a-f-]{36}$/i.test(linkId) || !(await revokeShareLink(adb, job.id, linkId))) throw notFound();
+      if (!isUuid(linkId) || !(await revokeShareLink(adb, job.id, linkId))) throw notFound();
       await recordAnalysisAudit(adb, access.lab.id, access.user.id, "analysis.share_link_revoked", { analysisId: job.id, linkId });
       return { revoked: linkId };
     }

@@ -1,7 +1,7 @@
 import { Link } from "react-router";
 import type { Route } from "./+types/lab-audit";
 import { db } from "~/db.server";
-import { listLabAudit } from "~/labs/audit.server";
+import { listLabAudit } from "~/shared/audit.server";
 import { formatDate } from "~/labs/ui";
 import { requireLabRole } from "~/permissions/permissions.server";
 

@@ -6,12 +6,13 @@ import { startAnalysis } from "~/analyses/service.server";
 import { requireNetwork, requireVersion } from "~/networks/pages.server";
 import { apiError } from "~/permissions/api-errors";
 import { requireApiLabRole } from "~/permissions/permissions.server";
+import { isUuid } from "~/shared/uuid";
 
 /** GET /api/labs/:labSlug/analyses[?networkId=] — the lab's analyses, newest first (no results; fetch each). */
 export async function loader({ request, params }: Route.LoaderArgs) {
   const access = await requireApiLabRole(request, params.labSlug, "viewer");
   const networkId = new URL(request.url).searchParams.get("networkId") ?? undefined;
-  const jobs = await listJobs(db(), access.lab.id, { kind: "analysis", networkId: networkId && /^[0-9a-f-]{36}$/i.test(networkId) ? networkId : undefined });
+  const jobs = await listJobs(db(), access.lab.id, { kind: "analysis", networkId: isUuid(networkId) ? networkId : undefined });
   return Response.json({ analyses: jobs.map((j) => jobResource(access.lab.slug, j, false)) });
 }
 

@@ -1,3 +1,7 @@
+/**
+ * The audit trail: every feature writes its events here (one list of kinds) and the lab and
+ * account pages read them back.
+ */
 import type { DbExecutor, JsonObject } from "~/db/schema";
 
 export type AuditKind =
@@ -14,7 +18,11 @@ export type AuditKind =
   | "invitation.revoked"
   | "invitation.accepted"
   | "api_token.created"
-  | "api_token.revoked";
+  | "api_token.revoked"
+  | "network.deleted"
+  | "analysis.limits_changed"
+  | "analysis.share_link_created"
+  | "analysis.share_link_revoked";
 
 export async function recordAudit(
   db: DbExecutor,
