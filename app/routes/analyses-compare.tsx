@@ -9,6 +9,7 @@ import type { AnalysisResult } from "~/analyses/result-types";
 import { Tex } from "~/analyses/ui/tex";
 import { requireLabRole } from "~/permissions/permissions.server";
 import { notFound } from "~/shared/responses";
+import { formatDateTime } from "~/shared/dates";
 
 export const meta: Route.MetaFunction = () => [{ title: "Compare analyses · Stillpoint" }];
 
@@ -35,7 +36,7 @@ function Column({ s, labSlug }: { s: Side; labSlug: string }) {
     <div className="min-w-0 space-y-3 rounded-card border border-line bg-surface p-4" data-testid="compare-column">
       <p className="text-sm">
         <Link to={analysisPath(labSlug, s.job.id)} className="font-medium text-accent-strong hover:underline">
-          {s.job.createdAt.slice(0, 16).replace("T", " ")}
+          {formatDateTime(s.job.createdAt)}
         </Link>{" "}
         · version {s.job.network.version} · engine {s.job.engineVersion}
       </p>

@@ -9,6 +9,7 @@ import { StatusBadge } from "~/analyses/ui/status";
 import { networkPath } from "~/networks/paths";
 import { assertLabRole, requireLabRole } from "~/permissions/permissions.server";
 import { hasRole } from "~/permissions/roles";
+import { formatDateTime } from "~/shared/dates";
 
 export const meta: Route.MetaFunction = () => [{ title: "Analyses · Stillpoint" }];
 
@@ -73,7 +74,7 @@ export default function Analyses({ loaderData: d, actionData }: Route.ComponentP
                   <td className="px-4 py-2 text-muted">
                     {p.rateMode} rates{p.initial ? ", numeric steady states" : ""}
                   </td>
-                  <td className="whitespace-nowrap px-4 py-2 text-muted">{a.createdAt.slice(0, 16).replace("T", " ")}</td>
+                  <td className="whitespace-nowrap px-4 py-2 text-muted">{formatDateTime(a.createdAt)}</td>
                   <td className="px-4 py-2 text-muted">{a.startedBy ?? "former member"}</td>
                 </tr>
               );

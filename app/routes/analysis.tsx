@@ -17,6 +17,7 @@ import { hasRole } from "~/permissions/roles";
 import { isUuid } from "~/shared/uuid";
 import { notFound } from "~/shared/responses";
 import { formObject } from "~/shared/form";
+import { formatDateTime } from "~/shared/dates";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `Analysis of ${data?.page.job.network.name ?? "a network"} · Stillpoint` }];
 
@@ -34,7 +35,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     canEdit: hasRole(access.role, "editor"),
     isOwner,
     shareLinks: isOwner ? await listShareLinks(adb, job.id) : [],
-    compareWith: siblings.map((s) => ({ id: s.id, label: `${s.created_at.toISOString().slice(0, 16).replace("T", " ")} · v${s.version_number} · ${s.starter_name ?? "?"}` })),
+    compareWith: siblings.map((s) => ({ id: s.id, label: `${formatDateTime(s.created_at)} · v${s.version_number} · ${s.starter_name ?? "?"}` })),
   };
 }
 
@@ -105,7 +106,7 @@ export default function AnalysisPage({ loaderData: d }: Route.ComponentProps) {
         </p>
         <h1 className="text-2xl font-semibold tracking-tight">Steady-state analysis</h1>
         <p className="text-sm text-muted">
-          Started by {p.job.startedBy ?? "a former member"} on {p.job.createdAt.slice(0, 16).replace("T", " ")} UTC
+          Started by {p.job.startedBy ?? "a former member"} on {formatDateTime(p.job.createdAt)}
           {d.canEdit && (
             <>
               {" "}
