@@ -3,8 +3,8 @@ import { formatSbml } from "@domain/network/sbml/index";
 import { csvTextSafe } from "~/downloads/escape";
 import { stoichiometricMatrixCsv } from "./matrix-csv";
 import type { NetworkRecord, VersionRecord } from "./networks.server";
-import { massActionOdes, odesLatexDocument } from "./odes";
-import { structureOf } from "./structure.server";
+import { odesLatexDocument } from "./odes";
+import { odesOf, structureOf } from "./structure.server";
 import { notFound } from "~/shared/responses";
 
 const slug = (name: string) => name.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "") || "network";
@@ -25,7 +25,7 @@ export function downloadFile(network: NetworkRecord, version: VersionRecord, fil
       return send(csvTextSafe(formatNetworkCsv(parseNetworkCsv(version.csv))), "text/csv", `${stem}.csv`);
     case "odes.tex": {
       const structure = structureOf(version.csv);
-      return send(odesLatexDocument(`${network.name} (version ${version.number})`, massActionOdes(structure), structure.constants), "application/x-tex", `${stem}-odes.tex`);
+      return send(odesLatexDocument(`${network.name} (version ${version.number})`, odesOf(version.csv), structure.constants), "application/x-tex", `${stem}-odes.tex`);
     }
     // Open formats and code (issue 14): SBML Level 3 Version 2, a reaction list, the ODEs as Python and Julia.
     case "network.xml":

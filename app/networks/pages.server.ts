@@ -10,7 +10,8 @@ import type { LabAccess } from "~/permissions/permissions.server";
 import { hasRole } from "~/permissions/roles";
 import { diffNetworks, type NetworkDiff } from "./diff";
 import { findNetwork, findVersion, latestVersion, listNetworks, listVersions, type NetworkRecord, type VersionRecord } from "./networks.server";
-import { structureOf, summaryOf } from "./structure.server";
+import { odesOf, structureOf, summaryOf } from "./structure.server";
+import type { SpeciesOde } from "@domain/steady-state/ode-terms";
 import { networkPath } from "./paths";
 import type { NetworkTableRow } from "./ui/network-table";
 import { notFound } from "~/shared/responses";
@@ -93,6 +94,7 @@ export interface NetworkPageData {
   latestNumber: number;
   versions: VersionJson[];
   structure: NetworkStructure;
+  odes: SpeciesOde[];
   canEdit: boolean;
   canDelete: boolean;
 }
@@ -107,6 +109,7 @@ export async function networkPageData(db: Kysely<Database>, access: LabAccess, n
     latestNumber: versions[0]!.number,
     versions: versions.map((v) => versionJson(v)),
     structure: structureOf(version.csv),
+    odes: odesOf(version.csv),
     canEdit: hasRole(access.role, "editor"),
     canDelete: hasRole(access.role, "owner"),
   };
