@@ -92,14 +92,20 @@ describe.skipIf(!hasTestDatabase)("background worker", () => {
     expect((await row(r.id)).status).toBe("cancelled");
   });
 
-  it("a computation that cannot finish is stopped by the time limit with a clear message", async () => {
+  it("a computation that cannot finish is stopped by the engine's deadline with a clear message", async () => {
+    // The engine's deadline at half the limit, far from the hard kill (tested next), so the outcome
+    // is the engine's own and only one: a stored result whose unfinished stages say what stopped.
+    await worker!.stop();
+    worker = await startWorker({ databaseUrl: t.url, heartbeatMs: 200, graceMs: 1000, engineDeadlineFactor: 0.5, sweepEveryMs: 500, staleAfterMs: 3000, pollSeconds: 0.5, log: () => {} });
     // Listing 3^10 steady states cannot finish in the limit of 3 s.
     const started = Date.now();
     const id = await job(nets.slow, analysisParams(), 3);
     const done = await finished(id, 30_000);
     expect(Date.now() - started).toBeLessThan(20_000);
-    const said = `${done.error ?? ""} ${JSON.stringify((done.result as { warnings?: string[] } | null)?.warnings ?? [])}`;
-    expect(said).toMatch(/not finished within the budget|time limit of 3 s/);
+    expect([done.status, done.error]).toEqual(["succeeded", null]);
+    const result = done.result as { unfinished: { stage: string; reason: string }[]; warnings: string[] };
+    expect(result.unfinished.length).toBeGreaterThan(0);
+    expect(result.unfinished.every((u) => u.stage.length > 0 && u.reason.length > 0)).toBe(true);
   }, 40_000);
 
   it("kills the job process hard when the engine overruns the limit", async () => {
@@ -151,13 +157,14 @@ describe.skipIf(!hasTestDatabase)("background worker", () => {
       process.kill(-proc.pid!, "SIGKILL");
     }
     expect((await row(retried)).status).toBe("running");
-    worker = await startWorker({ databaseUrl: t.url, heartbeatMs: 200, graceMs: 1000, sweepEveryMs: 500, staleAfterMs: 2500, pollSeconds: 0.5, log: () => {} });
+    // The retry's engine stops at half the limit, so its outcome is the engine's own (see above).
+    worker = await startWorker({ databaseUrl: t.url, heartbeatMs: 200, graceMs: 1000, engineDeadlineFactor: 0.5, sweepEveryMs: 500, staleAfterMs: 2500, pollSeconds: 0.5, log: () => {} });
     const failed = await finished(lastTry, 30_000);
     expect(failed.status).toBe("failed");
     expect(failed.error).toMatch(/stopped responding .* on each of its 1 attempts/);
     const again = await finished(retried, 40_000);
     expect(again.attempts).toBe(2);
-    expect(["succeeded", "failed"]).toContain(again.status);
+    expect(again.status).toBe("succeeded");
     const stuck = await t.db.selectFrom("analyses").select("id").where("status", "=", "running").execute();
     expect(stuck).toEqual([]);
   }, 90_000);
