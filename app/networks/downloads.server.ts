@@ -1,4 +1,5 @@
-import { formatNetworkCsv, formatReactionList, odeJulia, odePython, parseNetworkCsv } from "@domain/network/index";
+import { formatNetworkCsv, formatReactionList, parseNetworkCsv } from "@domain/network/index";
+import { odeJulia, odePython } from "@domain/steady-state/index";
 import { formatSbml } from "@domain/network/sbml/index";
 import { csvTextSafe } from "~/downloads/escape";
 import { stoichiometricMatrixCsv } from "./matrix-csv";
