@@ -4,10 +4,10 @@ import type { AnalysisParams } from "./params";
 import { presentResult } from "./present";
 import { jobJson, listJobs, type JobRecord } from "./repository.server";
 import type { AnalysisResult } from "./result-types";
-import type { AnalysesDb } from "./schema";
+import type { DbExecutor } from "~/db/schema";
 import { networkOf } from "./service.server";
 
-export async function analysisPageData(db: AnalysesDb, job: JobRecord, options: { sharedView: boolean }) {
+export async function analysisPageData(db: DbExecutor, job: JobRecord, options: { sharedView: boolean }) {
   const children = await listJobs(db, job.lab_id, { parentId: job.id });
   const visible = options.sharedView ? children.filter((c) => c.status === "succeeded") : children;
   const version = await db.selectFrom("network_versions").select("csv").where("id", "=", job.network_version_id).executeTakeFirstOrThrow();

@@ -9,7 +9,6 @@ import { randomBytes } from "node:crypto";
 import { pathToFileURL } from "node:url";
 import { createDb } from "~/db.server";
 import { getEnv } from "~/env.server";
-import { asAnalysesDb } from "~/analyses/schema";
 import { enqueue, getBoss, QUEUE, stopBosses, type JobMessage } from "./queue.server";
 import { processJob, stopAllChildren, type ProcessOptions } from "./process-job.server";
 import { orphanedQueuedJobs, releaseRunningJobs, sweepStaleJobs } from "./sweeper.server";
@@ -32,7 +31,7 @@ export interface RunningWorker {
 export async function startWorker(options: WorkerOptions): Promise<RunningWorker> {
   const id = `${hostname()}:${process.pid}:${randomBytes(3).toString("hex")}`;
   const log = options.log ?? ((line: string) => console.log(`[worker ${id}] ${line}`));
-  const db = asAnalysesDb(createDb(options.databaseUrl, { max: 4 }));
+  const db = createDb(options.databaseUrl, { max: 4 });
   const boss = await getBoss(options.databaseUrl, { supervise: true });
   const processOptions: ProcessOptions = {
     workerId: id,

@@ -1,8 +1,6 @@
-import type { Kysely, Transaction } from "kysely";
-import type { Database, LabRole } from "~/db/schema";
-import { recordAudit } from "./audit.server";
-
-type Executor = Kysely<Database> | Transaction<Database>;
+import type { Kysely } from "kysely";
+import type { Database, DbExecutor, LabRole } from "~/db/schema";
+import { recordAudit } from "~/shared/audit.server";
 
 export interface LabSummary {
   id: string;
@@ -61,7 +59,7 @@ export async function renameLab(db: Kysely<Database>, args: { labId: string; act
 }
 
 /** The labs a user belongs to, with their role, alphabetically. */
-export async function listLabsOf(db: Executor, userId: string): Promise<LabSummary[]> {
+export async function listLabsOf(db: DbExecutor, userId: string): Promise<LabSummary[]> {
   const rows = await db
     .selectFrom("memberships as m")
     .innerJoin("labs as l", "l.id", "m.lab_id")
@@ -83,7 +81,7 @@ export async function listLabsOf(db: Executor, userId: string): Promise<LabSumma
 }
 
 /** The lab with this slug and the user's role in it (null when not a member); undefined when no such lab. */
-export async function findLabWithRole(db: Executor, slug: string, userId: string) {
+export async function findLabWithRole(db: DbExecutor, slug: string, userId: string) {
   return db
     .selectFrom("labs as l")
     .leftJoin("memberships as m", (join) => join.onRef("m.lab_id", "=", "l.id").on("m.user_id", "=", userId))

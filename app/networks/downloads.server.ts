@@ -1,10 +1,12 @@
-import { formatNetworkCsv, formatReactionList, odeJulia, odePython, parseNetworkCsv } from "@domain/network/index";
+import { formatNetworkCsv, formatReactionList, parseNetworkCsv } from "@domain/network/index";
+import { odeJulia, odePython } from "@domain/steady-state/index";
 import { formatSbml } from "@domain/network/sbml/index";
 import { csvTextSafe } from "~/downloads/escape";
 import { stoichiometricMatrixCsv } from "./matrix-csv";
 import type { NetworkRecord, VersionRecord } from "./networks.server";
-import { massActionOdes, odesLatexDocument } from "./odes";
-import { structureOf } from "./structure.server";
+import { odesLatexDocument } from "./odes";
+import { odesOf, structureOf } from "./structure.server";
+import { notFound } from "~/shared/responses";
 
 const slug = (name: string) => name.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "") || "network";
 
@@ -24,7 +26,7 @@ export function downloadFile(network: NetworkRecord, version: VersionRecord, fil
       return send(csvTextSafe(formatNetworkCsv(parseNetworkCsv(version.csv))), "text/csv", `${stem}.csv`);
     case "odes.tex": {
       const structure = structureOf(version.csv);
-      return send(odesLatexDocument(`${network.name} (version ${version.number})`, massActionOdes(structure), structure.constants), "application/x-tex", `${stem}-odes.tex`);
+      return send(odesLatexDocument(`${network.name} (version ${version.number})`, odesOf(version.csv), structure.constants), "application/x-tex", `${stem}-odes.tex`);
     }
     // Open formats and code (issue 14): SBML Level 3 Version 2, a reaction list, the ODEs as Python and Julia.
     case "network.xml":
@@ -38,6 +40,6 @@ export function downloadFile(network: NetworkRecord, version: VersionRecord, fil
     case "stoichiometric-matrix.csv":
       return send(stoichiometricMatrixCsv(structureOf(version.csv)), "text/csv", `${stem}-stoichiometric-matrix.csv`);
     default:
-      throw new Response("No such download", { status: 404, statusText: "Not Found" });
+      throw notFound("No such download");
   }
 }

@@ -10,9 +10,11 @@ import type { LabAccess } from "~/permissions/permissions.server";
 import { hasRole } from "~/permissions/roles";
 import { diffNetworks, type NetworkDiff } from "./diff";
 import { findNetwork, findVersion, latestVersion, listNetworks, listVersions, type NetworkRecord, type VersionRecord } from "./networks.server";
-import { structureOf, summaryOf } from "./structure.server";
+import { odesOf, structureOf, summaryOf } from "./structure.server";
+import type { SpeciesOde } from "@domain/steady-state/ode-terms";
 import { networkPath } from "./paths";
 import type { NetworkTableRow } from "./ui/network-table";
+import { notFound } from "~/shared/responses";
 
 export { networkPath };
 
@@ -70,7 +72,7 @@ export async function requireNetwork(db: Kysely<Database>, access: LabAccess, ne
   const network = await findNetwork(db, access.lab.id, networkId);
   if (!network) {
     if (api) throw apiError("not_found", "No such network in this lab.");
-    throw new Response("Not found", { status: 404, statusText: "Not Found" });
+    throw notFound();
   }
   return network;
 }
@@ -80,7 +82,7 @@ export async function requireVersion(db: Kysely<Database>, network: NetworkRecor
   const version = raw == null || raw === "" ? await latestVersion(db, network.id) : await findVersion(db, network.id, Number(raw));
   if (!version) {
     if (api) throw apiError("not_found", `Version ${raw} of this network does not exist.`);
-    throw new Response(`No version ${raw}`, { status: 404, statusText: "Not Found" });
+    throw notFound(`No version ${raw}`);
   }
   return version;
 }
@@ -92,6 +94,7 @@ export interface NetworkPageData {
   latestNumber: number;
   versions: VersionJson[];
   structure: NetworkStructure;
+  odes: SpeciesOde[];
   canEdit: boolean;
   canDelete: boolean;
 }
@@ -106,6 +109,7 @@ export async function networkPageData(db: Kysely<Database>, access: LabAccess, n
     latestNumber: versions[0]!.number,
     versions: versions.map((v) => versionJson(v)),
     structure: structureOf(version.csv),
+    odes: odesOf(version.csv),
     canEdit: hasRole(access.role, "editor"),
     canDelete: hasRole(access.role, "owner"),
   };

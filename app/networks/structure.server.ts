@@ -3,7 +3,8 @@
  * CLI's `analyse --json` uses) and remembered by content hash: a version never changes, so
  * neither does its structure.
  */
-import { analyseStructure, networkLimitProblems, type NetworkFileProblem, type NetworkStructure, tryParseNetworkCsv } from "@domain/network/index";
+import { analyseStructure, networkLimitProblems, type NetworkFileProblem, type NetworkStructure, parseNetworkCsv, tryParseNetworkCsv } from "@domain/network/index";
+import { massActionTerms, type SpeciesOde } from "@domain/steady-state/ode-terms";
 import { contentHash } from "./networks.server";
 
 export type CsvAnalysis = { ok: true; structure: NetworkStructure } | { ok: false; problems: readonly NetworkFileProblem[] };
@@ -31,6 +32,11 @@ export function structureOf(csv: string): NetworkStructure {
   const result = analyseCsv(csv);
   if (!result.ok) throw new Error(`stored network version does not parse: ${result.problems[0]?.message}`);
   return result.structure;
+}
+
+/** The mass-action ODEs of a stored version, from the domain's one builder (rate constants symbolic). */
+export function odesOf(csv: string): SpeciesOde[] {
+  return massActionTerms(parseNetworkCsv(csv));
 }
 
 /** The few numbers the lab's list shows and filters on. */

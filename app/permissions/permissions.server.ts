@@ -8,6 +8,7 @@ import { findLabWithRole, listLabsOf } from "~/labs/labs.server";
 import { apiError } from "./api-errors";
 import { assertCookieWriteAllowed } from "./api-origin.server";
 import { hasRole } from "./roles";
+import { notFound } from "~/shared/responses";
 
 /**
  * The one place that decides who may do what. Every loader, action and API route calls one of
@@ -41,7 +42,6 @@ function signInRedirect(request: Request): Response {
   return redirect(`/sign-in?returnTo=${encodeURIComponent(returnTo)}`);
 }
 
-const notFound = () => new Response("Not found", { status: 404, statusText: "Not Found" });
 const forbidden = (message: string) => new Response(message, { status: 403, statusText: "Forbidden" });
 
 export async function requireUser(request: Request): Promise<CurrentUser> {

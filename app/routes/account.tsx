@@ -3,11 +3,12 @@ import type { Route } from "./+types/account";
 import { db } from "~/db.server";
 import { listApiTokens } from "~/account/api-tokens.server";
 import { parseAccountIntent, runAccountIntent } from "~/account/account-actions.server";
-import { listAccountEvents } from "~/labs/audit.server";
+import { listAccountEvents } from "~/shared/audit.server";
 import { listLabsOf } from "~/labs/labs.server";
-import type { ActionResult } from "~/labs/form.server";
-import { formatDate, FormMessage, inputClass, IntentButton, RoleBadge } from "~/labs/ui";
+import type { ActionResult } from "~/shared/form";
+import { FormMessage, inputClass, IntentButton, RoleBadge } from "~/labs/ui";
 import { requireUser } from "~/permissions/permissions.server";
+import { formatDateTime } from "~/shared/dates";
 
 export const meta: Route.MetaFunction = () => [{ title: "Your account · Stillpoint" }];
 
@@ -75,9 +76,9 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
             {tokens.map((t) => (
               <tr key={t.id} className="border-b border-line">
                 <td className="py-2">{t.name}</td>
-                <td className="text-muted">{formatDate(t.createdAt)}</td>
-                <td className="text-muted">{t.expiresAt ? formatDate(t.expiresAt) : "never"}</td>
-                <td className="text-muted">{t.lastUsedAt ? formatDate(t.lastUsedAt) : "never"}</td>
+                <td className="text-muted">{formatDateTime(t.createdAt)}</td>
+                <td className="text-muted">{t.expiresAt ? formatDateTime(t.expiresAt) : "never"}</td>
+                <td className="text-muted">{t.lastUsedAt ? formatDateTime(t.lastUsedAt) : "never"}</td>
                 <td className="text-right">
                   {t.revokedAt ? <span className="text-xs text-faint">revoked</span> : (
                     <IntentButton intent="revoke-token" fields={{ tokenId: t.id }} tone="danger">Revoke</IntentButton>
@@ -100,7 +101,7 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
       <section>
         <h2 className="font-semibold">Recent account activity</h2>
         <ul className="mt-2 space-y-1 text-sm text-muted">
-          {events.map((e) => <li key={e.id}><span className="font-mono text-xs">{e.kind}</span> · {formatDate(e.created_at)}</li>)}
+          {events.map((e) => <li key={e.id}><span className="font-mono text-xs">{e.kind}</span> · {formatDateTime(e.created_at)}</li>)}
         </ul>
       </section>
       <section className="flex flex-wrap gap-3">

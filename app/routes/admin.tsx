@@ -1,8 +1,8 @@
 import type { Route } from "./+types/admin";
 import { db } from "~/db.server";
 import { listAllLabs, listAllUsers } from "~/admin/admin.server";
-import { formatDate } from "~/labs/ui";
 import { requireSiteAdmin } from "~/permissions/permissions.server";
+import { formatDateTime } from "~/shared/dates";
 
 export const meta: Route.MetaFunction = () => [{ title: "Site administration · Stillpoint" }];
 
@@ -31,7 +31,7 @@ export default function Admin({ loaderData }: Route.ComponentProps) {
                 <td className="py-2">{u.displayName}{u.isSiteAdmin && <span className="text-xs text-accent"> admin</span>}</td>
                 <td className="text-muted">{u.email}</td>
                 <td>{u.labCount}</td>
-                <td className="text-muted">{formatDate(u.createdAt)}</td>
+                <td className="text-muted">{formatDateTime(u.createdAt)}</td>
               </tr>
             ))}
           </tbody>
@@ -50,7 +50,7 @@ export default function Admin({ loaderData }: Route.ComponentProps) {
                 <td className="font-mono text-xs text-muted">{l.slug}</td>
                 <td>{l.memberCount}</td>
                 <td>{l.networkCount}</td>
-                <td className="text-muted">{formatDate(l.createdAt)}</td>
+                <td className="text-muted">{formatDateTime(l.createdAt)}</td>
               </tr>
             ))}
           </tbody>

@@ -6,7 +6,6 @@ import { suggestedOrder } from "~/analyses/suggested-order";
 import { fileRateValues, rateSymbols } from "~/analyses/params";
 import { analysisPath } from "~/analyses/paths";
 import { labLimits } from "~/analyses/repository.server";
-import { asAnalysesDb } from "~/analyses/schema";
 import { networkOf, startAnalysis } from "~/analyses/service.server";
 import { OrderEditor } from "~/analyses/ui/order-editor";
 import { Problems } from "~/analyses/ui/problems";
@@ -31,7 +30,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     fileValues: fileRateValues(parsed),
     suggested: suggestion.order,
     reason: suggestion.reason,
-    limits: await labLimits(asAnalysesDb(db()), access.lab.id),
+    limits: await labLimits(db(), access.lab.id),
   };
 }
 
@@ -39,7 +38,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const access = await requireLabRole(request, params.labSlug, "editor");
   const network = await requireNetwork(db(), access, params.networkId);
   const version = await requireVersion(db(), network, new URL(request.url).searchParams.get("v"));
-  const outcome = await startAnalysis(asAnalysesDb(db()), access, version, analysisInputFromForm(await request.formData()));
+  const outcome = await startAnalysis(db(), access, version, analysisInputFromForm(await request.formData()));
   if (!outcome.ok) return { problems: outcome.problems };
   throw redirect(analysisPath(access.lab.slug, outcome.job.id));
 }

@@ -1,9 +1,9 @@
 import { Link } from "react-router";
 import type { Route } from "./+types/lab-audit";
 import { db } from "~/db.server";
-import { listLabAudit } from "~/labs/audit.server";
-import { formatDate } from "~/labs/ui";
+import { listLabAudit } from "~/shared/audit.server";
 import { requireLabRole } from "~/permissions/permissions.server";
+import { formatDateTime } from "~/shared/dates";
 
 export const meta: Route.MetaFunction = () => [{ title: "Audit log · Stillpoint" }];
 
@@ -28,7 +28,7 @@ export default function Audit({ loaderData }: Route.ComponentProps) {
         <tbody>
           {events.map((e) => (
             <tr key={e.id} className="border-b border-line align-top">
-              <td className="py-2 whitespace-nowrap text-muted">{formatDate(e.createdAt)}</td>
+              <td className="py-2 whitespace-nowrap text-muted">{formatDateTime(e.createdAt)}</td>
               <td>{e.actorName ?? "—"}</td>
               <td className="font-mono text-xs">{e.kind}</td>
               <td className="font-mono text-xs text-muted">{JSON.stringify(e.details)}</td>

@@ -4,10 +4,11 @@ import { db } from "~/db.server";
 import { listOpenInvitations } from "~/labs/invitations.server";
 import { listMembers } from "~/labs/memberships.server";
 import { parseMemberIntent, runMemberIntent } from "~/labs/lab-actions.server";
-import { formatDate, FormMessage, inputClass, IntentButton, RoleBadge } from "~/labs/ui";
+import { FormMessage, inputClass, IntentButton, RoleBadge } from "~/labs/ui";
 import { requireLabRole } from "~/permissions/permissions.server";
 import { hasRole } from "~/permissions/roles";
 import { LAB_ROLES } from "~/db/schema";
+import { formatDateTime } from "~/shared/dates";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `Members of ${data?.lab.name ?? "lab"} · Stillpoint` }];
 
@@ -73,7 +74,7 @@ export default function Members({ loaderData, actionData }: Route.ComponentProps
                   <RoleBadge role={m.role} />
                 )}
               </td>
-              <td className="text-muted">{formatDate(m.since).slice(0, 10)}</td>
+              <td className="text-muted">{formatDateTime(m.since).slice(0, 10)}</td>
               {isOwner && (
                 <td className="text-right">
                   <IntentButton intent="remove" fields={{ userId: m.userId }} tone="danger">Remove</IntentButton>
@@ -110,7 +111,7 @@ export default function Members({ loaderData, actionData }: Route.ComponentProps
                     <span className="flex-1">
                       {inv.email} <RoleBadge role={inv.role} />{" "}
                       <span className={inv.status === "expired" ? "text-danger" : "text-faint"}>
-                        {inv.status === "expired" ? "expired" : `expires ${formatDate(inv.expiresAt)}`}
+                        {inv.status === "expired" ? "expired" : `expires ${formatDateTime(inv.expiresAt)}`}
                       </span>
                     </span>
                     <IntentButton intent="resend" fields={{ invitationId: inv.id }}>Resend</IntentButton>

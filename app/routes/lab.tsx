@@ -3,7 +3,7 @@ import type { Route } from "./+types/lab";
 import { db } from "~/db.server";
 import { listMembers } from "~/labs/memberships.server";
 import { runLeave, runRename } from "~/labs/lab-actions.server";
-import { field } from "~/labs/form.server";
+import { field } from "~/shared/form";
 import { FormMessage, inputClass, RoleBadge } from "~/labs/ui";
 import { assertLabRole, requireLabRole } from "~/permissions/permissions.server";
 import { hasRole, ROLE_DESCRIPTIONS } from "~/permissions/roles";

@@ -3,7 +3,7 @@ import type { Route } from "./+types/labs";
 import { db } from "~/db.server";
 import { commitSession, getSession } from "~/auth/session.server";
 import { createLab, listLabsOf, parseLabName } from "~/labs/labs.server";
-import { field } from "~/labs/form.server";
+import { field } from "~/shared/form";
 import { FormMessage, inputClass, labelClass, RoleBadge } from "~/labs/ui";
 import { requireLabRole, requireUser } from "~/permissions/permissions.server";
 

@@ -62,7 +62,7 @@ export default function NetworkPage({ loaderData, actionData }: Route.ComponentP
           </a>
         ))}
       </nav>
-      <StructureView structure={d.structure} name={d.network.name} />
+      <StructureView structure={d.structure} odes={d.odes} name={d.network.name} />
       {d.canEdit && <NetworkSettings network={d.network} canDelete={d.canDelete} result={actionData} />}
       {!d.canEdit && (
         <p className="text-sm text-muted">

@@ -6,6 +6,7 @@ import { requireNetwork, requireVersion, versionDiff, versionJson } from "~/netw
 import { networkPath } from "~/networks/paths";
 import { DiffView } from "~/networks/ui/diff-view";
 import { requireLabRole } from "~/permissions/permissions.server";
+import { formatDateTime } from "~/shared/dates";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `Versions of ${data?.network.name ?? "network"} · Stillpoint` }];
 
@@ -77,7 +78,7 @@ export default function VersionsPage({ loaderData }: Route.ComponentProps) {
                     v{v.number}
                   </Link>
                 </td>
-                <td className="py-1.5 pr-4 whitespace-nowrap">{v.createdAt.slice(0, 16).replace("T", " ")} UTC</td>
+                <td className="py-1.5 pr-4 whitespace-nowrap">{formatDateTime(v.createdAt)}</td>
                 <td className="py-1.5 pr-4">{v.author ?? "former member"}</td>
                 <td className="py-1.5 pr-4">{v.changeNote}</td>
                 <td className="py-1.5 pr-4 font-mono text-xs text-muted">{v.contentHash.slice(0, 16)}…</td>

@@ -35,5 +35,4 @@ export { type TheoremVerdict, deficiencyZeroVerdict, deficiencyOneVerdict } from
 export { type NetworkStructure, type ReactionSummary, analyseStructure } from "./structure";
 export { parseReactionList, formatReactionList } from "./reaction-list";
 export { NETWORK_FORMATS, type NetworkFormat, type NetworkDocument, formatFromName, sniffFormat, readNetworkDocument } from "./formats";
-export { odePython, odeJulia, massActionTerms, type OdeCodeOptions } from "./ode-code";
 export { NETWORK_LIMITS, networkLimitProblems, rateValueWithinLimits } from "./limits";

@@ -5,6 +5,7 @@ import { Problems } from "./problems";
 import { ScanChart } from "./scan-chart";
 import { StatusBadge, isUnfinished } from "./status";
 import { TimeCourseChart } from "./time-course-chart";
+import { formatDateTime } from "~/shared/dates";
 
 type Child = JobJson & { result?: unknown };
 const field = "rounded-md border border-line bg-surface px-2 py-1 text-sm";
@@ -16,7 +17,7 @@ function JobLine({ job, canEdit, children }: { job: Child; canEdit: boolean; chi
     <li className="space-y-2 rounded-md border border-line bg-surface px-4 py-3" data-testid={`${job.kind}-job`}>
       <div className="flex flex-wrap items-center gap-3 text-sm">
         <StatusBadge status={job.status} />
-        <span className="text-muted">{new Date(job.createdAt).toISOString().slice(0, 16).replace("T", " ")}
+        <span className="text-muted">{formatDateTime(job.createdAt)}
           {job.startedBy ? ` · ${job.startedBy}` : ""}</span>
         {isUnfinished(job.status) && <span className="text-muted">{String((job.progress as { message?: string }).message ?? "")}</span>}
         {isUnfinished(job.status) && canEdit && (

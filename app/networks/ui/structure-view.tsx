@@ -2,7 +2,7 @@ import type { NetworkStructure, TheoremVerdict } from "@domain/network/index";
 import { lawsAsEquations } from "../conservation-text";
 import { GLOSSARY } from "../glossary";
 import { layoutComplexGraph } from "../graph-layout";
-import { massActionOdes } from "../odes";
+import type { SpeciesOde } from "@domain/steady-state/ode-terms";
 import { ComplexGraph, classColour } from "./complex-graph";
 import { OdesView } from "./odes-view";
 import { Section, Stat } from "./section";
@@ -11,10 +11,9 @@ const th = "px-3 py-1.5 text-left text-xs font-medium uppercase tracking-wide te
 const td = "px-3 py-1.5 align-top";
 
 /** Everything the structure of one version says, each part with its help. */
-export function StructureView({ structure, name }: { structure: NetworkStructure; name: string }) {
+export function StructureView({ structure, odes, name }: { structure: NetworkStructure; odes: readonly SpeciesOde[]; name: string }) {
   const s = structure;
   const laws = s.minimalSemiPositiveConservationLaws ?? s.conservationLaws;
-  const odes = massActionOdes(s);
   const layout = layoutComplexGraph(s);
   const classOfComplex = new Map<string, number>();
   s.linkageClassMembers.forEach((m, k) => m.forEach((c) => classOfComplex.set(c, k)));

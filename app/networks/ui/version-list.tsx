@@ -1,5 +1,6 @@
 import { Form, Link } from "react-router";
 import type { VersionJson } from "../pages.server";
+import { formatDateTime } from "~/shared/dates";
 
 const SHOWN = 5;
 
@@ -25,7 +26,7 @@ export function VersionList({ base, versions, current, latest, canEdit }: { base
                 </Link>
                 {v.number === current && <span className="sr-only"> (shown)</span>}
               </td>
-              <td className="whitespace-nowrap py-1 pr-3 text-muted">{v.createdAt.slice(0, 16).replace("T", " ")}</td>
+              <td className="whitespace-nowrap py-1 pr-3 text-muted">{formatDateTime(v.createdAt)}</td>
               <td className="whitespace-nowrap py-1 pr-3 text-muted">{v.author ?? "former member"}</td>
               <td className="w-full py-1 pr-3">{v.changeNote}</td>
               <td className="whitespace-nowrap py-1 pr-2 text-right">

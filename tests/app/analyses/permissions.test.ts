@@ -4,7 +4,6 @@ import { hasTestDatabase, type TestDatabase } from "../support/test-db";
 import { makeLab, makeRequest, makeUser, run, sessionCookieFor, setUpAccountsDb, snapshot, tearDownAccountsDb, type Outcome } from "../auth/fixtures";
 import { analysisParams, makeJob, makeNetwork } from "../jobs/fixtures";
 import { computeJob } from "~/jobs/compute";
-import { asAnalysesDb } from "~/analyses/schema";
 import { stopBosses } from "~/jobs/queue.server";
 
 /**
@@ -45,7 +44,7 @@ describe.skipIf(!hasTestDatabase)("analyses permission matrix", () => {
     Object.assign(x, await makeNetwork(t.db, lab.id, ids.owner, "cycle", CYCLE));
     const params = analysisParams({ initial: INITIAL });
     const result = computeJob({ kind: "analysis", csv: CYCLE, params }, { engineTimeoutMs: 30_000 });
-    const adb = asAnalysesDb(t.db);
+    const adb = t.db;
     for (const key of ["done", "other"] as const) {
       const row = await makeJob(t.db, { kind: "analysis", labId: lab.id, networkVersionId: x.versionId, params, startedBy: ids.editor, timeLimitSeconds: 60 });
       await adb.updateTable("analyses").set({ status: "succeeded", result: result as never, finished_at: new Date() }).where("id", "=", row.id).execute();
@@ -100,7 +99,7 @@ describe.skipIf(!hasTestDatabase)("analyses permission matrix", () => {
   ];
 
   const mine = async () => {
-    const adb = asAnalysesDb(t.db);
+    const adb = t.db;
     const [analyses, links, limits] = await Promise.all([
       adb.selectFrom("analyses").selectAll().orderBy("id").execute(),
       adb.selectFrom("analysis_share_links").selectAll().orderBy("id").execute(),
@@ -136,7 +135,7 @@ describe.skipIf(!hasTestDatabase)("analyses permission matrix", () => {
     const share = await import("~/analyses/share.server");
     const page = await import("~/routes/share");
     const exporter = await import("~/routes/share-export");
-    const adb = asAnalysesDb(t.db);
+    const adb = t.db;
     const link = await share.createShareLink(adb, x.done, ids.owner, 1);
     const open = await run(page.loader, makeRequest(`/share/${link.token}`), { token: link.token });
     expect(open.status).toBe(200);

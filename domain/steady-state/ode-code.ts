@@ -1,5 +1,8 @@
 import { formatRational, type Rational } from "../algebra/rational";
-import type { Network } from "./model";
+import type { Network } from "../network/index";
+import { SteadyStateInputError } from "./order";
+import { rateTable } from "./kinetics";
+import { massActionTerms } from "./ode-terms";
 
 /**
  * The mass-action ODE right-hand side and its Jacobian as ready-to-run code: a Python module
@@ -23,11 +26,17 @@ interface Term {
   readonly powers: ReadonlyMap<number, number>;
 }
 
-/** dx_s/dt and ∂(dx_s/dt)/∂x_t as term lists (terms with the same rate and monomial merged). */
-export function massActionTerms(network: Network): { rhs: Term[][]; jacobian: Term[][][] } {
+/**
+ * dx_s/dt as term lists from the domain's one mass-action builder (`massActionTerms`), and
+ * ∂(dx_s/dt)/∂x_t differentiated term by term (terms with the same rate and monomial merged).
+ */
+function codeTerms(network: Network): { rhs: Term[][]; jacobian: Term[][][] } {
+  if ((network.constants ?? []).length > 0) throw new SteadyStateInputError("the ODE code does not carry constant species yet");
   const n = network.species.length;
   const index = new Map(network.species.map((s, i) => [s, i]));
-  const rhs: Term[][] = network.species.map(() => []);
+  const rhs: Term[][] = massActionTerms(network).map((ode) =>
+    ode.terms.map((t) => ({ coefficient: t.coefficient, rate: t.rate, powers: new Map(t.factors.map((f) => [index.get(f.species)!, f.power])) })),
+  );
   const addTerm = (list: Term[], t: Term) => {
     const key = (x: Term) => `${x.rate}|${[...x.powers].sort((a, b) => a[0] - b[0]).join(";")}`;
     const i = list.findIndex((x) => key(x) === key(t));
@@ -38,13 +47,6 @@ export function massActionTerms(network: Network): { rhs: Term[][]; jacobian: Te
       else list[i] = { ...list[i], coefficient: c };
     }
   };
-  for (const r of network.reactions) {
-    const powers = new Map(Object.entries(r.reactant).map(([s, y]) => [index.get(s)!, y]));
-    for (const s of network.species) {
-      const net = (r.product[s] ?? 0) - (r.reactant[s] ?? 0);
-      if (net !== 0) addTerm(rhs[index.get(s)!], { coefficient: net, rate: r.rate, powers });
-    }
-  }
   const jacobian = rhs.map((terms) =>
     Array.from({ length: n }, (_, t) => {
       const out: Term[] = [];
@@ -60,12 +62,6 @@ export function massActionTerms(network: Network): { rhs: Term[][]; jacobian: Te
     }),
   );
   return { rhs, jacobian };
-}
-
-function rateValues(network: Network): Map<string, Rational | undefined> {
-  const m = new Map<string, Rational | undefined>();
-  for (const r of network.reactions) m.set(r.rate, m.get(r.rate) ?? r.rateValue);
-  return m;
 }
 
 interface Dialect {
@@ -89,7 +85,7 @@ function expression(terms: readonly Term[], d: Dialect): string {
 const floatLiteral = (v: Rational): string => (v.den === 1n ? `${v.num}.0` : `${v.num} / ${v.den}`);
 
 function headerLines(network: Network, options: OdeCodeOptions, xName: string, first: number): string[] {
-  const values = rateValues(network);
+  const values = rateTable(network);
   return [
     `Mass-action ODEs of "${options.title.replace(/["\\]/g, "'").replace(/\s+/g, " ")}", written by Stillpoint.`,
     "",
@@ -109,10 +105,10 @@ function headerLines(network: Network, options: OdeCodeOptions, xName: string, f
  * Example: `python3 network.py` integrates from x = 1 for every species and prints the end state.
  */
 export function odePython(network: Network, options: OdeCodeOptions): string {
-  const { rhs, jacobian } = massActionTerms(network);
+  const { rhs, jacobian } = codeTerms(network);
   const d: Dialect = { rate: (k) => `k[${JSON.stringify(k)}]`, x: (i) => `x[${i}]`, pow: " ** " };
   const n = network.species.length;
-  const values = rateValues(network);
+  const values = rateTable(network);
   const lines = [
     '"""',
     ...headerLines(network, options, "x", 0),
@@ -165,9 +161,9 @@ export function odePython(network: Network, options: OdeCodeOptions): string {
  * Example: `include("network.jl"); du = zeros(length(SPECIES)); rhs!(du, ones(length(SPECIES)), PARAMETERS, 0.0)`.
  */
 export function odeJulia(network: Network, options: OdeCodeOptions): string {
-  const { rhs, jacobian } = massActionTerms(network);
+  const { rhs, jacobian } = codeTerms(network);
   const d: Dialect = { rate: (k) => `k[${JSON.stringify(k)}]`, x: (i) => `u[${i + 1}]`, pow: "^" };
-  const values = rateValues(network);
+  const values = rateTable(network);
   const lines = [
     ...headerLines(network, options, "u", 1).map((l) => (l === "" ? "#" : `# ${l}`)),
     "#",

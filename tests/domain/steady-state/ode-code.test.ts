@@ -5,10 +5,11 @@ import { join } from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
 import { evaluate, partialDerivative, type Rational } from "../../../domain/algebra/index";
 import { rational, toNumber, formatRational } from "../../../domain/algebra/rational";
-import { odeJulia, odePython, parseNetworkCsv } from "../../../domain/network/index";
+import { parseNetworkCsv } from "../../../domain/network/index";
+import { odeJulia, odePython } from "../../../domain/steady-state/index";
 import { kineticsRing, massActionOdes } from "../../../domain/steady-state/index";
 import { seededRandom } from "../../support/prng";
-import { roundTripCorpus } from "./sbml/demo-corpus";
+import { roundTripCorpus } from "../network/sbml/demo-corpus";
 
 /**
  * The exported Python module, run by Debian's python3-scipy (NumPy 1.x/2.x, SciPy), against the
