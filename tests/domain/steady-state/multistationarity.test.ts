@@ -167,7 +167,7 @@ def side(text):
         term = term.strip()
         if term == "0":
             continue
-        m = re.fullmatch(r"(\d*)\s*(\w+)", term)
+        m = re.fullmatch(r"([0-9]*) *([A-Za-z_][A-Za-z0-9_]*)", term)
         out[m.group(2)] = out.get(m.group(2), 0) + int(m.group(1) or 1)
     return out
 x = {s: Symbol(s, positive=True) for s in species}
