@@ -104,7 +104,7 @@ export const API_ERROR: JsonSchema = {
       properties: {
         code: { type: "string", enum: ["unauthenticated", "invalid_token", "forbidden", "not_found", "invalid_request", "conflict", "rate_limited", "method_not_allowed"] },
         message: doc("For people."),
-        details: { type: "object", description: "Located problems (`problems`: FileProblem[]), field messages (`fields`), SBML reaction outcomes (`reactions`)." },
+        details: { type: "object", description: "Located problems (`problems`: FileProblem[]), field messages (`fields`), SBML reaction outcomes (`reactions`), a body that does not match its schema (`schema`: { path, message }[], path a JSON Pointer)." },
       },
     },
   },
