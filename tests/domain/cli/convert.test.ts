@@ -60,6 +60,18 @@ describe("cli convert", () => {
     expect(r.err).toMatch(/initial concentrations from the file: Egg=2,Fry=0,Feed=1,Fingerling=0/);
   });
 
+  it("analyse takes a CSV's stored `# initial:` values the same way, and --initial overrides them", async () => {
+    // A <-> B with k1 = 1, k2 = 3: at steady state A = 3B, and A + B is the total of the start (by hand).
+    const csv = "reaction,rate,reverse_rate,rate_value,reverse_rate_value\nA <-> B,k1,k2,1,3\n# initial: A = 2, B = 0\n";
+    const stored = await cli(["analyse", "ab.csv", "--json"], { "ab.csv": csv });
+    expect(stored.code).toBe(0);
+    expect(stored.err).toMatch(/initial concentrations from the file: A=2,B=0/);
+    expect(JSON.parse(stored.out).steadyStates.map((x: { concentrations: unknown }) => x.concentrations)).toEqual([{ A: 1.5, B: 0.5 }]);
+    const given = await cli(["analyse", "ab.csv", "--initial", "A=4", "--json"], { "ab.csv": csv });
+    expect(given.err).not.toMatch(/from the file/);
+    expect(JSON.parse(given.out).steadyStates.map((x: { concentrations: unknown }) => x.concentrations)).toEqual([{ A: 3, B: 1 }]);
+  });
+
   it("runs as a real process: npm run -s cli -- convert FILE --to sbml", () => {
     const out = execFileSync("npm", ["run", "-s", "cli", "--", "convert", "tests/fixtures/sbml/hatchery.xml", "--to", "sbml"], { encoding: "utf8" });
     expect(out).toMatch(/<reaction id="hatching" name="hatching" reversible="false">/);
