@@ -12,15 +12,14 @@ const slug = (name: string) => name.toLowerCase().replace(/[^a-z0-9]+/g, "-").re
 
 /**
  * The downloads. The network CSV is written by the domain's formatNetworkCsv, so every
- * rate symbol is explicit and the file reads back to the same network.
+ * rate symbol is explicit and the file reads back to the same network. Every format carries the
+ * constant species and the stored initial values (SBML as boundary species and initialConcentration,
+ * the reaction list as the CSV's directive lines, the code as parameters and INITIAL).
  */
 export function downloadFile(network: NetworkRecord, version: VersionRecord, file: string | undefined): Response {
   const stem = `${slug(network.name)}-v${version.number}`;
   const send = (body: string, type: string, name: string) =>
     new Response(body, { headers: { "Content-Type": `${type}; charset=utf-8`, "Content-Disposition": `attachment; filename="${name}"` } });
-  // The open formats and code do not carry constant species yet: refuse rather than drop them.
-  if (["network.xml", "network.txt", "odes.py", "odes.jl"].includes(file ?? "") && (parseNetworkCsv(version.csv).constants ?? []).length > 0)
-    return new Response("This version holds species constant; the SBML, reaction-list and ODE-code downloads do not carry constant species yet. Download the CSV instead.", { status: 409, headers: { "Content-Type": "text/plain; charset=utf-8" } });
   switch (file) {
     case "network.csv":
       return send(csvTextSafe(formatNetworkCsv(parseNetworkCsv(version.csv))), "text/csv", `${stem}.csv`);

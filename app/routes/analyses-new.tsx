@@ -12,6 +12,7 @@ import { Problems } from "~/analyses/ui/problems";
 import { requireNetwork, requireVersion } from "~/networks/pages.server";
 import { networkPath } from "~/networks/paths";
 import { requireLabRole } from "~/permissions/permissions.server";
+import { formatRational } from "@domain/algebra/rational";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `New analysis of ${data?.network.name ?? "a network"} · Stillpoint` }];
 
@@ -28,6 +29,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     species: [...parsed.species],
     rates: rateSymbols(parsed),
     fileValues: fileRateValues(parsed),
+    // The version's stored initial values (`# initial:`) fill the fields; the person can change or clear them.
+    storedInitial: Object.fromEntries((parsed.initial ?? []).map((i) => [i.name, formatRational(i.value)])),
     suggested: suggestion.order,
     reason: suggestion.reason,
     limits: await labLimits(db(), access.lab.id),
@@ -105,11 +108,14 @@ export default function NewAnalysis({ loaderData: d, actionData }: Route.Compone
             {d.species.map((s) => (
               <label key={s} className="space-y-0.5 text-sm">
                 <span className="block font-mono">{s}</span>
-                <input className={`${input} w-full`} name={`initial.${s}`} placeholder="0" aria-label={`Initial concentration of ${s}`} />
+                <input className={`${input} w-full`} name={`initial.${s}`} placeholder="0" defaultValue={d.storedInitial[s] ?? ""} aria-label={`Initial concentration of ${s}`} />
               </label>
             ))}
           </div>
-          <p className="text-xs text-muted">Leave all empty for a symbolic analysis only. Unlisted species start at 0; the totals of the conservation laws follow.</p>
+          <p className="text-xs text-muted">
+            {Object.keys(d.storedInitial).length > 0 ? "Filled in from the values stored with this version; change them here for this analysis only. " : ""}
+            Leave all empty for a symbolic analysis only. Unlisted species start at 0; the totals of the conservation laws follow.
+          </p>
         </fieldset>
         <fieldset className="space-y-3">
           <legend className="mb-2 font-semibold">Limits</legend>

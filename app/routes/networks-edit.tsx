@@ -41,7 +41,7 @@ export default function EditNetworkPage({ loaderData, actionData }: Route.Compon
         <h1 className="text-2xl font-semibold tracking-tight">New version</h1>
         <p className="mt-1 text-sm text-muted">Starting from version {version.number}. Saving adds version {version.number + 1}; earlier versions never change.</p>
       </header>
-      <NetworkEditor mode="version" initialRows={rows} initialConstants={loaded.constants} failure={actionData} />
+      <NetworkEditor mode="version" initialRows={rows} initialConstants={loaded.constants} initialValues={loaded.initial} failure={actionData} />
     </div>
   );
 }

@@ -116,8 +116,8 @@ export function run(args: readonly string[], io: CliIO): number {
   const relations = flags.has("relation") ? flags.get("relation")!.split(";").map((s) => s.trim()).filter((s) => s !== "") : [];
   let result: SteadyStateAnalysis;
   try {
-    // `.xml`/`.sbml` files are read as SBML, `.txt` as a reaction list; an SBML file's initial
-    // concentrations stand in for a missing --initial, and say so.
+    // `.xml`/`.sbml` files are read as SBML, `.txt` as a reaction list; the file's initial values
+    // (SBML initial concentrations, a `# initial:` line) stand in for a missing --initial, and say so.
     const doc = readNetworkFile(io, positionals[0]);
     for (const n of doc.notes) io.stderr(`note: ${n}\n`);
     const start = initial ?? (doc.initial.size > 0 ? new Map(doc.initial) : undefined);

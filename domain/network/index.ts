@@ -6,6 +6,7 @@
  * - analyseStructure(network) → NetworkStructure, plain JSON-friendly data (rationals as strings).
  * - Constant species (`# constant: A = 2, B`): network.constants, each reaction's `held` part;
  *   importers (e.g. SBML boundary species) fill `constants` and strip them from the complexes.
+ * - Initial values (`# initial: X = 1`): network.initial, the default start of analyses.
  * - The exact pieces (complexes, Y, incidence and stoichiometric matrices, conservation laws) for
  *   the steady-state layer.
  *
@@ -15,8 +16,9 @@
  */
 export type { Complex } from "./complex";
 export { SPECIES_NAME, makeComplex, formatComplex, sameComplex, compareNames } from "./complex";
-export type { Arrow, ConstantSpecies, DirectedReaction, Network, NetworkRow } from "./model";
+export type { Arrow, ConstantSpecies, DirectedReaction, InitialValue, Network, NetworkRow } from "./model";
 export { CONSTANT_DIRECTIVE, formatConstantDeclaration, readConstantDeclarations, splitComplex } from "./constant-species";
+export { INITIAL_DIRECTIVE, formatInitialDeclaration, readInitialDeclarations, initialMapOf } from "./initial-values";
 export { type NetworkFileProblem, NetworkFileError, formatProblem } from "./errors";
 export { NETWORK_COLUMNS, type NetworkColumn, parseNetworkCsv, tryParseNetworkCsv } from "./parse-csv";
 export { parseReactionText, type ParsedReaction, type ReactionTextResult } from "./reaction-text";

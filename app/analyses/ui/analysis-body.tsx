@@ -74,7 +74,7 @@ export function AnalysisBody({ d, canEdit, exportBase, scanCsvBase }: { d: Analy
             <ScanPanel jobs={d.scans} canEdit={canEdit} rates={d.rates} species={d.species} csvHref={(id) => `${scanCsvBase}/scan-${id}.csv`} available={d.numeric} />
           </Part>
           <Part id="time-course" title="Time course" help="Simulate the mass-action ODEs from the initial concentrations with a stiff integrator and see whether the trajectory settles on a computed steady state.">
-            <TimeCoursePanel jobs={d.timeCourses} canEdit={canEdit} steadyStates={d.result.steadyStates ?? []} available={d.numeric} />
+            <TimeCoursePanel jobs={d.timeCourses} canEdit={canEdit} steadyStates={d.result.steadyStates ?? []} available={d.numeric} start={d.params.initial} />
           </Part>
         </>
       )}

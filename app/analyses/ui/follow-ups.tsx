@@ -150,7 +150,20 @@ export function ScanPanel({ jobs, canEdit, rates, species, csvHref, available }:
   );
 }
 
-export function TimeCoursePanel({ jobs, canEdit, steadyStates, available }: { jobs: Child[]; canEdit: boolean; steadyStates: StoredSteadyState[]; available: boolean }) {
+export function TimeCoursePanel({
+  jobs,
+  canEdit,
+  steadyStates,
+  available,
+  start = null,
+}: {
+  jobs: Child[];
+  canEdit: boolean;
+  steadyStates: StoredSteadyState[];
+  available: boolean;
+  /** The analysis' initial concentrations (the version's stored ones unless changed), filled in as the default start. */
+  start?: Record<string, string> | null;
+}) {
   return (
     <div className="space-y-3">
       {canEdit && available && (
@@ -160,8 +173,8 @@ export function TimeCoursePanel({ jobs, canEdit, steadyStates, available }: { jo
             <input name="endTime" className={`${field} w-28`} defaultValue="50" />
           </label>
           <label className="flex-1 space-y-0.5 text-sm">
-            <span className="block">Initial concentrations (empty: the analysis' own)</span>
-            <input name="initial" className={`${field} w-full font-mono`} placeholder="e.g. X=2.5" />
+            <span className="block">Initial concentrations (filled in: the analysis' own; empty: the same)</span>
+            <input name="initial" className={`${field} w-full font-mono`} placeholder="e.g. X=2.5" defaultValue={start ? Object.entries(start).map(([k, v]) => `${k}=${v}`).join(", ") : ""} />
           </label>
         </StartForm>
       )}

@@ -19,6 +19,11 @@ export function DiffView({ diff }: { diff: NetworkDiff }) {
           <Group title="Constant species" tone="signal" items={diff.constantsChanged} testId="constants-changed" />
         </div>
       ) : null}
+      {(diff.initialChanged ?? []).length > 0 ? (
+        <div className="md:col-span-2">
+          <Group title="Initial values" tone="signal" items={diff.initialChanged} testId="initial-changed" />
+        </div>
+      ) : null}
     </div>
   );
 }

@@ -109,6 +109,12 @@ export function StructureView({ structure, odes, name }: { structure: NetworkStr
             .
           </p>
         )}
+        {(s.initial ?? []).length > 0 && (
+          <p className="mt-2 text-sm text-muted" data-testid="stored-initial">
+            Initial values stored with this version (the default start of analyses and time courses):{" "}
+            <span className="font-mono text-ink">{(s.initial ?? []).map((i) => `${i.name} = ${i.value}`).join(", ")}</span>.
+          </p>
+        )}
       </Section>
 
       <Section id="stoichiometric-matrix" title="Stoichiometric matrix" help={GLOSSARY.stoichiometricMatrix}>

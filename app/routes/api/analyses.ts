@@ -4,6 +4,8 @@ import { jobResource, readJsonBody, requireMethod } from "~/analyses/api.server"
 import { findJobById, listJobs } from "~/analyses/repository.server";
 import { startAnalysis } from "~/analyses/service.server";
 import { requireNetwork, requireVersion } from "~/networks/pages.server";
+import { requireBody } from "~/api/body";
+import { ANALYSIS_CREATE } from "~/api/schemas";
 import { apiError } from "~/permissions/api-errors";
 import { requireApiLabRole } from "~/permissions/permissions.server";
 import { isUuid } from "~/shared/uuid";
@@ -17,14 +19,14 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 }
 
 /**
- * POST /api/labs/:labSlug/analyses — start one. Body: { networkId, version?, order?, free?, rateMode?,
- * rateValues?, initial?, timeLimitSeconds?, maxBasisSize?, notify? }. 202 with the queued analysis.
+ * POST /api/labs/:labSlug/analyses — start one. Body: ANALYSIS_CREATE (app/api/schemas.ts), checked
+ * by its zod schema, then against the network by the settings parser. 202 with the queued analysis.
  */
 export async function action({ request, params }: Route.ActionArgs) {
   const access = await requireApiLabRole(request, params.labSlug, "editor");
   requireMethod(request, ["POST"]);
-  const body = await readJsonBody(request);
-  const network = await requireNetwork(db(), access, typeof body.networkId === "string" ? body.networkId : undefined, true);
+  const body = requireBody(ANALYSIS_CREATE, await readJsonBody(request));
+  const network = await requireNetwork(db(), access, body.networkId, true);
   const version = await requireVersion(db(), network, body.version === undefined || body.version === null ? null : String(body.version), true);
   const adb = db();
   const outcome = await startAnalysis(adb, access, version, body);

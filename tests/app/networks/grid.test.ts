@@ -100,3 +100,21 @@ describe("constant species in the grid", () => {
     ]);
   });
 });
+
+describe("initial values in the grid", () => {
+  it("reads the `# initial:` line into its own field, writes it back after the rows, and keeps it out of the comment notices", () => {
+    const g = csvToGrid("# initial: X = 1/2\nreaction\nA + 2X <-> 3X\nX <-> B\n# constant: A = 2\n");
+    expect(g.initial).toBe("X = 1/2");
+    expect(g.notices).toEqual([]);
+    const csv = gridToCsv(g.rows, g.constants, g.initial);
+    expect(csv).toBe("reaction\nA + 2X <-> 3X\nX <-> B\n# constant: A = 2\n# initial: X = 1/2\n");
+    expect(parseNetworkCsv(csv).initial?.map((i) => i.name)).toEqual(["X"]);
+  });
+
+  it("reports the field's problems apart from the rows", () => {
+    const rows = [{ ...emptyRow(), reaction: "A + 2X <-> 3X" }];
+    const check = checkGrid(rows, "A = 2", "X = -1, A = 1");
+    expect(check.byRow.size).toBe(0);
+    expect(check.initial.map((p) => p.message)).toEqual(["the initial value `-1` of `X` is negative", "`A` is held constant, so it has no initial value of its own"]);
+  });
+});
