@@ -1,4 +1,4 @@
-import { mkdirSync, readFileSync } from "node:fs";
+import { mkdirSync, readFileSync, writeFileSync } from "node:fs";
 import type { BrowserContext, Locator, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { type E2EBrowser, hasApp, openBrowser } from "./support/browser";
@@ -38,6 +38,7 @@ async function checkExports(page: Page, testId: string, expected: { file: string
 
   const png = await download(page, figure, "Chart (PNG)");
   expect(png.name).toBe(`${expected.file}.png`);
+  writeFileSync(`${SHOTS}/export-${expected.file}.png`, png.bytes); // to look at
   expect(pngSize(png.bytes)).toEqual({ width: Math.round(Math.round(box.width) * dpr), height: Math.round(Math.round(box.height) * dpr) });
 
   const svg = await download(page, figure, "Chart (SVG)");
@@ -119,7 +120,7 @@ describe.skipIf(!hasApp)("chart exports in headless chromium", () => {
     expect(counts.map((r) => r[2])).toEqual(["1", "3", "1"]);
 
     await page.getByTestId("timecourse-form").getByRole("button", { name: "Simulate" }).click();
-    await page.getByTestId("time-course-figure").locator("path.recharts-curve").first().waitFor({ timeout: 60_000 });
+    await page.getByTestId("time-course-figure").locator("path.recharts-curve").first().waitFor({ state: "attached", timeout: 60_000 });
     const course = await checkExports(page, "time-course-figure", {
       file: "time-course",
       axisLabels: ["time", "concentration"],
