@@ -36,4 +36,5 @@ export { type NetworkStructure, type ReactionSummary, analyseStructure } from ".
 export { parseReactionList, formatReactionList } from "./reaction-list";
 export { NETWORK_FORMATS, type NetworkFormat, type NetworkDocument, formatFromName, sniffFormat, readNetworkDocument } from "./formats";
 export { odePython, odeJulia, massActionTerms, type OdeCodeOptions } from "./ode-code";
+export { decodeNetworkFile, textFileProblem, type DecodedFile } from "./text-file";
 export { NETWORK_LIMITS, networkLimitProblems, rateValueWithinLimits } from "./limits";
