@@ -21,7 +21,7 @@ describe.skipIf(!hasTestDatabase)("refused network uploads", () => {
   let api: typeof import("~/routes/api/networks");
   let newPage: typeof import("~/routes/networks-new");
   const versionCount = async () => Number((await t.db.selectFrom("network_versions").select(({ fn }) => fn.countAll<string>().as("c")).executeTakeFirstOrThrow()).c);
-  const upload = (name: string, bytes: Uint8Array | string, type = "text/csv") => {
+  const upload = (name: string, bytes: Uint8Array<ArrayBuffer> | string, type = "text/csv") => {
     const form = new FormData();
     form.set("file", new File([bytes], name, { type }));
     form.set("name", "Upload");
@@ -65,7 +65,7 @@ describe.skipIf(!hasTestDatabase)("refused network uploads", () => {
 
   it("answers a binary file with one line naming the first binary byte, echoing none of it", async () => {
     const before = await versionCount();
-    const gz = new Uint8Array(gzipSync(Buffer.from("reaction,rate\n" + 'A -> B,"k1\n'.repeat(300))));
+    const gz: Uint8Array<ArrayBuffer> = new Uint8Array(gzipSync(Buffer.from("reaction,rate\n" + 'A -> B,"k1\n'.repeat(300))));
     const res = await run(api.action, upload("network.csv", gz), gamma);
     expect(res.status).toBe(400);
     const error = (res.body as ErrorBody).error;
