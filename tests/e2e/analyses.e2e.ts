@@ -200,6 +200,9 @@ describe.skipIf(!hasApp)("analyses in headless chromium", () => {
     expect(await shared.getByTestId("steady-state-row").count()).toBe(1);
     expect(await shared.getByTestId("relation-form").count()).toBe(0);
     expect(await shared.getByTestId("scan-chart").count()).toBe(1);
+    // The reactions and rate values analysed are part of the shared copy.
+    expect(await shared.getByTestId("analysed-reaction").count()).toBe(6);
+    expect(await shared.getByTestId("rate-value-r3").innerText()).toBe("2");
     // No member names leave the lab through a share link.
     expect(await shared.locator("main").innerText()).not.toContain(starter!);
     await shot(shared, "06-shared-signed-out");
