@@ -26,9 +26,14 @@ async function overflow(page: Page): Promise<{ scrollWidth: number; innerWidth: 
       return false;
     };
     const culprits: string[] = [];
+    const sticksOut = (el: Element) => {
+      const r = el.getBoundingClientRect();
+      return r.right > w + 0.5 && r.width > 0 && !scrolls(el.parentElement);
+    };
     for (const el of document.body.querySelectorAll("*")) {
       const r = el.getBoundingClientRect();
-      if (r.right > w + 0.5 && r.width > 0 && !scrolls(el.parentElement)) {
+      // The innermost elements that stick out: the ones to fix.
+      if (sticksOut(el) && ![...el.children].some(sticksOut)) {
         const id = el.getAttribute("data-testid");
         culprits.push(`${el.tagName.toLowerCase()}${id ? `[${id}]` : ""}.${String(el.getAttribute("class") ?? "").split(" ").slice(0, 4).join(".")} right=${Math.round(r.right)}`);
       }

@@ -28,7 +28,7 @@ export function AnalysisBody({ d, canEdit, exportBase, scanCsvBase }: { d: Analy
           {d.job.network.name}, version {d.job.network.version} · engine {d.job.engineVersion}
         </span>
       </div>
-      <dl className="grid gap-x-6 gap-y-1 text-sm sm:grid-cols-2" data-testid="settings">
+      <dl className="grid grid-cols-1 gap-x-6 gap-y-1 text-sm sm:grid-cols-2" data-testid="settings">
         <div>
           <dt className="inline text-muted">Order: </dt>
           <dd className="inline font-mono">{p.order ? p.order.join(" > ") : "suggested"}{p.free.length > 0 ? `; free: ${p.free.join(", ")}` : ""}</dd>
@@ -70,7 +70,7 @@ export function AnalysisBody({ d, canEdit, exportBase, scanCsvBase }: { d: Analy
               </a>
             ))}
           </div>
-          <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_18rem]">
+          <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,1fr)_18rem]">
             <ResultsView view={d.view} result={d.result} />
             <div className="lg:sticky lg:top-4 lg:self-start">
               <Assumptions numeric={d.numeric} />

@@ -139,7 +139,7 @@ export function NetworkEditor({
       )}
 
       {mode === "create" && details && (
-        <fieldset className="grid gap-4 md:grid-cols-2">
+        <fieldset className="grid grid-cols-1 gap-4 md:grid-cols-2">
           <label className="space-y-1 text-sm font-medium">
             Name
             <input name="name" defaultValue={details.name} required maxLength={200} className={inputCls} aria-invalid={Boolean(fields.name)} />
@@ -157,7 +157,7 @@ export function NetworkEditor({
         </fieldset>
       )}
 
-      <div className="grid gap-4 md:grid-cols-[minmax(0,1fr)_auto]">
+      <div className="grid grid-cols-1 gap-4 md:grid-cols-[minmax(0,1fr)_auto]">
         <div
           className={`flex flex-col items-center justify-center gap-2 rounded-card border-2 border-dashed px-6 py-5 text-center text-sm ${dragging ? "border-accent bg-accent-soft" : "border-line bg-surface"}`}
           onDragOver={(e) => {
