@@ -128,6 +128,13 @@ describe.skipIf(!hasApp)("phone widths in headless chromium", () => {
           expect(o.innerWidth).toBe(390);
           if (o.scrollWidth > o.innerWidth) wide.push(`${p.name} (${p.path}): ${o.scrollWidth} > ${o.innerWidth}; ${o.culprits.join(", ")}`);
         }
+        if (p.name === "analysis") {
+          // The scan's plot is drawn at its own size and scrolls sideways inside its box.
+          const figure = page.getByTestId("scan-branches-figure");
+          await figure.locator("path.recharts-curve").first().waitFor({ state: "attached" });
+          await figure.scrollIntoViewIfNeeded();
+          await figure.screenshot({ path: `${SHOTS}/${label}-scan-figure.png` });
+        }
         await page.screenshot({ path: `${SHOTS}/${label}-${p.name}.png`, fullPage: true });
         await page.close();
       }

@@ -56,7 +56,7 @@ export function StructureView({ structure, name }: { structure: NetworkStructure
               {s.reactionList.map((r) => (
                 <tr key={r.id} className="border-b border-line last:border-0">
                   <td className={`${td} text-muted`}>{r.id}</td>
-                  <td className={`${td} font-mono`}>
+                  <td className={`${td} whitespace-nowrap font-mono`}>
                     {r.reactant} → {r.product}
                   </td>
                   <td className={`${td} font-mono`}>{r.rate}</td>
