@@ -46,14 +46,6 @@ export function AnalysisBody({ d, canEdit, exportBase, scanCsvBase }: { d: Analy
           <dd className="inline">{p.timeLimitSeconds} s, basis ≤ {p.maxBasisSize} polynomials</dd>
         </div>
       </dl>
-      <details className="rounded-md border border-line bg-surface px-4 py-2 text-sm" data-testid="analysed-network" open={!canEdit}>
-        <summary className="cursor-pointer font-medium">
-          Reactions and rate values analysed ({d.network.reactions.length} reaction{d.network.reactions.length === 1 ? "" : "s"}, version {d.job.network.version})
-        </summary>
-        <div className="mt-2">
-          <AnalysedNetworkView network={d.network} />
-        </div>
-      </details>
       <ProgressPanel job={d.job} canCancel={canEdit} />
       {d.job.error && (
         <p role="alert" className="rounded-md border border-danger bg-danger-soft px-4 py-3 text-sm text-danger" data-testid="job-error">
@@ -76,6 +68,14 @@ export function AnalysisBody({ d, canEdit, exportBase, scanCsvBase }: { d: Analy
               <Assumptions numeric={d.numeric} />
             </div>
           </div>
+          <details className="rounded-md border border-line bg-surface px-4 py-2 text-sm" data-testid="analysed-network" open={!canEdit}>
+            <summary className="cursor-pointer font-medium">
+              Reactions and rate values analysed ({d.network.reactions.length} reaction{d.network.reactions.length === 1 ? "" : "s"}, version {d.job.network.version})
+            </summary>
+            <div className="mt-2">
+              <AnalysedNetworkView network={d.network} />
+            </div>
+          </details>
           <Part id="relation" title="Relation test" help="Does an expression vanish at every positive steady state? Decided exactly by ideal membership in the saturated steady-state ideal; if not, the remainder is shown.">
             <RelationPanel jobs={d.relations} canEdit={canEdit} />
           </Part>
