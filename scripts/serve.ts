@@ -13,7 +13,7 @@ import path from "node:path";
 import { pathToFileURL } from "node:url";
 import { Readable } from "node:stream";
 import type { ServerBuild } from "react-router";
-import { bodyLimitFor, errorBody, nulLocation, SECURITY_HEADERS } from "./lib/request-guards";
+import { binaryFilePart, bodyLimitFor, errorBody, nulLocation, SECURITY_HEADERS } from "./lib/request-guards";
 
 const CONTENT_TYPES: Record<string, string> = {
   ".js": "text/javascript; charset=utf-8",
@@ -147,7 +147,11 @@ function guardBody(req: http.IncomingMessage, res: http.ServerResponse): Promise
       const body = Buffer.concat(chunks);
       const nul = nulLocation(String(req.headers["content-type"] ?? ""), body);
       if (nul) {
-        refuse(req, res, 400, errorBody("invalid_request", `The request contains a NUL character in ${nul}; remove it and send again.`, { where: nul }));
+        const file = binaryFilePart(String(req.headers["content-type"] ?? ""), body);
+        const message = file
+          ? `${file.filename || "The uploaded file"}: this is not a text file: binary content at byte ${file.byte} (0x00, line ${file.line}); nothing was saved.`
+          : `The request contains a NUL character in ${nul}; remove it and send again.`;
+        refuse(req, res, 400, errorBody("invalid_request", message, file ? { where: nul, problems: [{ row: file.line, message: `this is not a text file: binary content at byte ${file.byte} (0x00, line ${file.line})`, expected: "a text file in UTF-8, such as a CSV saved from a spreadsheet or a text editor" }] } : { where: nul }));
         return resolve(undefined);
       }
       // The app reads the body from this copy; everything else is the original request's.

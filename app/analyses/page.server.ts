@@ -1,4 +1,5 @@
 /** Everything the analysis page (and its read-only shared copy) shows, as plain JSON. */
+import { analysedNetwork } from "./analysed-network";
 import { rateSymbols } from "./params";
 import type { AnalysisParams } from "./params";
 import { presentResult } from "./present";
@@ -24,6 +25,8 @@ export async function analysisPageData(db: DbExecutor, job: JobRecord, options: 
     view: result ? presentResult(result, params) : null,
     rates: rateSymbols(network),
     species: [...network.species],
+    // The pinned version's reactions and the rate values the run used (also on share links, which grant this version).
+    network: analysedNetwork(version.csv, params),
     numeric: params.rateMode === "numeric" && params.initial !== null,
     relations: childJson("relation"),
     scans: childJson("scan"),

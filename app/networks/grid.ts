@@ -57,6 +57,12 @@ export interface LoadedGrid {
   initial: string;
   /** Things the grid could not keep (unknown columns, unreadable header), in plain words. */
   notices: string[];
+  /**
+   * Data of the file the grid has no place for: each unknown column by name (its cells would be
+   * lost, e.g. rate names under `rate_constant`), or the extra cells of a file without a header.
+   * The editor refuses such a file rather than load it without them.
+   */
+  dropped: NetworkFileProblem[];
 }
 
 /**
@@ -78,24 +84,38 @@ export function csvToGrid(text: string): LoadedGrid {
   const commentNotices: string[] = [];
   for (const c of table.comments)
     if (!CONSTANT_DIRECTIVE.test(c.text) && !INITIAL_DIRECTIVE.test(c.text)) commentNotices.push(`The comment on line ${c.line} (\`${c.text.trim().slice(0, 80)}\`) is not kept by the grid.`);
-  if (!table.header) return { rows: [emptyRow()], constants, initial, notices: ["The file is empty: start typing reactions below.", ...commentNotices] };
+  if (!table.header) return { rows: [emptyRow()], constants, initial, notices: ["The file is empty: start typing reactions below.", ...commentNotices], dropped: [] };
   const columnOf = new Map<number, NetworkColumn>();
+  const dropped: NetworkFileProblem[] = [];
+  const hasData = (j: number) => table.rows.some((r) => (r.cells[j] ?? "") !== "");
   table.header.cells.forEach((cell, j) => {
     const name = cell.toLowerCase();
     if ((NETWORK_COLUMNS as readonly string[]).includes(name) && ![...columnOf.values()].includes(name as NetworkColumn)) {
       columnOf.set(j, name as NetworkColumn);
-    } else if (cell !== "") {
+    } else if (cell !== "" || hasData(j)) {
+      const what = cell === "" ? "a column without a name" : `unknown column \`${cell}\``;
       notices.push(`Column \`${cell}\` (line ${table.header!.line}, column ${j + 1}) is not one of ${NETWORK_COLUMNS.join(", ")}; it was left out.`);
+      dropped.push({ row: table.header!.line, columnIndex: j + 1, column: cell, message: `${what}: the grid has no place for its cells`, expected: `one of ${NETWORK_COLUMNS.join(", ")} (rename the column, or delete it if its cells are not needed)` });
     }
   });
   let rowsIn = table.rows;
   if (![...columnOf.values()].includes("reaction")) {
     // No usable header: read every line (the first included) as reaction text in column 1.
     notices.length = 0;
+    dropped.length = 0;
     notices.push(`Line ${table.header.line} is not a header naming a \`reaction\` column; every line was read as a reaction in the first column.`);
     columnOf.clear();
     columnOf.set(0, "reaction");
     rowsIn = [table.header, ...table.rows];
+    const extra = rowsIn.filter((l) => l.cells.slice(1).some((c) => c !== ""));
+    if (extra.length > 0) {
+      dropped.push({
+        row: extra[0]!.line,
+        columnIndex: 2,
+        message: `the file has no header naming its columns, and ${extra.length === 1 ? "line" : "lines"} ${extra.slice(0, 5).map((l) => l.line).join(", ")}${extra.length > 5 ? ", …" : ""} ${extra.length === 1 ? "has" : "have"} cells after the reaction that could only be guessed at`,
+        expected: `a first line naming the columns, such as \`${NETWORK_COLUMNS.slice(0, 3).join(",")}\``,
+      });
+    }
   }
   const rows = rowsIn.map((line) => {
     const row: GridRow = { ...emptyRow(), sourceLine: line.line };
@@ -103,7 +123,7 @@ export function csvToGrid(text: string): LoadedGrid {
     return row;
   });
   for (const p of table.problems) notices.push(`Line ${p.row}: ${p.message}.`);
-  return { rows: rows.length > 0 ? rows : [emptyRow()], constants, initial, notices: [...notices, ...commentNotices] };
+  return { rows: rows.length > 0 ? rows : [emptyRow()], constants, initial, notices: [...notices, ...commentNotices], dropped };
 }
 
 export interface GridCheck {

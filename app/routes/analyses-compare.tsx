@@ -76,7 +76,7 @@ export default function Compare({ loaderData: d }: Route.ComponentProps) {
   return (
     <div className="space-y-4">
       <h1 className="text-2xl font-semibold tracking-tight">Compare two analyses of {d.a.job.network.name}</h1>
-      <div className="grid gap-4 md:grid-cols-2">
+      <div className="grid grid-cols-1 gap-4 md:grid-cols-2">
         <Column s={d.a} labSlug={d.lab.slug} />
         <Column s={d.b} labSlug={d.lab.slug} />
       </div>

@@ -67,7 +67,7 @@ export default function NewAnalysis({ loaderData: d, actionData }: Route.Compone
         </p>
       </header>
       {actionData?.problems && <Problems problems={actionData.problems} />}
-      <Form method="post" className="grid gap-8 lg:grid-cols-2">
+      <Form method="post" className="grid grid-cols-1 gap-8 lg:grid-cols-2">
         <fieldset className="space-y-3">
           <legend className="mb-2 font-semibold">Elimination order</legend>
           <OrderEditor suggested={d.suggested} reason={d.reason} />

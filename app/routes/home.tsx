@@ -37,7 +37,7 @@ const COMPUTES = [
 export default function Home() {
   return (
     <div className="space-y-16">
-      <section className="grid gap-10 md:grid-cols-[1.15fr_1fr] md:items-center">
+      <section className="grid grid-cols-1 gap-10 md:grid-cols-[1.15fr_1fr] md:items-center">
         <div>
           <p className="text-sm font-semibold uppercase tracking-wide text-accent">For reaction-network modellers</p>
           <h1 className="mt-3 text-3xl font-semibold tracking-tight text-ink">
@@ -84,7 +84,7 @@ export default function Home() {
         </ul>
       </section>
 
-      <section aria-labelledby="how" className="grid gap-6 md:grid-cols-3">
+      <section aria-labelledby="how" className="grid grid-cols-1 gap-6 md:grid-cols-3">
         <h2 id="how" className="sr-only">
           How it works
         </h2>

@@ -46,7 +46,7 @@ export default function Labs({ loaderData, actionData }: Route.ComponentProps) {
       {labs.length === 0 ? (
         <p className="card text-muted">You are not in any lab yet. Create one below, or accept an invitation from a colleague.</p>
       ) : (
-        <ul className="grid gap-3 md:grid-cols-2" data-testid="lab-list">
+        <ul className="grid grid-cols-1 gap-3 md:grid-cols-2" data-testid="lab-list">
           {labs.map((lab) => (
             <li key={lab.id} className="card flex items-center justify-between gap-4 p-4">
               <div>

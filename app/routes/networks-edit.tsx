@@ -6,6 +6,7 @@ import { requireNetwork, requireVersion } from "~/networks/pages.server";
 import { networkPath } from "~/networks/paths";
 import { saveVersion } from "~/networks/save.server";
 import { NetworkEditor } from "~/networks/ui/network-editor";
+import { apiStatus } from "~/permissions/api-errors";
 import { requireLabRole } from "~/permissions/permissions.server";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `Edit ${data?.network.name ?? "network"} · Stillpoint` }];
@@ -22,7 +23,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const network = await requireNetwork(db(), access, params.networkId);
   const form = await request.formData();
   const result = await saveVersion(db(), network, { authorId: access.user.id, csv: form.get("csv"), changeNote: form.get("changeNote") });
-  if (!result.ok) return data({ error: { code: result.code, message: result.message, details: result.details } }, { status: result.code === "conflict" ? 409 : 400 });
+  if (!result.ok) return data({ error: { code: result.code, message: result.message, details: result.details } }, { status: apiStatus(result.code) });
   throw redirect(`${networkPath(access.lab.slug, network.id)}/versions?from=${result.version.number - 1}&to=${result.version.number}`);
 }
 

@@ -60,32 +60,34 @@ export default function VersionsPage({ loaderData }: Route.ComponentProps) {
       <DiffView diff={comparison.diff} />
       <section className="space-y-2">
         <h2 className="text-lg font-semibold">All versions</h2>
-        <table className="w-full text-sm">
-          <thead className="border-b border-line text-left text-xs uppercase tracking-wide text-muted">
-            <tr>
-              <th className="py-1.5 pr-4">Version</th>
-              <th className="py-1.5 pr-4">Saved</th>
-              <th className="py-1.5 pr-4">Author</th>
-              <th className="py-1.5 pr-4">Change note</th>
-              <th className="py-1.5 pr-4">Content hash (SHA-256)</th>
-            </tr>
-          </thead>
-          <tbody>
-            {versions.map((v) => (
-              <tr key={v.number} className="border-b border-line">
-                <td className="py-1.5 pr-4">
-                  <Link to={`${base}?v=${v.number}`} className="text-accent-strong hover:underline">
-                    v{v.number}
-                  </Link>
-                </td>
-                <td className="py-1.5 pr-4 whitespace-nowrap">{formatDateTime(v.createdAt)}</td>
-                <td className="py-1.5 pr-4">{v.author ?? "former member"}</td>
-                <td className="py-1.5 pr-4">{v.changeNote}</td>
-                <td className="py-1.5 pr-4 font-mono text-xs text-muted">{v.contentHash.slice(0, 16)}…</td>
+        <div className="relative overflow-x-auto">
+          <table className="w-full text-sm">
+            <thead className="border-b border-line text-left text-xs uppercase tracking-wide text-muted">
+              <tr>
+                <th className="py-1.5 pr-4">Version</th>
+                <th className="py-1.5 pr-4">Saved</th>
+                <th className="py-1.5 pr-4">Author</th>
+                <th className="py-1.5 pr-4">Change note</th>
+                <th className="py-1.5 pr-4">Content hash (SHA-256)</th>
               </tr>
-            ))}
-          </tbody>
-        </table>
+            </thead>
+            <tbody>
+              {versions.map((v) => (
+                <tr key={v.number} className="border-b border-line">
+                  <td className="py-1.5 pr-4">
+                    <Link to={`${base}?v=${v.number}`} className="text-accent-strong hover:underline">
+                      v{v.number}
+                    </Link>
+                  </td>
+                  <td className="py-1.5 pr-4 whitespace-nowrap">{formatDateTime(v.createdAt)}</td>
+                  <td className="py-1.5 pr-4">{v.author ?? "former member"}</td>
+                  <td className="py-1.5 pr-4">{v.changeNote}</td>
+                  <td className="py-1.5 pr-4 font-mono text-xs text-muted">{v.contentHash.slice(0, 16)}…</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
       </section>
     </div>
   );

@@ -1,3 +1,4 @@
+import { textFileProblem } from "./text-file";
 import type { Rational } from "../algebra/rational";
 import type { NetworkFileProblem } from "./errors";
 import type { Network } from "./model";
@@ -57,6 +58,9 @@ export function readNetworkDocument(
   text: string,
   format: NetworkFormat,
 ): { ok: true; document: NetworkDocument } | { ok: false; format: NetworkFormat; problems: readonly NetworkFileProblem[]; notes: readonly string[] } {
+  // Binary or mis-decoded text gets one problem, whatever the format (the CSV parser checks it itself).
+  const notText = format === "csv" ? null : textFileProblem(text);
+  if (notText) return { ok: false, format, problems: [notText], notes: [] };
   switch (format) {
     case "csv": {
       const r = tryParseNetworkCsv(text);

@@ -37,4 +37,5 @@ export { type TheoremVerdict, deficiencyZeroVerdict, deficiencyOneVerdict } from
 export { type NetworkStructure, type ReactionSummary, analyseStructure } from "./structure";
 export { parseReactionList, formatReactionList } from "./reaction-list";
 export { NETWORK_FORMATS, type NetworkFormat, type NetworkDocument, formatFromName, sniffFormat, readNetworkDocument } from "./formats";
+export { decodeNetworkFile, textFileProblem, type DecodedFile } from "./text-file";
 export { NETWORK_LIMITS, networkLimitProblems, rateValueWithinLimits } from "./limits";

@@ -7,6 +7,7 @@ import type { Arrow, ConstantSpecies, DirectedReaction, InitialValue, Network, N
 import { readConstantDeclarations, splitComplex, type DeclaredConstant } from "./constant-species";
 import { readInitialDeclarations, type DeclaredInitial } from "./initial-values";
 import { parseReactionText } from "./reaction-text";
+import { textFileProblem } from "./text-file";
 import { defaultRateName } from "./rate-names";
 
 export const NETWORK_COLUMNS = ["reaction", "label", "rate", "reverse_rate", "rate_value", "reverse_rate_value"] as const;
@@ -71,6 +72,9 @@ export function parseNetworkCsv(text: string): Network {
 export function tryParseNetworkCsv(
   text: string,
 ): { ok: true; network: Network } | { ok: false; problems: readonly NetworkFileProblem[] } {
+  // A binary file or mis-decoded text: one clear problem, not a complaint per stray byte.
+  const notText = textFileProblem(text);
+  if (notText) return { ok: false, problems: [notText] };
   const table = readCsvTable(text);
   const problems: NetworkFileProblem[] = [...table.problems];
   if (!table.header) {

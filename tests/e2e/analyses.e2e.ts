@@ -119,17 +119,17 @@ describe.skipIf(!hasApp)("analyses in headless chromium", () => {
     const chart = page.getByTestId("scan-chart");
     await chart.waitFor({ timeout: 90_000 });
     await expect.poll(() => chart.locator("path.recharts-curve").count()).toBeGreaterThan(0);
-    const csvHref = await chart.getByRole("link", { name: "Plot data (CSV)" }).getAttribute("href");
+    const csvHref = await chart.getByRole("link", { name: "All steady states, every species (CSV)" }).getAttribute("href");
     expect(csvHref).toMatch(/\/export\/scan-[0-9a-f-]{36}\.csv$/);
     const csv = await (await page.request.get(csvHref!)).text();
     expect(csv.split("\n")[0]).toBe("c1,state,count,verdict,S0,K,S0K,S1,F,S1F");
     expect(csv.trim().split("\n")).toHaveLength(9);
-    const [download] = await Promise.all([page.waitForEvent("download"), chart.getByRole("button", { name: "Chart (SVG)" }).click()]);
+    const [download] = await Promise.all([page.waitForEvent("download"), chart.getByTestId("scan-branches-figure").getByRole("button", { name: "Chart (SVG)" }).click()]);
     expect(download.suggestedFilename()).toBe("scan-c1-S0.svg");
     const svg = readFileSync((await download.path())!, "utf8");
     expect(svg).toMatch(/^<svg[^>]*xmlns="http:\/\/www.w3.org\/2000\/svg"/);
     expect(svg).toContain("recharts-curve");
-    const [png] = await Promise.all([page.waitForEvent("download"), chart.getByRole("button", { name: "Chart (PNG)" }).click()]);
+    const [png] = await Promise.all([page.waitForEvent("download"), chart.getByTestId("scan-branches-figure").getByRole("button", { name: "Chart (PNG)" }).click()]);
     expect(png.suggestedFilename()).toBe("scan-c1-S0.png");
     const pngBytes = readFileSync((await png.path())!);
     // PNG signature (ISO/IEC 15948, §5.2) and a non-trivial image.
@@ -203,6 +203,9 @@ describe.skipIf(!hasApp)("analyses in headless chromium", () => {
     expect(await shared.getByTestId("steady-state-row").count()).toBe(1);
     expect(await shared.getByTestId("relation-form").count()).toBe(0);
     expect(await shared.getByTestId("scan-chart").count()).toBe(1);
+    // The reactions and rate values analysed are part of the shared copy.
+    expect(await shared.getByTestId("analysed-reaction").count()).toBe(6);
+    expect(await shared.getByTestId("rate-value-r3").innerText()).toBe("2");
     // No member names leave the lab through a share link.
     expect(await shared.locator("main").innerText()).not.toContain(starter!);
     await shot(shared, "06-shared-signed-out");

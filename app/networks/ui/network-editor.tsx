@@ -1,6 +1,6 @@
 import { useMemo, useRef, useState } from "react";
 import { Form, useNavigation } from "react-router";
-import { formatProblem, tryParseNetworkCsv, type NetworkFileProblem } from "@domain/network/index";
+import { decodeNetworkFile, formatProblem, tryParseNetworkCsv, type NetworkFileProblem } from "@domain/network/index";
 import { checkGrid, csvToGrid, emptyRow, MAX_CSV_BYTES, MAX_CSV_LABEL, moveRow, type GridRow } from "../grid";
 import type { DemoNetwork } from "../demos";
 import { importFormat, importNetworkText } from "../import-file";
@@ -76,7 +76,14 @@ export function NetworkEditor({
       setNotices([`${file.name} is ${Math.ceil(file.size / 1024)} KB; the limit is ${MAX_CSV_LABEL}.`]);
       return;
     }
-    const text = await file.text();
+    // Bytes first: a binary file or another encoding gets one located line, and the grid stays as it was.
+    const decoded = decodeNetworkFile(new Uint8Array(await file.arrayBuffer()));
+    if (!decoded.ok) {
+      setNotices([]);
+      setFileProblems({ name: file.name, problems: [decoded.problem] });
+      return;
+    }
+    const text = decoded.text;
     const format = importFormat(file.name, file.type, text);
     if (format !== "csv") {
       // SBML or a reaction list: read in full first; a refused file leaves the grid as it was
@@ -96,6 +103,12 @@ export function NetworkEditor({
       return;
     }
     const loaded = csvToGrid(text);
+    if (loaded.dropped.length > 0) {
+      // Loading would lose these cells (rate names under an unknown column, say): refuse, and name them.
+      setNotices([`Nothing was loaded from ${file.name}: the grid has no place for some of its data. Rename or remove the columns below and upload it again.`]);
+      setFileProblems({ name: file.name, problems: loaded.dropped });
+      return;
+    }
     const parsed = tryParseNetworkCsv(text);
     edit(() => loaded.rows);
     setConstants(loaded.constants);
@@ -138,7 +151,7 @@ export function NetworkEditor({
       )}
 
       {mode === "create" && details && (
-        <fieldset className="grid gap-4 md:grid-cols-2">
+        <fieldset className="grid grid-cols-1 gap-4 md:grid-cols-2">
           <label className="space-y-1 text-sm font-medium">
             Name
             <input name="name" defaultValue={details.name} required maxLength={200} className={inputCls} aria-invalid={Boolean(fields.name)} />
@@ -156,7 +169,7 @@ export function NetworkEditor({
         </fieldset>
       )}
 
-      <div className="grid gap-4 md:grid-cols-[minmax(0,1fr)_auto]">
+      <div className="grid grid-cols-1 gap-4 md:grid-cols-[minmax(0,1fr)_auto]">
         <div
           className={`flex flex-col items-center justify-center gap-2 rounded-card border-2 border-dashed px-6 py-5 text-center text-sm ${dragging ? "border-accent bg-accent-soft" : "border-line bg-surface"}`}
           onDragOver={(e) => {

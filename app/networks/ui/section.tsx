@@ -1,7 +1,7 @@
 /** A page section with its plain-language help beside it (below it on narrow screens). */
 export function Section({ id, title, help, children }: { id: string; title: string; help: string; children: React.ReactNode }) {
   return (
-    <section id={id} aria-labelledby={`${id}-title`} className="grid gap-4 border-t border-line pt-6 lg:grid-cols-[minmax(0,1fr)_18rem]">
+    <section id={id} aria-labelledby={`${id}-title`} className="grid grid-cols-1 gap-4 border-t border-line pt-6 lg:grid-cols-[minmax(0,1fr)_18rem]">
       <div className="min-w-0 space-y-3">
         <h2 id={`${id}-title`} className="text-lg font-semibold tracking-tight">
           {title}

@@ -4,6 +4,7 @@ import { GLOSSARY } from "../glossary";
 import { layoutComplexGraph } from "../graph-layout";
 import type { SpeciesOde } from "@domain/steady-state/ode-terms";
 import { ComplexGraph, classColour } from "./complex-graph";
+import { speciesRoles } from "../species-roles";
 import { OdesView } from "./odes-view";
 import { Section, Stat } from "./section";
 
@@ -54,7 +55,7 @@ export function StructureView({ structure, odes, name }: { structure: NetworkStr
               {s.reactionList.map((r) => (
                 <tr key={r.id} className="border-b border-line last:border-0">
                   <td className={`${td} text-muted`}>{r.id}</td>
-                  <td className={`${td} font-mono`}>
+                  <td className={`${td} whitespace-nowrap font-mono`}>
                     {r.reactant} → {r.product}
                   </td>
                   <td className={`${td} font-mono`}>{r.rate}</td>
@@ -74,16 +75,17 @@ export function StructureView({ structure, odes, name }: { structure: NetworkStr
             <thead className="border-b border-line bg-sunken">
               <tr>
                 <th className={th}>Species</th>
-                <th className={th}>Made by</th>
-                <th className={th}>Used by</th>
+                <th className={th} title="Reactions that increase the species on balance">
+                  Made by
+                </th>
+                <th className={th} title="Reactions with the species among their reactants, also when they make more of it">
+                  Used by
+                </th>
                 <th className={th}>In conservation laws</th>
               </tr>
             </thead>
             <tbody>
-              {s.species.map((sp, i) => {
-                const row = s.stoichiometricMatrix[i]!;
-                const made = s.reactionList.filter((_, j) => row[j]! > 0).map((r) => r.id);
-                const used = s.reactionList.filter((_, j) => row[j]! < 0).map((r) => r.id);
+              {speciesRoles(s).map(({ species: sp, madeBy: made, usedBy: used }) => {
                 const inLaws = laws.map((l, k) => (l[sp] ? k + 1 : 0)).filter(Boolean);
                 return (
                   <tr key={sp} className="border-b border-line last:border-0">

@@ -155,6 +155,29 @@ describe.skipIf(!hasTestDatabase)("analyses permission matrix", () => {
     expect(stored.token_hash).toMatch(/^[0-9a-f]{64}$/);
   });
 
+  it("a share link shows the analysed version's reactions and rate values, and nothing of later versions", async () => {
+    const share = await import("~/analyses/share.server");
+    const page = await import("~/routes/share");
+    const { appendVersion } = await import("~/networks/networks.server");
+    const adb = t.db;
+    const link = await share.createShareLink(adb, x.done, ids.owner, 1);
+    // A later version of the network with other values and an extra reaction: not part of what the link grants.
+    await appendVersion(t.db, x.networkId, { csv: CYCLE.replace("S1F -> S0 + F,c2,,3/2,", "S1F -> S0 + F,c2,,9,\nS1 -> 0,secret_k,,5,"), changeNote: "later", authorId: ids.owner });
+    const open = await run(page.loader, makeRequest(`/share/${link.token}`), { token: link.token });
+    expect(open.status).toBe(200);
+    type Shared = { page: { network: { reactions: { id: string; reaction: string; rate: string; usedValue: string | null }[] } } };
+    const reactions = (open.body as Shared).page.network.reactions;
+    expect(reactions.map((r) => [r.id, r.reaction, r.rate, r.usedValue])).toEqual([
+      ["r1", "K + S0 → S0K", "a1", "1"],
+      ["r2", "S0K → K + S0", "d1", "1/2"],
+      ["r3", "S0K → K + S1", "c1", "2"],
+      ["r4", "F + S1 → S1F", "a2", "1"],
+      ["r5", "S1F → F + S1", "d2", "1"],
+      ["r6", "S1F → F + S0", "c2", "3/2"],
+    ]);
+    expect(JSON.stringify(open.body)).not.toContain("secret_k");
+  });
+
   it("validation problems come back located, in the API's error shape", async () => {
     const api = await import("~/routes/api/analyses");
     const out = await run(api.action, makeRequest("/api/labs/alpha/analyses", { bearer: tokens.editor, json: { networkId: x.networkId, initial: { Q: "1", S0: "-2" }, timeLimitSeconds: 99999 } }), alpha());
