@@ -86,7 +86,7 @@ export async function requireVersion(db: Kysely<Database>, network: NetworkRecor
 }
 
 export interface NetworkPageData {
-  lab: { slug: string; name: string };
+  lab: { slug: string; name: string; isPublic: boolean };
   network: NetworkJson;
   version: VersionJson;
   latestNumber: number;
@@ -94,13 +94,15 @@ export interface NetworkPageData {
   structure: NetworkStructure;
   canEdit: boolean;
   canDelete: boolean;
+  /** Reading a public lab (the worked examples) without being a member. */
+  guest: boolean;
 }
 
 export async function networkPageData(db: Kysely<Database>, access: LabAccess, network: NetworkRecord, versionParam: string | null): Promise<NetworkPageData> {
   const version = await requireVersion(db, network, versionParam);
   const versions = await listVersions(db, network.id);
   return {
-    lab: { slug: access.lab.slug, name: access.lab.name },
+    lab: { slug: access.lab.slug, name: access.lab.name, isPublic: access.lab.isPublic },
     network: networkJson(network),
     version: versionJson(version),
     latestNumber: versions[0]!.number,
@@ -108,6 +110,7 @@ export async function networkPageData(db: Kysely<Database>, access: LabAccess, n
     structure: structureOf(version.csv),
     canEdit: hasRole(access.role, "editor"),
     canDelete: hasRole(access.role, "owner"),
+    guest: access.guest,
   };
 }
 
