@@ -7,8 +7,9 @@ import type { Kysely } from "kysely";
 import type { Database } from "../app/db/schema";
 import { DEMO_NETWORKS } from "./demo-data";
 import { upsertNetworks } from "./demo";
+import { EXAMPLE_LAB } from "../app/labs/example-lab";
 
-export const EXAMPLE_LAB = { slug: "worked-examples", name: "Worked examples" };
+export { EXAMPLE_LAB };
 
 export async function seedExamples(db: Kysely<Database>): Promise<{ labId: string; versionsAdded: number }> {
   return db.transaction().execute(async (trx) => {
