@@ -12,12 +12,30 @@ import { signInWithCode } from "./accounts-helpers";
  */
 const SHOTS = "test-results/first-steps";
 
+/** Full page, plus the first screenful alone (easier to read), at a desktop and a phone width. */
 async function shotAt(page: Page, name: string) {
   for (const width of [1366, 390]) {
     await page.setViewportSize({ width, height: 900 });
     await page.screenshot({ path: `${SHOTS}/${name}-${width}.png`, fullPage: true });
+    await page.screenshot({ path: `${SHOTS}/${name}-${width}-top.png` });
   }
   await page.setViewportSize({ width: 1280, height: 900 });
+}
+
+/** Elements (by test id or tag and class) whose right edge passes the viewport: empty when the page fits. */
+async function overflowing(page: Page, within: string): Promise<string[]> {
+  return page.locator(within).evaluateAll((roots) => {
+    const out: string[] = [];
+    const width = document.documentElement.clientWidth;
+    for (const root of roots)
+      for (const el of [root, ...root.querySelectorAll("*")]) {
+        // Scroll boxes may hold wide tables and formulas; what they clip does not widen the page.
+        if (el.closest("[class*=overflow-x-auto]") && el !== el.closest("[class*=overflow-x-auto]")) continue;
+        const r = el.getBoundingClientRect();
+        if (r.width > 0 && r.right > width + 1) out.push(`${el.tagName.toLowerCase()}.${(el.getAttribute("class") ?? "").split(" ").slice(0, 3).join(".")} → ${Math.round(r.right)}`);
+      }
+    return out.slice(0, 20);
+  });
 }
 
 describe.skipIf(!hasApp)("first steps for a new address", () => {
@@ -55,6 +73,11 @@ describe.skipIf(!hasApp)("first steps for a new address", () => {
     expect(await page.getByRole("link", { name: "Edit as new version" }).count()).toBe(0);
     expect(await page.getByTestId("start-analysis").count()).toBe(0);
     await shotAt(page, "02-example-network");
+    await page.setViewportSize({ width: 390, height: 900 });
+    // The verdict card and the evidence fit a phone (wide tables scroll inside their own boxes).
+    expect(await overflowing(page, "[data-testid=verdict-card], [data-testid=structure]")).toEqual([]);
+    console.log("[first-steps] wider than 390 px elsewhere on the page:", await overflowing(page, "body"));
+    await page.setViewportSize({ width: 1280, height: 900 });
   });
 
   it("copies the examples into a lab of one's own, where analyses can start", async () => {
