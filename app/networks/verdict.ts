@@ -67,6 +67,17 @@ export function verdictCard(s: NetworkStructure, latest: LatestAnalysis | null, 
     if (cap.multistationarityRuledOut)
       return { ...base, statement: none ? "No: there is not even one." : "No, whatever the rate constants.", basis: `By ${theorem}.`, evidence: theorems, tone: "settled" };
     const m = latest?.result.multistationarity;
+    // The run's own constants are a witness when its class holds two or more positive steady states,
+    // even where the search for "some constants" gave up.
+    const found = latest?.result.steadyStateSet === "finite" ? (latest.result.steadyStates?.length ?? 0) : 0;
+    if (found >= 2)
+      return {
+        ...base,
+        statement: "Yes: some positive rate constants give two or more in one class.",
+        basis: `The newest analysis found ${found} in one class with ${latest!.rateMode === "symbolic" ? "its" : "the given"} rate constants and totals.`,
+        evidence: run,
+        tone: "settled",
+      };
     if (m?.verdict === "multistationary")
       return { ...base, statement: "Yes: some positive rate constants give two or more in one class.", basis: `${m.reason} (analysis: ${m.method}).`, evidence: run, tone: "settled" };
     if (m?.verdict === "monostationary")
