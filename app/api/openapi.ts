@@ -33,8 +33,8 @@ export const API_OPERATIONS: readonly Operation[] = [
   { method: "get", path: "/api/openapi.json", summary: "This document.", role: "signed-in", ok: 200 },
   { method: "get", path: "/api/labs", summary: "The caller's labs.", role: "signed-in", ok: 200 },
   { method: "post", path: "/api/labs", summary: "Create a lab owned by the caller.", role: "signed-in", body: { schema: "LabCreate", enforced: false }, ok: 201 },
-  { method: "get", path: LAB, summary: "The lab and the caller's role.", role: "viewer", ok: 200 },
-  { method: "get", path: `${LAB}/members`, summary: "Who is in the lab, with roles.", role: "viewer", ok: 200 },
+  { method: "get", path: LAB, summary: "The lab (`public` when every signed-in person may read it), the caller's role, and `guest` when they read a public lab without being a member.", role: "viewer", ok: 200 },
+  { method: "get", path: `${LAB}/members`, summary: "Who is in the lab, with roles (members only: a guest of a public lab gets 404).", role: "viewer", ok: 200 },
   { method: "get", path: `${LAB}/audit`, summary: "The lab's audit trail, newest first.", role: "owner", ok: 200 },
   { method: "get", path: `${LAB}/networks`, summary: "The lab's networks with counts (`?archived=1` includes archived).", role: "viewer", ok: 200 },
   {
