@@ -39,7 +39,7 @@ export function verdictCard(s: NetworkStructure, latest: LatestAnalysis | null, 
   const cap = structuralCapabilities(s);
   const theorem = cap.steadyStatesPerClass.by === "deficiency-zero" ? "the deficiency zero theorem" : "the deficiency one theorem";
   const theorems = { href: "#theorems", label: "Theorems checked" };
-  const run = latest ? { href: latest.href, label: "The analysis" } : links.newAnalysis ? { href: links.newAnalysis, label: "Start an analysis" } : theorems;
+  const run = latest ? { href: latest.href, label: "Open the analysis" } : links.newAnalysis ? { href: links.newAnalysis, label: "Start an analysis" } : theorems;
   const constants = latest?.rateMode === "symbolic" ? "for generic rate constants" : "for the rate constants of the analysis";
   const none = cap.steadyStatesPerClass.count === "none";
 
@@ -119,7 +119,7 @@ export function verdictCard(s: NetworkStructure, latest: LatestAnalysis | null, 
     "Positive concentrations only",
     "One compatibility class at a time (fixed totals)",
     latest && !cap.multistationarityRuledOut && cap.steadyStatesPerClass.count === "open"
-      ? `Counts ${latest.rateMode === "symbolic" ? "for generic rate constants" : "for the rate constants given to the analysis"}; structural lines for any positive constants`
+      ? `Counts: ${latest.rateMode === "symbolic" ? "generic rate constants" : "the rate constants given to the analysis"}`
       : "Any positive rate constants",
     ...(s.constants.length > 0 ? [`Held constant: ${s.constants.map((c) => c.name).join(", ")} (${plural(s.constants.length, "species", "species")})`] : []),
   ];

@@ -95,4 +95,25 @@ describe.skipIf(!hasApp)("first steps for a new address", () => {
     expect(await page.getByTestId("first-steps").count()).toBe(0);
     expect(await page.getByTestId("lab-list").innerText()).toContain("Nadia Newcomer’s lab");
   });
+
+  it("in one's own lab, the switch's verdict is open until an analysis, then shows its count and witness", async () => {
+    const { page } = await b.page("/networks");
+    await page.getByRole("link", { name: "Autocatalytic switch" }).click();
+    await page.getByTestId("verdict-card").waitFor();
+    expect(await page.getByTestId("verdict-steady-states-statement").innerText()).toBe("Not decided by the structure.");
+    expect(await page.getByTestId("verdict-steady-states").getByRole("link", { name: /Start an analysis/ }).count()).toBe(1);
+    const networkUrl = page.url();
+    await page.getByTestId("start-analysis").click();
+    await page.waitForURL(/\/analyse/);
+    await page.getByLabel("Initial concentration of X", { exact: true }).fill("1");
+    await page.getByRole("button", { name: "Start analysis" }).click();
+    await page.waitForURL(/\/analyses\/[0-9a-f-]{36}$/);
+    await page.getByTestId("steady-states").waitFor({ timeout: 90_000 });
+    await page.goto(networkUrl, { waitUntil: "networkidle" });
+    await page.getByTestId("verdict-card").waitFor();
+    expect(await page.getByTestId("verdict-steady-states-statement").innerText()).toBe("3 positive steady states in this class: 2 stable, 1 unstable.");
+    expect(await page.getByTestId("verdict-multistationarity-statement").innerText()).toBe("Yes: some positive rate constants give two or more in one class.");
+    expect(await page.getByTestId("verdict-assumptions").innerText()).toContain("Held constant: A, B");
+    await shotAt(page, "03-switch-after-analysis");
+  });
 });

@@ -57,7 +57,7 @@ describe("verdictCard", () => {
     expect(card.lines[0]!.basis).toBe("From the newest analysis of this version, for the rate constants of the analysis.");
     expect(card.lines[1]!.basis).toBe("The newest analysis found 3 in one class with the given rate constants and totals.");
     expect(card.lines[0]!.evidence.href).toBe("/labs/l/analyses/a");
-    expect(card.assumptions[3]).toMatch(/for the rate constants given to the analysis/);
+    expect(card.assumptions[3]).toBe("Counts: the rate constants given to the analysis");
   });
 
   it("names species held constant among the assumptions", () => {
