@@ -18,11 +18,12 @@ const SWITCH = "# constant: A = 2, B = 3\nreaction,rate,reverse_rate,rate_value,
 describe.skipIf(!hasTestDatabase)("network page verdict from the newest analysis", () => {
   let t: TestDatabase;
   let cookie: string;
-  const x = { networkId: "", versionId: "", labId: "" };
+  const x = { networkId: "", versionId: "", labId: "", ownerId: "" };
 
   beforeAll(async () => {
     t = await setUpAccountsDb();
     const owner = await makeUser(t.db, "owner@lab.test", "Owner");
+    x.ownerId = owner.id;
     x.labId = (await makeLab(t.db, "alpha", "Alpha", [[owner.id, "owner"]])).id;
     Object.assign(x, await makeNetwork(t.db, x.labId, owner.id, "Switch", SWITCH));
     cookie = await sessionCookieFor(owner.id);
@@ -47,7 +48,7 @@ describe.skipIf(!hasTestDatabase)("network page verdict from the newest analysis
   it("after a finished analysis it shows the analysis' count and names the constants it used", async () => {
     const params = analysisParams({ initial: { X: "1" } });
     const result = computeJob({ kind: "analysis", csv: SWITCH, params }, { engineTimeoutMs: 30_000 });
-    const job = await makeJob(t.db, { kind: "analysis", labId: x.labId, networkVersionId: x.versionId, params, startedBy: null, timeLimitSeconds: 60 });
+    const job = await makeJob(t.db, { kind: "analysis", labId: x.labId, networkVersionId: x.versionId, params, startedBy: x.ownerId, timeLimitSeconds: 60 });
     await asAnalysesDb(t.db).updateTable("analyses").set({ status: "succeeded", result: result as never, finished_at: new Date() }).where("id", "=", job.id).execute();
     const card = await verdict();
     expect(card.lines[0]).toMatchObject({
