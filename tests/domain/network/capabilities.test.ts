@@ -37,7 +37,7 @@ describe("shinarFeinbergRobust", () => {
   it("the EnvZ–OmpR model: robust in the phosphorylated regulator Yp (Shinar & Feinberg 2010, Fig. 2 — recalled from memory)", () => {
     const envz = structure(["XD <-> X", "X <-> XT", "XT -> Xp", "Xp + Y <-> XpY", "XpY -> X + Yp", "XT + Yp <-> XTYp", "XTYp -> XT + Y"].join("\n"));
     // 10 complexes − 3 linkage classes − rank 6 (8 species, 2 conservation laws) = 1.
-    // Outside check (SymPy, Debian python3-sympy): with the rate constants 2, 3, 5, 7, 1, 4, 3, 2, 5, 6, 1
+    // Outside check (SymPy 1.14, Debian python3-sympy): with the rate constants 2, 3, 5, 7, 1, 4, 3, 2, 5, 6, 1
     // in reaction order, the lex Gröbner basis of the eight steady-state equations (order
     // XD > X > Xp > Y > XpY > XTYp > XT > Yp) contains XT·(5·Yp − 7): Yp = 7/5 at every positive steady state.
     expect(envz.deficiency).toBe(1);
