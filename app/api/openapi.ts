@@ -29,7 +29,7 @@ const BODY_SCHEMAS = {
 const LAB = "/api/labs/{labSlug}";
 export const API_OPERATIONS: readonly Operation[] = [
   { method: "get", path: "/api/health", summary: "Health: database reachable, migrations applied.", role: "public", ok: 200 },
-  { method: "get", path: "/api/me", summary: "Who the token (or session) acts as, and their labs with roles.", role: "signed-in", ok: 200 },
+  { method: "get", path: "/api/me", summary: "Who the token (or session) acts as, their labs with roles, and the public labs (`publicLabs`) they may read as a guest.", role: "signed-in", ok: 200 },
   { method: "get", path: "/api/openapi.json", summary: "This document.", role: "signed-in", ok: 200 },
   { method: "get", path: "/api/labs", summary: "The caller's labs.", role: "signed-in", ok: 200 },
   { method: "post", path: "/api/labs", summary: "Create a lab owned by the caller.", role: "signed-in", body: { schema: "LabCreate", enforced: false }, ok: 201 },

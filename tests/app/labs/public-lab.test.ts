@@ -136,6 +136,12 @@ describe.skipIf(!hasTestDatabase)("public example lab", () => {
     expect(out.body).toEqual({ lab: { slug: "examples", name: "Examples", public: true }, role: "viewer", guest: true });
   });
 
+  it("/api/me lists the public labs a stranger may read", async () => {
+    const me = await import("~/routes/api/me");
+    const out = await run(me.loader, makeRequest("/api/me", { bearer: tokens.stranger }), {});
+    expect(out.body).toMatchObject({ labs: [], publicLabs: [{ slug: "examples", name: "Examples", networks: 2 }] });
+  });
+
   it("a private lab still answers 404 to a stranger", async () => {
     const page = await import("~/routes/networks-show");
     const out = await run(page.loader, makeRequest(`/labs/beta/networks/${x.privateNetworkId}`, { cookie: cookies.stranger }), { labSlug: "beta", networkId: x.privateNetworkId });
