@@ -7,29 +7,18 @@ import { networkPath } from "~/networks/paths";
 import { analysesPath, newAnalysisPath } from "~/analyses/paths";
 import { NetworkHeader } from "~/networks/ui/network-header";
 import { NetworkSettings } from "~/networks/ui/network-settings";
-import {
-  AtAGlance,
-  EVIDENCE,
-  StructureView,
-} from "~/networks/ui/structure-view";
+import { AtAGlance, EVIDENCE, StructureView } from "~/networks/ui/structure-view";
 import { VerdictCardView } from "~/networks/ui/verdict-card";
 import { GuestNotice } from "~/labs/guest-notice";
 import { VersionList } from "~/networks/ui/version-list";
 import { requireLabRole } from "~/permissions/permissions.server";
 
-export const meta: Route.MetaFunction = ({ data }) => [
-  { title: `${data?.network.name ?? "Network"} · Stillpoint` },
-];
+export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.network.name ?? "Network"} · Stillpoint` }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const access = await requireLabRole(request, params.labSlug, "viewer");
   const network = await requireNetwork(db(), access, params.networkId);
-  return networkPageData(
-    db(),
-    access,
-    network,
-    new URL(request.url).searchParams.get("v"),
-  );
+  return networkPageData(db(), access, network, new URL(request.url).searchParams.get("v"));
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
@@ -38,10 +27,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   return runNetworkAction(db(), access, network, await request.formData());
 }
 
-export default function NetworkPage({
-  loaderData,
-  actionData,
-}: Route.ComponentProps) {
+export default function NetworkPage({ loaderData, actionData }: Route.ComponentProps) {
   const d = loaderData;
   const base = networkPath(d.lab.slug, d.network.id);
   return (
@@ -58,10 +44,7 @@ export default function NetworkPage({
               Start analysis of version {d.version.number}
             </Link>
           )}
-          <Link
-            to={analysesPath(d.lab.slug)}
-            className="self-center text-accent-strong hover:underline"
-          >
+          <Link to={analysesPath(d.lab.slug)} className="self-center text-accent-strong hover:underline">
             Analyses of this lab
           </Link>
         </p>
@@ -71,31 +54,21 @@ export default function NetworkPage({
       <div className="grid gap-8 lg:grid-cols-[14rem_minmax(0,1fr)]">
         <aside className="space-y-5 lg:sticky lg:top-4 lg:self-start">
           <div>
-            <h2 className="mb-1 text-xs font-semibold uppercase tracking-wide text-faint">
-              At a glance
-            </h2>
+            <h2 className="mb-1 text-xs font-semibold uppercase tracking-wide text-faint">At a glance</h2>
             <AtAGlance structure={d.structure} />
           </div>
           <nav aria-label="Evidence">
-            <h2 className="mb-1 text-xs font-semibold uppercase tracking-wide text-faint">
-              Evidence
-            </h2>
+            <h2 className="mb-1 text-xs font-semibold uppercase tracking-wide text-faint">Evidence</h2>
             <ol className="flex flex-wrap gap-x-4 gap-y-1 text-sm lg:block lg:space-y-1">
               {EVIDENCE.map(([id, label]) => (
                 <li key={id}>
-                  <a
-                    href={`#${id}`}
-                    className="text-accent-strong hover:underline"
-                  >
+                  <a href={`#${id}`} className="text-accent-strong hover:underline">
                     {label}
                   </a>
                 </li>
               ))}
               <li>
-                <a
-                  href="#versions-title"
-                  className="text-accent-strong hover:underline"
-                >
+                <a href="#versions-title" className="text-accent-strong hover:underline">
                   Versions
                 </a>
               </li>
@@ -112,18 +85,10 @@ export default function NetworkPage({
             canEdit={d.canEdit}
             unknownAuthor={d.lab.isPublic ? "worked example" : "former member"}
           />
-          {d.canEdit && (
-            <NetworkSettings
-              network={d.network}
-              canDelete={d.canDelete}
-              result={actionData}
-            />
-          )}
+          {d.canEdit && <NetworkSettings network={d.network} canDelete={d.canDelete} result={actionData} />}
           {!d.canEdit && !d.guest && (
             <p className="text-sm text-muted">
-              You can read and download this network; editors of{" "}
-              <Link to={`/labs/${d.lab.slug}`}>{d.lab.name}</Link> can change
-              it.
+              You can read and download this network; editors of <Link to={`/labs/${d.lab.slug}`}>{d.lab.name}</Link> can change it.
             </p>
           )}
         </div>
