@@ -74,6 +74,7 @@ describe.skipIf(!hasApp)("first steps for a new address", () => {
     expect(await page.getByTestId("start-analysis").count()).toBe(0);
     await shotAt(page, "02-example-network");
     await page.setViewportSize({ width: 390, height: 900 });
+    await page.getByTestId("verdict-card").screenshot({ path: `${SHOTS}/02-verdict-card-390.png` });
     // The verdict card and the evidence fit a phone (wide tables scroll inside their own boxes).
     expect(await overflowing(page, "[data-testid=verdict-card], [data-testid=structure]")).toEqual([]);
     console.log("[first-steps] wider than 390 px elsewhere on the page:", await overflowing(page, "body"));
