@@ -33,12 +33,12 @@ export const BODY_SCHEMAS = {
 const LAB = "/api/labs/{labSlug}";
 export const API_OPERATIONS: readonly Operation[] = [
   { method: "get", path: "/api/health", summary: "Health: database reachable, migrations applied.", role: "public", ok: 200 },
-  { method: "get", path: "/api/me", summary: "Who the token (or session) acts as, and their labs with roles.", role: "signed-in", ok: 200 },
+  { method: "get", path: "/api/me", summary: "Who the token (or session) acts as, their labs with roles, and the public labs (`publicLabs`) they may read as a guest.", role: "signed-in", ok: 200 },
   { method: "get", path: "/api/openapi.json", summary: "This document.", role: "signed-in", ok: 200 },
   { method: "get", path: "/api/labs", summary: "The caller's labs.", role: "signed-in", ok: 200 },
   { method: "post", path: "/api/labs", summary: "Create a lab owned by the caller.", role: "signed-in", body: { schema: "LabCreate" }, ok: 201 },
-  { method: "get", path: LAB, summary: "The lab and the caller's role.", role: "viewer", ok: 200 },
-  { method: "get", path: `${LAB}/members`, summary: "Who is in the lab, with roles.", role: "viewer", ok: 200 },
+  { method: "get", path: LAB, summary: "The lab (`public` when every signed-in person may read it), the caller's role, and `guest` when they read a public lab without being a member.", role: "viewer", ok: 200 },
+  { method: "get", path: `${LAB}/members`, summary: "Who is in the lab, with roles (members only: a guest of a public lab gets 404).", role: "viewer", ok: 200 },
   { method: "get", path: `${LAB}/audit`, summary: "The lab's audit trail, newest first.", role: "owner", ok: 200 },
   { method: "get", path: `${LAB}/networks`, summary: "The lab's networks with counts (`?archived=1` includes archived).", role: "viewer", ok: 200 },
   {

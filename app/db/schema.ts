@@ -45,6 +45,8 @@ export interface LabsTable {
   slug: string;
   name: string;
   created_by: string | null;
+  /** Readable by every signed-in person as a viewer, without membership (migration 20261202130000). */
+  is_public: Generated<boolean>;
   created_at: CreatedAt;
   updated_at: UpdatedAt;
 }

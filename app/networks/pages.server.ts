@@ -13,6 +13,11 @@ import { findNetwork, findVersion, latestVersion, listNetworks, listVersions, ty
 import { odesOf, structureOf, summaryOf } from "./structure.server";
 import type { SpeciesOde } from "@domain/steady-state/ode-terms";
 import { networkPath } from "./paths";
+import { verdictCard, type LatestAnalysis, type VerdictCard } from "./verdict";
+import { asAnalysesDb } from "~/analyses/schema";
+import { listJobs } from "~/analyses/repository.server";
+import { analysisPath, newAnalysisPath } from "~/analyses/paths";
+import type { AnalysisResult } from "~/analyses/result-types";
 import type { NetworkTableRow } from "./ui/network-table";
 import { notFound } from "~/shared/responses";
 
@@ -61,7 +66,7 @@ export async function networkTableRows(db: Kysely<Database>, access: LabAccess, 
       reactionCount: summary.reactionCount,
       deficiency: summary.deficiency,
       lastChange: n.latest.createdAt.toISOString(),
-      author: n.latest.authorName ?? "(former member)",
+      author: n.latest.authorName ?? (access.lab.isPublic ? "worked example" : "(former member)"),
       version: n.latest.number,
     };
   });
@@ -88,7 +93,7 @@ export async function requireVersion(db: Kysely<Database>, network: NetworkRecor
 }
 
 export interface NetworkPageData {
-  lab: { slug: string; name: string };
+  lab: { slug: string; name: string; isPublic: boolean };
   network: NetworkJson;
   version: VersionJson;
   latestNumber: number;
@@ -97,21 +102,42 @@ export interface NetworkPageData {
   odes: SpeciesOde[];
   canEdit: boolean;
   canDelete: boolean;
+  /** Reading a public lab (the worked examples) without being a member. */
+  guest: boolean;
+  verdict: VerdictCard;
+}
+
+/** The newest finished analysis of exactly this version, for the verdict card. */
+async function latestAnalysisOf(db: Kysely<Database>, labSlug: string, labId: string, networkId: string, versionNumber: number): Promise<LatestAnalysis | null> {
+  const jobs = await listJobs(asAnalysesDb(db), labId, { kind: "analysis", networkId, limit: 50 });
+  const job = jobs.find((j) => j.status === "succeeded" && j.version_number === versionNumber && j.result);
+  if (!job) return null;
+  return {
+    href: analysisPath(labSlug, job.id),
+    result: job.result as unknown as AnalysisResult,
+    rateMode: job.params.rateMode === "symbolic" ? "symbolic" : "numeric",
+    finishedAt: (job.finished_at ?? job.created_at).toISOString(),
+  };
 }
 
 export async function networkPageData(db: Kysely<Database>, access: LabAccess, network: NetworkRecord, versionParam: string | null): Promise<NetworkPageData> {
   const version = await requireVersion(db, network, versionParam);
   const versions = await listVersions(db, network.id);
+  const structure = structureOf(version.csv);
+  const canEdit = hasRole(access.role, "editor");
+  const latest = await latestAnalysisOf(db, access.lab.slug, access.lab.id, network.id, version.number);
   return {
-    lab: { slug: access.lab.slug, name: access.lab.name },
+    lab: { slug: access.lab.slug, name: access.lab.name, isPublic: access.lab.isPublic },
     network: networkJson(network),
     version: versionJson(version),
     latestNumber: versions[0]!.number,
     versions: versions.map((v) => versionJson(v)),
-    structure: structureOf(version.csv),
+    structure,
     odes: odesOf(version.csv),
-    canEdit: hasRole(access.role, "editor"),
+    canEdit,
     canDelete: hasRole(access.role, "owner"),
+    guest: access.guest,
+    verdict: verdictCard(structure, latest, { newAnalysis: canEdit ? newAnalysisPath(access.lab.slug, network.id, version.number) : null }),
   };
 }
 

@@ -1,5 +1,6 @@
 import { Link } from "react-router";
 import type { Route } from "./+types/home";
+import { EXAMPLE_LAB } from "~/labs/example-lab";
 
 export const meta: Route.MetaFunction = () => [{ title: "Stillpoint — steady states of reaction networks" }];
 
@@ -53,8 +54,9 @@ export default function Home() {
             <Link to="/sign-in" className="btn-primary">
               Sign in with your e-mail
             </Link>
-            <Link to="/networks" className="btn-quiet">
-              See the demo networks
+            {/* Signed out, this asks for a sign-in first and then opens the public examples. */}
+            <Link to={`/labs/${EXAMPLE_LAB.slug}/networks`} className="btn-quiet">
+              See the worked examples
             </Link>
           </div>
         </div>

@@ -5,16 +5,16 @@ import { listOpenInvitations } from "~/labs/invitations.server";
 import { listMembers } from "~/labs/memberships.server";
 import { parseMemberIntent, runMemberIntent } from "~/labs/lab-actions.server";
 import { FormMessage, inputClass, IntentButton, RoleBadge } from "~/labs/ui";
-import { requireLabRole } from "~/permissions/permissions.server";
+import { requireLabMember, requireLabRole } from "~/permissions/permissions.server";
 import { hasRole } from "~/permissions/roles";
 import { LAB_ROLES } from "~/db/schema";
 import { formatDateTime } from "~/shared/dates";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `Members of ${data?.lab.name ?? "lab"} · Stillpoint` }];
 
-/** Every member sees who is in the lab; only owners see pending invitations. */
+/** Every member sees who is in the lab (guests of a public lab do not); only owners see pending invitations. */
 export async function loader({ request, params }: Route.LoaderArgs) {
-  const access = await requireLabRole(request, params.labSlug, "viewer");
+  const access = requireLabMember(await requireLabRole(request, params.labSlug, "viewer"));
   const isOwner = hasRole(access.role, "owner");
   const [members, invitations] = await Promise.all([
     listMembers(db(), access.lab.id),

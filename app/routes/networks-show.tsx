@@ -7,22 +7,11 @@ import { networkPath } from "~/networks/paths";
 import { analysesPath, newAnalysisPath } from "~/analyses/paths";
 import { NetworkHeader } from "~/networks/ui/network-header";
 import { NetworkSettings } from "~/networks/ui/network-settings";
-import { StructureView } from "~/networks/ui/structure-view";
+import { AtAGlance, EVIDENCE, StructureView } from "~/networks/ui/structure-view";
+import { VerdictCardView } from "~/networks/ui/verdict-card";
+import { GuestNotice } from "~/labs/guest-notice";
 import { VersionList } from "~/networks/ui/version-list";
 import { requireLabRole } from "~/permissions/permissions.server";
-
-const SECTIONS = [
-  ["reactions", "Reactions"],
-  ["species", "Species"],
-  ["stoichiometric-matrix", "Stoichiometric matrix"],
-  ["complexes", "Complexes"],
-  ["graph", "Complex graph"],
-  ["rank", "Rank and deficiency"],
-  ["deficiency-zero", "Deficiency zero theorem"],
-  ["deficiency-one", "Deficiency one theorem"],
-  ["conservation", "Conservation laws"],
-  ["odes", "ODEs"],
-] as const;
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.network.name ?? "Network"} · Stillpoint` }];
 
@@ -44,31 +33,66 @@ export default function NetworkPage({ loaderData, actionData }: Route.ComponentP
   return (
     <div className="space-y-8">
       <NetworkHeader data={d} result={actionData} />
-      <p className="flex flex-wrap gap-4 text-sm">
-        {d.canEdit && (
-          <Link to={newAnalysisPath(d.lab.slug, d.network.id, d.version.number)} className="rounded-md bg-accent px-3 py-1.5 font-medium text-accent-ink hover:bg-accent-strong" data-testid="start-analysis">
-            Start analysis of version {d.version.number}
+      {!d.guest && (
+        <p className="flex flex-wrap gap-4 text-sm">
+          {d.canEdit && (
+            <Link
+              to={newAnalysisPath(d.lab.slug, d.network.id, d.version.number)}
+              className="rounded-md bg-accent px-3 py-1.5 font-medium text-accent-ink hover:bg-accent-strong"
+              data-testid="start-analysis"
+            >
+              Start analysis of version {d.version.number}
+            </Link>
+          )}
+          <Link to={analysesPath(d.lab.slug)} className="self-center text-accent-strong hover:underline">
+            Analyses of this lab
           </Link>
-        )}
-        <Link to={analysesPath(d.lab.slug)} className="self-center text-accent-strong hover:underline">
-          Analyses of this lab
-        </Link>
-      </p>
-      <VersionList base={base} versions={d.versions} current={d.version.number} latest={d.latestNumber} canEdit={d.canEdit} />
-      <nav aria-label="On this page" className="flex flex-wrap gap-x-4 gap-y-1 text-sm">
-        {SECTIONS.map(([id, label]) => (
-          <a key={id} href={`#${id}`} className="text-accent-strong hover:underline">
-            {label}
-          </a>
-        ))}
-      </nav>
-      <StructureView structure={d.structure} odes={d.odes} name={d.network.name} />
-      {d.canEdit && <NetworkSettings network={d.network} canDelete={d.canDelete} result={actionData} />}
-      {!d.canEdit && (
-        <p className="text-sm text-muted">
-          You can read and download this network; editors of <Link to={`/labs/${d.lab.slug}`}>{d.lab.name}</Link> can change it.
         </p>
       )}
+      {d.guest && <GuestNotice slug={d.lab.slug} />}
+      <VerdictCardView card={d.verdict} />
+      <div className="grid gap-8 lg:grid-cols-[14rem_minmax(0,1fr)]">
+        <aside className="space-y-5 lg:sticky lg:top-4 lg:self-start">
+          <div>
+            <h2 className="mb-1 text-xs font-semibold uppercase tracking-wide text-faint">At a glance</h2>
+            <AtAGlance structure={d.structure} />
+          </div>
+          <nav aria-label="Evidence">
+            <h2 className="mb-1 text-xs font-semibold uppercase tracking-wide text-faint">Evidence</h2>
+            <ol className="flex flex-wrap gap-x-4 gap-y-1 text-sm lg:block lg:space-y-1">
+              {EVIDENCE.map(([id, label]) => (
+                <li key={id}>
+                  <a href={`#${id}`} className="text-accent-strong hover:underline">
+                    {label}
+                  </a>
+                </li>
+              ))}
+              <li>
+                <a href="#versions-title" className="text-accent-strong hover:underline">
+                  Versions
+                </a>
+              </li>
+            </ol>
+          </nav>
+        </aside>
+        <div className="min-w-0 space-y-8">
+          <StructureView structure={d.structure} odes={d.odes} name={d.network.name} />
+          <VersionList
+            base={base}
+            versions={d.versions}
+            current={d.version.number}
+            latest={d.latestNumber}
+            canEdit={d.canEdit}
+            unknownAuthor={d.lab.isPublic ? "worked example" : "former member"}
+          />
+          {d.canEdit && <NetworkSettings network={d.network} canDelete={d.canDelete} result={actionData} />}
+          {!d.canEdit && !d.guest && (
+            <p className="text-sm text-muted">
+              You can read and download this network; editors of <Link to={`/labs/${d.lab.slug}`}>{d.lab.name}</Link> can change it.
+            </p>
+          )}
+        </div>
+      </div>
     </div>
   );
 }

@@ -10,6 +10,7 @@ export type AuditKind =
   | "auth.signed_out_everywhere"
   | "lab.created"
   | "lab.renamed"
+  | "examples.copied"
   | "membership.role_changed"
   | "membership.removed"
   | "membership.left"

@@ -35,6 +35,7 @@ export { type ConservationAnalysis, type ConservationOptions, analyseConservatio
 export { type DirectedGraph, connectedComponents, stronglyConnectedComponents, terminalComponents } from "./graph";
 export { type TheoremVerdict, deficiencyZeroVerdict, deficiencyOneVerdict } from "./deficiency-theorems";
 export { type NetworkStructure, type ReactionSummary, analyseStructure } from "./structure";
+export { type StructuralCapabilities, type StructuralCount, type StructurallyRobust, structuralCapabilities, shinarFeinbergRobust } from "./capabilities";
 export { parseReactionList, formatReactionList } from "./reaction-list";
 export { NETWORK_FORMATS, type NetworkFormat, type NetworkDocument, formatFromName, sniffFormat, readNetworkDocument } from "./formats";
 export { decodeNetworkFile, textFileProblem, type DecodedFile } from "./text-file";

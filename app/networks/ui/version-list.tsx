@@ -5,7 +5,7 @@ import { formatDateTime } from "~/shared/dates";
 const SHOWN = 5;
 
 /** The newest versions: open one, see what it changed, restore it as a new version. */
-export function VersionList({ base, versions, current, latest, canEdit }: { base: string; versions: VersionJson[]; current: number; latest: number; canEdit: boolean }) {
+export function VersionList({ base, versions, current, latest, canEdit, unknownAuthor = "former member" }: { base: string; versions: VersionJson[]; current: number; latest: number; canEdit: boolean; unknownAuthor?: string }) {
   return (
     <section aria-labelledby="versions-title" className="rounded-card border border-line bg-surface px-4 py-3 text-sm">
       <div className="mb-1 flex items-baseline justify-between">
@@ -28,7 +28,7 @@ export function VersionList({ base, versions, current, latest, canEdit }: { base
                   {v.number === current && <span className="sr-only"> (shown)</span>}
                 </td>
                 <td className="whitespace-nowrap py-1 pr-3 text-muted">{formatDateTime(v.createdAt)}</td>
-                <td className="whitespace-nowrap py-1 pr-3 text-muted">{v.author ?? "former member"}</td>
+                <td className="whitespace-nowrap py-1 pr-3 text-muted">{v.author ?? unknownAuthor}</td>
                 <td className="w-full py-1 pr-3">{v.changeNote}</td>
                 <td className="whitespace-nowrap py-1 pr-2 text-right">
                   {v.number > 1 && (
