@@ -233,7 +233,7 @@ export type DbExecutor = Kysely<Database> | Transaction<Database>;
  */
 export const DATABASE_COLUMNS = {
   users: ["id", "email", "display_name", "is_site_admin", "created_at", "updated_at"],
-  labs: ["id", "slug", "name", "created_by", "created_at", "updated_at"],
+  labs: ["id", "slug", "name", "created_by", "created_at", "updated_at", "is_public"],
   memberships: ["lab_id", "user_id", "role", "created_at", "updated_at"],
   invitations: ["id", "lab_id", "email", "role", "token_hash", "invited_by", "created_at", "expires_at", "accepted_at", "accepted_by", "revoked_at"],
   networks: ["id", "lab_id", "name", "description", "tags", "archived_at", "created_by", "created_at", "updated_at"],

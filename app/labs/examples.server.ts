@@ -8,7 +8,7 @@ import type { Kysely } from "kysely";
 import type { Database } from "~/db/schema";
 import { contentHash, listNetworks } from "~/networks/networks.server";
 import { hasRole } from "~/permissions/roles";
-import { recordAudit } from "./audit.server";
+import { recordAudit } from "~/shared/audit.server";
 import { createLab, listLabsOf } from "./labs.server";
 
 export interface CopyOutcome {

@@ -100,7 +100,7 @@ export interface PublicLab {
 }
 
 /** Labs every signed-in person may read (the worked examples), with how many live networks each holds. */
-export async function listPublicLabs(db: Executor): Promise<PublicLab[]> {
+export async function listPublicLabs(db: DbExecutor): Promise<PublicLab[]> {
   const rows = await db
     .selectFrom("labs as l")
     .select((eb) => [
@@ -121,7 +121,7 @@ export async function listPublicLabs(db: Executor): Promise<PublicLab[]> {
 }
 
 /** How many live networks the labs a user belongs to hold together (0 → show the first steps). */
-export async function countNetworksOf(db: Executor, userId: string): Promise<number> {
+export async function countNetworksOf(db: DbExecutor, userId: string): Promise<number> {
   const row = await db
     .selectFrom("networks as n")
     .innerJoin("memberships as m", "m.lab_id", "n.lab_id")

@@ -14,7 +14,6 @@ import { odesOf, structureOf, summaryOf } from "./structure.server";
 import type { SpeciesOde } from "@domain/steady-state/ode-terms";
 import { networkPath } from "./paths";
 import { verdictCard, type LatestAnalysis, type VerdictCard } from "./verdict";
-import { asAnalysesDb } from "~/analyses/schema";
 import { listJobs } from "~/analyses/repository.server";
 import { analysisPath, newAnalysisPath } from "~/analyses/paths";
 import type { AnalysisResult } from "~/analyses/result-types";
@@ -109,7 +108,7 @@ export interface NetworkPageData {
 
 /** The newest finished analysis of exactly this version, for the verdict card. */
 async function latestAnalysisOf(db: Kysely<Database>, labSlug: string, labId: string, networkId: string, versionNumber: number): Promise<LatestAnalysis | null> {
-  const jobs = await listJobs(asAnalysesDb(db), labId, { kind: "analysis", networkId, limit: 50 });
+  const jobs = await listJobs(db, labId, { kind: "analysis", networkId, limit: 50 });
   const job = jobs.find((j) => j.status === "succeeded" && j.version_number === versionNumber && j.result);
   if (!job) return null;
   return {

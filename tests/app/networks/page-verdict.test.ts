@@ -3,7 +3,6 @@ import { hasTestDatabase, type TestDatabase } from "../support/test-db";
 import { makeLab, makeRequest, makeUser, run, sessionCookieFor, setUpAccountsDb, tearDownAccountsDb } from "../auth/fixtures";
 import { analysisParams, makeJob, makeNetwork } from "../jobs/fixtures";
 import { computeJob } from "~/jobs/compute";
-import { asAnalysesDb } from "~/analyses/schema";
 import { stopBosses } from "~/jobs/queue.server";
 import type { VerdictCard } from "~/networks/verdict";
 
@@ -49,7 +48,7 @@ describe.skipIf(!hasTestDatabase)("network page verdict from the newest analysis
     const params = analysisParams({ initial: { X: "1" } });
     const result = computeJob({ kind: "analysis", csv: SWITCH, params }, { engineTimeoutMs: 30_000 });
     const job = await makeJob(t.db, { kind: "analysis", labId: x.labId, networkVersionId: x.versionId, params, startedBy: x.ownerId, timeLimitSeconds: 60 });
-    await asAnalysesDb(t.db).updateTable("analyses").set({ status: "succeeded", result: result as never, finished_at: new Date() }).where("id", "=", job.id).execute();
+    await t.db.updateTable("analyses").set({ status: "succeeded", result: result as never, finished_at: new Date() }).where("id", "=", job.id).execute();
     const card = await verdict();
     expect(card.lines[0]).toMatchObject({
       statement: "3 positive steady states in this class: 2 stable, 1 unstable.",

@@ -44,9 +44,9 @@ describe("helpers", () => {
   it("maxDegree is the largest total degree of a term", () => {
     expect(maxDegree(toEngine(R.parse("x^3*y + x + 1")), 2)).toBe(4);
   });
-  it("chooses sugar for a single graded order and the normal strategy for lex and block orders", () => {
+  it("chooses the normal strategy for pure lex and sugar for graded and block orders", () => {
     expect(defaultStrategy([{ kind: "grevlex" }])).toBe("sugar");
     expect(defaultStrategy([{ kind: "lex" }])).toBe("normal");
-    expect(defaultStrategy([{ kind: "lex" }, { kind: "grevlex" }])).toBe("normal");
+    expect(defaultStrategy([{ kind: "lex" }, { kind: "grevlex" }])).toBe("sugar");
   });
 });
