@@ -106,7 +106,7 @@ function jobQuery(db: AnalysesDb) {
     .select(["n.id as network_id", "n.name as network_name", "v.number as version_number", "u.display_name as starter_name", "u.email as starter_email"]);
 }
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+export const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 export async function findJob(db: AnalysesDb, labId: string, id: string | undefined): Promise<JobRecord | undefined> {
   if (!id || !UUID.test(id)) return undefined;
@@ -150,6 +150,9 @@ export function jobJson(j: JobRecord, options: { result?: boolean } = {}) {
   return {
     id: j.id,
     kind: j.kind,
+    name: j.name,
+    note: j.note,
+    archived: j.archived_at !== null,
     status: j.status,
     parentId: j.parent_id,
     network: { id: j.network_id, name: j.network_name, version: j.version_number },
@@ -165,7 +168,7 @@ export function jobJson(j: JobRecord, options: { result?: boolean } = {}) {
     startedAt: j.started_at?.toISOString() ?? null,
     finishedAt: j.finished_at?.toISOString() ?? null,
     timings: j.timings,
-    ...(options.result ? { result: j.result } : {}),
+    ...(options.result ? { result: j.result, partialResult: j.partial_result } : {}),
   };
 }
 export type JobJson = ReturnType<typeof jobJson>;

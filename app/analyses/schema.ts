@@ -3,7 +3,7 @@
  * `Database` (a thin adapter so this feature owns its own columns and tables).
  */
 import type { ColumnType, Generated, Kysely, Selectable, Transaction } from "kysely";
-import type { AnalysesTable, Database } from "~/db/schema";
+import type { AnalysesTable, Database, JsonObject } from "~/db/schema";
 
 type Timestamp = ColumnType<Date, Date | string, Date | string>;
 type NullableTimestamp = ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
@@ -21,6 +21,12 @@ export interface JobAnalysesTable extends AnalysesTable {
   cancel_requested_at: NullableTimestamp;
   time_limit_seconds: Generated<number>;
   notify_by_email: Generated<boolean>;
+  /** Migration 20261202130000_analysis_runs: the run's own name and note ("" when none). */
+  name: Generated<string>;
+  note: Generated<string>;
+  archived_at: NullableTimestamp;
+  /** What a cancelled or timed-out run had finished (the analysis result's shape with `unfinished[]`). */
+  partial_result: ColumnType<JsonObject | null, JsonObject | null | undefined, JsonObject | null>;
 }
 
 export interface AnalysisShareLinksTable {

@@ -5,7 +5,7 @@ import { analysisPath } from "~/analyses/paths";
 import { jobJson, labLimits, listJobs, setLabLimits } from "~/analyses/repository.server";
 import { SITE_LIMITS } from "~/analyses/params";
 import { asAnalysesDb } from "~/analyses/schema";
-import { recordAnalysisAudit } from "~/analyses/service.server";
+import { recordRunAudit } from "~/analyses/audit.server";
 import { StatusBadge } from "~/analyses/ui/status";
 import { networkPath } from "~/networks/paths";
 import { assertLabRole, requireLabRole } from "~/permissions/permissions.server";
@@ -33,7 +33,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   if (!Number.isInteger(maxBasisSize) || maxBasisSize < 1 || maxBasisSize > 1_000_000) problems.push({ field: "maxBasisSize", message: "expected 1 to 1000000" });
   if (problems.length > 0) return data({ problems }, { status: 400 });
   await setLabLimits(asAnalysesDb(db()), access.lab.id, { maxTimeLimitSeconds, maxBasisSize });
-  await recordAnalysisAudit(asAnalysesDb(db()), access.lab.id, access.user.id, "analysis.limits_changed", { maxTimeLimitSeconds, maxBasisSize });
+  await recordRunAudit(asAnalysesDb(db()), access, "analysis.limits_changed", { maxTimeLimitSeconds, maxBasisSize });
   return { saved: true };
 }
 

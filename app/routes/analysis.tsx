@@ -1,20 +1,18 @@
-import { Link, data, redirect } from "react-router";
+import { Link, redirect } from "react-router";
 import type { Route } from "./+types/analysis";
 import { db } from "~/db.server";
-import { formObject } from "~/analyses/form.server";
+import { runAnalysisAction } from "~/analyses/actions.server";
 import { analysisPageData } from "~/analyses/page.server";
-import { analysesPath, analysisPath, newAnalysisPath, sharePath } from "~/analyses/paths";
+import { analysesPath, analysisPath, newAnalysisPath } from "~/analyses/paths";
 import { findJob, listJobs } from "~/analyses/repository.server";
 import { asAnalysesDb } from "~/analyses/schema";
-import { cancelJob, recordAnalysisAudit, startFollowUp } from "~/analyses/service.server";
-import { createShareLink, listShareLinks, revokeShareLink, SHARE_DAYS } from "~/analyses/share.server";
+import { listShareLinks } from "~/analyses/share.server";
 import { AnalysisBody } from "~/analyses/ui/analysis-body";
 import { SharePanel } from "~/analyses/ui/share-panel";
 import { isUnfinished } from "~/analyses/ui/status";
 import { usePolling } from "~/analyses/ui/use-polling";
-import { getEnv } from "~/env.server";
 import { networkPath } from "~/networks/paths";
-import { assertLabRole, requireLabRole } from "~/permissions/permissions.server";
+import { requireLabRole } from "~/permissions/permissions.server";
 import { hasRole } from "~/permissions/roles";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `Analysis of ${data?.page.job.network.name ?? "a network"} · Stillpoint` }];
@@ -39,52 +37,13 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   };
 }
 
+/** Intents, validation and audit entries live in ~/analyses/actions.server; here only who is asking and which run. */
 export async function action({ request, params }: Route.ActionArgs) {
   const access = await requireLabRole(request, params.labSlug, "viewer");
   const adb = asAnalysesDb(db());
   const job = await findJob(adb, access.lab.id, params.analysisId);
   if (!job || job.parent_id) throw notFound();
-  const form = await request.formData();
-  const intent = String(form.get("intent") ?? "");
-  switch (intent) {
-    case "cancel": {
-      assertLabRole(access, "editor");
-      const target = String(form.get("jobId") ?? job.id);
-      const victim = target === job.id ? job : (await findJob(adb, access.lab.id, target));
-      if (!victim || (victim.id !== job.id && victim.parent_id !== job.id)) throw notFound();
-      return { status: await cancelJob(adb, victim) };
-    }
-    case "relation":
-    case "scan":
-    case "timecourse": {
-      assertLabRole(access, "editor");
-      const input = formObject(form);
-      if (intent === "scan") {
-        const [kind, name] = String(form.get("parameterChoice") ?? "").split(":");
-        Object.assign(input, { parameterKind: kind, parameter: name });
-      }
-      const outcome = await startFollowUp(adb, access, job, intent, input);
-      if (!outcome.ok) return data({ problems: outcome.problems }, { status: 400 });
-      return { started: outcome.job.id };
-    }
-    case "share-create": {
-      assertLabRole(access, "owner");
-      const days = Number(form.get("days") || SHARE_DAYS.default);
-      if (!Number.isInteger(days) || days < 1 || days > SHARE_DAYS.max) return data({ problems: [{ field: "days", message: `expected 1 to ${SHARE_DAYS.max} days` }] }, { status: 400 });
-      const link = await createShareLink(adb, job.id, access.user.id, days);
-      await recordAnalysisAudit(adb, access.lab.id, access.user.id, "analysis.share_link_created", { analysisId: job.id, linkId: link.id, days });
-      return { shareLink: { url: `${getEnv().appUrl}${sharePath(link.token)}`, expiresAt: link.expiresAt.toISOString() } };
-    }
-    case "share-revoke": {
-      assertLabRole(access, "owner");
-      const linkId = String(form.get("linkId") ?? "");
-      if (!/^[0-9a-f-]{36}$/i.test(linkId) || !(await revokeShareLink(adb, job.id, linkId))) throw notFound();
-      await recordAnalysisAudit(adb, access.lab.id, access.user.id, "analysis.share_link_revoked", { analysisId: job.id, linkId });
-      return { revoked: linkId };
-    }
-    default:
-      return data({ problems: [{ field: "intent", message: `unknown action '${intent}'` }] }, { status: 400 });
-  }
+  return runAnalysisAction(adb, access, job, await request.formData());
 }
 
 export default function AnalysisPage({ loaderData: d }: Route.ComponentProps) {

@@ -31,11 +31,22 @@ export interface AnalyseOptions extends BudgetOptions {
   readonly skipFullBasis?: boolean;
   /** Compute the full lex basis even when a parametrisation already describes the steady states. */
   readonly fullBasis?: boolean;
+  /**
+   * Called after each stage from the parametrisation on with the result so far: the stages not yet
+   * run are in `unfinished` with the reason NOT_REACHED. A run stopped from outside (cancelled, or
+   * killed at its time limit) keeps the last one.
+   */
+  readonly onPartial?: (partial: SteadyStateAnalysis) => void;
 }
 
-/** A phase that ran out of time or size: which stage, and what the engine said. */
+/** The reason given for a stage a partial result had not reached. */
+export const NOT_REACHED = "not reached: the run stopped before this stage";
+
+export type AnalysisStage = "parametrisation" | "groebner" | "steady-states" | "acr" | "relations";
+
+/** A phase that ran out of time or size (or, in a partial result, was not reached): which stage, and why. */
 export interface UnfinishedStage {
-  readonly stage: "parametrisation" | "groebner" | "steady-states" | "acr" | "relations";
+  readonly stage: AnalysisStage;
   readonly reason: string;
 }
 
@@ -151,6 +162,35 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
   let basis: QPoly[] | null = null;
   let basisStatus: SteadyStateAnalysis["groebnerBasisStatus"] = "skipped";
   const wantBasis = !options.skipFullBasis && (options.fullBasis === true || numericClass || !param?.parametrisation);
+  let wholeRing = false;
+  let steadyStates: NumericSteadyState[] | null = null;
+  let steadyStatesReason: string | null = null;
+  let eliminant: SteadyStateAnalysis["eliminant"] = null;
+  let steadyStateSet: SteadyStateAnalysis["steadyStateSet"] = null;
+  let zeroDimensionalBasis = false;
+  let positivePoint: Record<string, number> | null = null;
+  let acr: AcrSpecies[] = [];
+  const relations: RelationResult[] = [];
+  // The stages still to run, for partial results.
+  const plan: AnalysisStage[] = [
+    ...(withTotals.equations.length > 0 && wantBasis ? (["groebner"] as const) : []),
+    ...(numericRates && classGiven && !param?.infeasible ? (["steady-states"] as const) : []),
+    ...(param && param.complete && !param.parametrisation && !param.infeasible && param.unknowns.length > 0 ? (["acr"] as const) : []),
+    ...((options.relations ?? []).length > 0 ? (["relations"] as const) : []),
+  ];
+  const snapshot = (done: AnalysisStage | null): SteadyStateAnalysis => {
+    const pending = done === null ? plan : plan.slice(plan.indexOf(done) + 1);
+    return assemble({
+      network, options, structure, species, suggested, kin, kinT, noTotals, withTotals, laws, numericRates, classGiven, basis, basisStatus, param,
+      wholeRing, acr, relations, steadyStates, steadyStatesReason, eliminant, steadyStateSet, zeroDimensionalBasis, positivePoint,
+      unfinished: [...unfinished, ...pending.filter((st) => !unfinished.some((u) => u.stage === st)).map((stage) => ({ stage, reason: NOT_REACHED }))],
+      warnings: [...warnings],
+    });
+  };
+  const partial = (done: AnalysisStage | null) => {
+    if (options.onPartial && (done === null || plan.indexOf(done) < plan.length - 1)) options.onPartial(snapshot(done));
+  };
+  partial(null);
   if (withTotals.equations.length === 0) {
     basis = [];
     basisStatus = "complete";
@@ -170,16 +210,12 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
     }
   } else if (!options.skipFullBasis)
     warnings.push("The full lex Gröbner basis was not computed: the parametrisation from linear elimination already describes every positive steady state (ask for the full basis to see it).");
+  if (plan.includes("groebner")) partial("groebner");
   const conditions = basis ? genericConditions(basis, kinT) : [];
   if (conditions.length > 0)
     warnings.push(`The basis holds for generic parameter values: these leading coefficients must not vanish: ${conditions.join("; ")} (one with all coefficients of one sign never vanishes for positive parameters).`);
 
-  // A pivot whose coefficients all have one sign never vanishes at positive species and rate
-  // constants; only the others restrict where the parametrisation is valid.
-  const nonVanishing = param
-    ? [...new Set(param.pivots.filter((p) => signPattern(p) === "mixed").map((p) => formatExpression({ num: primitive(p), den: kin.ring.one() }, param!.pivots)))]
-    : [];
-  const wholeRing = basis !== null && basis.length === 1 && basis[0].coeffs.length === 1 && basis[0].exps.every((e) => e === 0);
+  wholeRing = basis !== null && basis.length === 1 && basis[0].coeffs.length === 1 && basis[0].exps.every((e) => e === 0);
   const parameterOnly = basis && !wholeRing ? basis.filter((g) => leadingSpecies(g, kinT) === null) : [];
   if (wholeRing) warnings.push("The saturated steady-state ideal is the whole ring (its basis is [1]): there is no positive steady state.");
   if (parameterOnly.length > 0)
@@ -188,12 +224,6 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
     );
 
   // Stage: the positive steady states of the class.
-  let steadyStates: NumericSteadyState[] | null = null;
-  let steadyStatesReason: string | null = null;
-  let eliminant: SteadyStateAnalysis["eliminant"] = null;
-  let steadyStateSet: SteadyStateAnalysis["steadyStateSet"] = null;
-  let zeroDimensionalBasis = false;
-  let positivePoint: Record<string, number> | null = null;
   if (!numericRates) {
     const heldSymbolic = (network.constants ?? []).some((c) => kin.rateParameters.includes(c.name));
     steadyStatesReason = `Listing steady states needs a value for every rate constant${heldSymbolic ? " and constant species" : ""}; missing: ${kin.rateParameters.join(", ")}.`;
@@ -233,8 +263,10 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
     }
   }
 
+  if (plan.includes("steady-states")) partial("steady-states");
+
   // Stage: robustness (ACR).
-  const acr = param ? acrSpecies(kin, param) : [];
+  acr = param ? acrSpecies(kin, param) : [];
   // Species the elimination left as unknowns without a parametrisation: one block-order basis each.
   if (param && param.complete && !param.parametrisation && !param.infeasible)
     for (const s of param.unknowns) {
@@ -249,9 +281,9 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
       }
     }
   acr.sort((a, b) => network.species.indexOf(a.species) - network.species.indexOf(b.species));
+  if (plan.includes("acr")) partial("acr");
 
   // Stage: relation tests.
-  const relations: RelationResult[] = [];
   for (const text of options.relations ?? []) {
     try {
       budget.progress("relations", `testing ${text}`);
@@ -266,18 +298,70 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
     }
   }
 
-  const existence = positiveExistence({ param, wholeRing, steadyStates, steadyStateSet, classGiven, noLaws: laws.length === 0, numericRates, positivePoint });
+  return assemble({
+    network, options, structure, species, suggested, kin, kinT, noTotals, withTotals, laws, numericRates, classGiven, basis, basisStatus, param,
+    wholeRing, acr, relations, steadyStates, steadyStatesReason, eliminant, steadyStateSet, zeroDimensionalBasis, positivePoint, unfinished, warnings,
+  });
+}
+
+interface Parts {
+  network: Network;
+  options: AnalyseOptions;
+  structure: NetworkStructure;
+  species: string[];
+  suggested: ReturnType<typeof defaultOrder>;
+  kin: ReturnType<typeof kineticsRing>;
+  kinT: ReturnType<typeof kineticsRing>;
+  noTotals: ReturnType<typeof steadyStateSystem>;
+  withTotals: ReturnType<typeof steadyStateSystem>;
+  laws: bigint[][];
+  numericRates: boolean;
+  classGiven: boolean;
+  basis: QPoly[] | null;
+  basisStatus: SteadyStateAnalysis["groebnerBasisStatus"];
+  param: ReturnType<typeof computeParametrisation> | null;
+  wholeRing: boolean;
+  acr: AcrSpecies[];
+  relations: RelationResult[];
+  steadyStates: NumericSteadyState[] | null;
+  steadyStatesReason: string | null;
+  eliminant: SteadyStateAnalysis["eliminant"];
+  steadyStateSet: SteadyStateAnalysis["steadyStateSet"];
+  zeroDimensionalBasis: boolean;
+  positivePoint: Record<string, number> | null;
+  unfinished: UnfinishedStage[];
+  warnings: string[];
+}
+
+/** The result object from what the stages produced so far (the whole result once every stage has run). */
+function assemble(x: Parts): SteadyStateAnalysis {
+  const { network, options, structure, species, suggested, kin, kinT, noTotals, withTotals, laws, numericRates, classGiven, basis, param } = x;
+  const fmt = (p: Parameters<typeof kin.ring.format>[0]) => kin.ring.format(p);
+  // A pivot whose coefficients all have one sign never vanishes at positive species and rate
+  // constants; only the others restrict where the parametrisation is valid.
+  const nonVanishing = param
+    ? [...new Set(param.pivots.filter((p) => signPattern(p) === "mixed").map((p) => formatExpression({ num: primitive(p), den: kin.ring.one() }, param.pivots)))]
+    : [];
+  const existence = positiveExistence({
+    param,
+    wholeRing: x.wholeRing,
+    steadyStates: x.steadyStates,
+    steadyStateSet: x.steadyStateSet,
+    classGiven,
+    noLaws: laws.length === 0,
+    numericRates,
+    positivePoint: x.positivePoint,
+  });
   const positiveClass = laws.length === 0 || (options.initial !== undefined && network.species.every((s) => (options.initial!.get(s)?.num ?? 0n) > 0n));
   const contradictions = consistencyProblems({
     structure,
-    steadyStates,
-    steadyStateSet,
+    steadyStates: x.steadyStates,
+    steadyStateSet: x.steadyStateSet,
     positiveSteadyStatesExist: existence.exists,
     positiveClass,
     numericRates,
-    zeroDimensionalBasis,
+    zeroDimensionalBasis: x.zeroDimensionalBasis,
   });
-
   const order = { species, suggested: suggested.order, reason: suggested.reason, userGiven: options.order !== undefined };
   const values: Record<string, string> = {};
   for (const [k, v] of kin.rateValues) values[k] = v.den === 1n ? `${v.num}` : `${v.num}/${v.den}`;
@@ -291,30 +375,30 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
       replacedRows: kin.species.filter((_, i) => !withTotals.keptRows.includes(i)),
     },
     groebnerBasis: basis ? basis.map((p) => kinT.ring.format(p)) : null,
-    groebnerBasisStatus: basisStatus,
+    groebnerBasisStatus: x.basisStatus,
     ordering: `${kinT.ring.vars.join(" > ")} (${kinT.ring.orderName})`,
-    genericConditions: conditions,
+    genericConditions: basis ? genericConditions(basis, kinT) : [],
     triangularForm: basis ? triangularForm(basis, kinT).map((b) => ({ species: b.species, polynomials: b.polynomials.map((p) => kinT.ring.format(p)) })) : [],
     parametrisation: param?.parametrisation
       ? {
           free: [...param.parametrisation.free],
-          expressions: Object.fromEntries(param.parametrisation.expressions.map((e) => [e.species, formatExpression(e.expression, param!.pivots)])),
+          expressions: Object.fromEntries(param.parametrisation.expressions.map((e) => [e.species, formatExpression(e.expression, param.pivots)])),
           positive: param.parametrisation.positive,
         }
       : null,
     rootsNeeded: param ? param.rootsNeeded.map((r) => ({ species: r.species, polynomial: fmt(r.polynomial), degree: r.degree })) : [],
     nonVanishing,
-    acr,
-    relations,
-    steadyStates,
-    steadyStatesReason,
-    eliminant,
-    steadyStateSet,
+    acr: [...x.acr],
+    relations: [...x.relations],
+    steadyStates: x.steadyStates,
+    steadyStatesReason: x.steadyStatesReason,
+    eliminant: x.eliminant,
+    steadyStateSet: x.steadyStateSet,
     positiveSteadyStatesExist: existence.exists,
     positiveSteadyStatesReason: existence.reason,
-    unfinished,
+    unfinished: [...x.unfinished],
     contradictions,
-    warnings: [...warnings, ...(param?.notes ?? [])],
+    warnings: [...x.warnings, ...(param?.notes ?? [])],
   };
 }
 
