@@ -39,8 +39,8 @@ export interface AnalyseOptions extends BudgetOptions {
   readonly onPartial?: (partial: SteadyStateAnalysis) => void;
 }
 
-/** The reason given for a stage a partial result had not reached. */
-export const NOT_REACHED = "not reached: the run stopped before this stage";
+/** The reason given for a stage a partial result had not finished (the run was stopped from outside). */
+export const NOT_REACHED = "not finished: the run stopped before or during this stage";
 
 export type AnalysisStage = "parametrisation" | "groebner" | "steady-states" | "acr" | "relations";
 
@@ -136,18 +136,6 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
     "Only positive steady states are analysed: the steady-state ideal is saturated by the product of the species, which removes every solution with a zero concentration.",
   );
 
-  // Stage: parametrisation (no totals: one parametrisation serves every class).
-  let param: ReturnType<typeof computeParametrisation> | null = null;
-  try {
-    param = computeParametrisation(kin, odeRows, budget);
-    if (param.infeasible) warnings.push(`No positive steady state: ${param.infeasible}.`);
-    if (!param.complete) unfinished.push({ stage: "parametrisation", reason: "the lex Gröbner basis after linear elimination was not finished" });
-  } catch (e) {
-    if (!isOutOfBudget(e)) throw e;
-    ranOut("parametrisation", e);
-    warnings.push(`Parametrisation not finished: ${(e as Error).message}.`);
-  }
-
   // The class: fixed by the initial concentrations, or the whole space when nothing is conserved
   // (an open network's steady states do not depend on where it starts).
   const numericRates = kin.rateParameters.length === 0;
@@ -157,11 +145,9 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
   const kinT = totals ? kin : kineticsRing(network, { speciesOrder: species, totalCount: laws.length });
   const withTotals = steadyStateSystem(network, kinT, laws, totals);
 
-  // Stage: full lex basis, only where it is the answer (no parametrisation), the route to a numeric
-  // class's steady states, or asked for.
+  // What the stages produce, declared up front so a partial result can be assembled after any of them.
   let basis: QPoly[] | null = null;
   let basisStatus: SteadyStateAnalysis["groebnerBasisStatus"] = "skipped";
-  const wantBasis = !options.skipFullBasis && (options.fullBasis === true || numericClass || !param?.parametrisation);
   let wholeRing = false;
   let steadyStates: NumericSteadyState[] | null = null;
   let steadyStatesReason: string | null = null;
@@ -171,8 +157,15 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
   let positivePoint: Record<string, number> | null = null;
   let acr: AcrSpecies[] = [];
   const relations: RelationResult[] = [];
+  let param: ReturnType<typeof computeParametrisation> | null = null;
   // The stages still to run, for partial results.
-  const plan: AnalysisStage[] = [
+  // Before the parametrisation only the stages that surely follow are known; the plan is settled after it.
+  let plan: AnalysisStage[] = [
+    "parametrisation",
+    ...(numericRates && classGiven ? (["steady-states"] as const) : []),
+    ...((options.relations ?? []).length > 0 ? (["relations"] as const) : []),
+  ];
+  const planAfterParametrisation = (wantBasis: boolean): AnalysisStage[] => [
     ...(withTotals.equations.length > 0 && wantBasis ? (["groebner"] as const) : []),
     ...(numericRates && classGiven && !param?.infeasible ? (["steady-states"] as const) : []),
     ...(param && param.complete && !param.parametrisation && !param.infeasible && param.unknowns.length > 0 ? (["acr"] as const) : []),
@@ -188,9 +181,29 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
     });
   };
   const partial = (done: AnalysisStage | null) => {
-    if (options.onPartial && (done === null || plan.indexOf(done) < plan.length - 1)) options.onPartial(snapshot(done));
+    // Only while some stage is still to come: after the last one the result itself follows.
+    const left = done === null ? plan.length : plan.length - 1 - plan.indexOf(done);
+    if (options.onPartial && left > 0) options.onPartial(snapshot(done));
   };
+  // The structure, ODEs and steady-state system are in: the first partial result.
   partial(null);
+  // Stage: parametrisation (no totals: one parametrisation serves every class).
+  try {
+    param = computeParametrisation(kin, odeRows, budget);
+    if (param.infeasible) warnings.push(`No positive steady state: ${param.infeasible}.`);
+    if (!param.complete) unfinished.push({ stage: "parametrisation", reason: "the lex Gröbner basis after linear elimination was not finished" });
+  } catch (e) {
+    if (!isOutOfBudget(e)) throw e;
+    ranOut("parametrisation", e);
+    warnings.push(`Parametrisation not finished: ${(e as Error).message}.`);
+  }
+
+  const wantBasis = !options.skipFullBasis && (options.fullBasis === true || numericClass || !param?.parametrisation);
+  plan = ["parametrisation", ...planAfterParametrisation(wantBasis)];
+  partial("parametrisation");
+
+  // Stage: full lex basis, only where it is the answer (no parametrisation), the route to a numeric
+  // class's steady states, or asked for.
   if (withTotals.equations.length === 0) {
     basis = [];
     basisStatus = "complete";

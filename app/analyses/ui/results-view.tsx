@@ -1,3 +1,4 @@
+import { stageLabel } from "../stages";
 import type { ResultView } from "~/analyses/present";
 import type { AnalysisResult, MultistationarityView } from "~/analyses/result-types";
 import { answerOf, type Answer } from "~/analyses/answer";
@@ -171,11 +172,11 @@ export function ResultsView({ view, result }: { view: ResultView; result: Analys
       )}
       {(result.unfinished ?? []).length > 0 && (
         <Block id="unfinished" title="Unfinished stages">
-          <p className="text-sm text-muted">These stages ran out of time or size; everything above them was finished.</p>
+          <p className="text-sm text-muted">These stages ran out of time or size, or were not reached before the run stopped; everything else shown was finished.</p>
           <ul className="ml-5 list-disc space-y-1 text-sm" data-testid="unfinished">
             {result.unfinished!.map((u, i) => (
               <li key={i}>
-                <span className="font-medium">{u.stage}</span>: {u.reason}
+                <span className="font-medium">{stageLabel(u.stage)}</span>: {u.reason}
               </li>
             ))}
           </ul>
