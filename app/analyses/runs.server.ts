@@ -7,6 +7,7 @@ import { sql } from "kysely";
 import type { AnalysisStatus } from "~/db/schema";
 import { ANALYSIS_STATUSES } from "~/db/schema";
 import { UUID, type JobRecord } from "./repository.server";
+import { NAME_MAX, NOTE_MAX } from "./run-limits";
 import type { AnalysesDb } from "./schema";
 
 /** What the list's "kind" means for an analysis: how its rate constants and class were given. */
@@ -112,8 +113,7 @@ export async function runFilterChoices(db: AnalysesDb, labId: string) {
   return { networks, authors };
 }
 
-export const NAME_MAX = 120;
-export const NOTE_MAX = 4000;
+export { NAME_MAX, NOTE_MAX };
 
 export type DetailsParse = { ok: true; name: string; note: string } | { ok: false; problems: { field: string; message: string }[] };
 

@@ -8,6 +8,7 @@ import { findJob, listJobs } from "~/analyses/repository.server";
 import { asAnalysesDb } from "~/analyses/schema";
 import { listShareLinks } from "~/analyses/share.server";
 import { AnalysisBody } from "~/analyses/ui/analysis-body";
+import { RunDetails } from "~/analyses/ui/run-details";
 import { SharePanel } from "~/analyses/ui/share-panel";
 import { isUnfinished } from "~/analyses/ui/status";
 import { usePolling } from "~/analyses/ui/use-polling";
@@ -63,7 +64,11 @@ export default function AnalysisPage({ loaderData: d }: Route.ComponentProps) {
             {p.job.network.name}
           </Link>
         </p>
-        <h1 className="text-2xl font-semibold tracking-tight">Steady-state analysis</h1>
+        <h1 className="text-2xl font-semibold tracking-tight" data-testid="run-title">
+          {p.job.name || "Steady-state analysis"}
+        </h1>
+        {p.job.name && <p className="text-sm text-muted">Steady-state analysis</p>}
+        {p.job.archived && <p className="text-sm text-muted" data-testid="archived-note">Archived.</p>}
         <p className="text-sm text-muted">
           Started by {p.job.startedBy ?? "a former member"} on {p.job.createdAt.slice(0, 16).replace("T", " ")} UTC
           {d.canEdit && (
@@ -93,6 +98,7 @@ export default function AnalysisPage({ loaderData: d }: Route.ComponentProps) {
           </form>
         )}
       </header>
+      <RunDetails name={p.job.name} note={p.job.note} archived={p.job.archived} canEdit={d.canEdit} canDelete={d.isOwner} busy={unfinished} />
       <AnalysisBody d={p} canEdit={d.canEdit} exportBase={`${base}/export`} scanCsvBase={`${base}/export`} />
       {d.isOwner && (
         <section className="space-y-3 border-t border-line pt-5" aria-labelledby="share-title">
