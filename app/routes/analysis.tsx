@@ -34,7 +34,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     canEdit: hasRole(access.role, "editor"),
     isOwner,
     shareLinks: isOwner ? await listShareLinks(adb, job.id) : [],
-    compareWith: siblings.map((s) => ({ id: s.id, label: `${s.created_at.toISOString().slice(0, 16).replace("T", " ")} · v${s.version_number} · ${s.starter_name ?? "?"}` })),
+    compareWith: siblings.map((s) => ({ id: s.id, label: `${s.name ? `${s.name} · ` : ""}${s.created_at.toISOString().slice(0, 16).replace("T", " ")} · v${s.version_number} · ${s.starter_name ?? "?"}` })),
   };
 }
 
@@ -82,11 +82,11 @@ export default function AnalysisPage({ loaderData: d }: Route.ComponentProps) {
           )}
         </p>
         {d.compareWith.length > 0 && p.job.status === "succeeded" && (
-          <form method="get" action={`${analysesPath(d.lab.slug)}/compare`} className="flex items-center gap-2 text-sm">
-            <input type="hidden" name="a" value={p.job.id} />
+          <form method="get" action={`${analysesPath(d.lab.slug)}/compare`} className="flex flex-wrap items-end gap-2 text-sm" data-testid="compare-form">
+            <input type="hidden" name="id" value={p.job.id} />
             <label>
-              Compare with{" "}
-              <select name="b" className="rounded-md border border-line bg-surface px-2 py-1">
+              <span className="block text-xs text-muted">Compare with (choose one or more; Ctrl or ⌘ for several)</span>
+              <select name="id" multiple size={Math.min(4, d.compareWith.length)} className="min-w-64 rounded-md border border-line bg-surface px-2 py-1">
                 {d.compareWith.map((c) => (
                   <option key={c.id} value={c.id}>
                     {c.label}
