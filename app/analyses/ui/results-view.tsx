@@ -1,4 +1,5 @@
 import { stageLabel } from "../stages";
+import { SteadyStatesTable } from "./steady-states-table";
 import type { ResultView } from "~/analyses/present";
 import type { AnalysisResult, MultistationarityView } from "~/analyses/result-types";
 import { answerOf, type Answer } from "~/analyses/answer";
@@ -133,36 +134,7 @@ export function ResultsView({ view, result }: { view: ResultView; result: Analys
               From the real roots of <span className="font-mono">{result.eliminant.polynomial}</span> in {result.eliminant.variable}, isolated exactly.
             </p>
           )}
-          <div className="overflow-x-auto rounded-card border border-line bg-surface">
-            <table className="w-full text-left text-sm" data-testid="steady-states">
-              <thead className="border-b border-line bg-sunken text-xs uppercase tracking-wide text-muted">
-                <tr>
-                  <th className="px-3 py-2">#</th>
-                  {view.species.map((s) => (
-                    <th key={s} className="px-3 py-2 font-mono normal-case">
-                      {s}
-                    </th>
-                  ))}
-                  <th className="px-3 py-2">Stability</th>
-                  <th className="px-3 py-2">Eigenvalues</th>
-                </tr>
-              </thead>
-              <tbody>
-                {view.steadyStates.map((s) => (
-                  <tr key={s.index} className="border-b border-line last:border-0" data-testid="steady-state-row">
-                    <td className="px-3 py-2 tabular-nums">{s.index}</td>
-                    {view.species.map((sp) => (
-                      <td key={sp} className="px-3 py-2 tabular-nums" data-testid={`conc-${sp}`}>
-                        {s.concentrations[sp]?.toPrecision(12)}
-                      </td>
-                    ))}
-                    <td className={`px-3 py-2 font-medium ${s.verdict === "stable" ? "text-ok" : s.verdict === "unstable" ? "text-danger" : "text-muted"}`}>{s.verdict}</td>
-                    <td className="px-3 py-2 font-mono text-xs">{s.eigenvalues.join(", ") || "(none)"}</td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </div>
+          <SteadyStatesTable states={view.steadyStates} species={view.species} />
         </Block>
       )}
       {result.steadyStates === null && (result.steadyStateSet === "continuum" || result.steadyStatesReason) && (
