@@ -45,7 +45,7 @@ export async function runAnalysisAction(db: AnalysesDb, access: LabAccess, job: 
       assertLabRole(access, "editor");
       const parsed = parseRunDetails({ name: form.get("name"), note: form.get("note") });
       if (!parsed.ok) return data({ problems: parsed.problems }, { status: 400 });
-      await setRunDetails(db, job.id, parsed);
+      await setRunDetails(db, job.id, { name: parsed.name, note: parsed.note });
       if (parsed.name !== job.name) await recordRunAudit(db, access, "analysis.renamed", { ...runDetails(job), from: job.name, to: parsed.name });
       if (parsed.note !== job.note) await recordRunAudit(db, access, "analysis.note_changed", { ...runDetails({ ...job, name: parsed.name }) });
       return { saved: "details" as const };
