@@ -19,7 +19,7 @@ export function RunDetails({ name, note, archived, canEdit, canDelete, busy }: {
     ) : null;
   const problems = [...(details.data?.problems ?? []), ...(remove.data?.problems ?? [])];
   return (
-    <details className="rounded-card border border-line bg-surface px-4 py-2 text-sm" open={!name} data-testid="run-details">
+    <details className="rounded-card border border-line bg-surface px-4 py-2 text-sm" data-testid="run-details">
       <summary className="cursor-pointer font-medium">Name, note and archive</summary>
       <details.Form method="post" className="mt-3 space-y-2">
         <input type="hidden" name="intent" value="details" />
