@@ -8,8 +8,9 @@ import { resetSignInLimits, signInWithCode } from "./accounts-helpers";
  * Runs one can keep track of, in the browser, as the demo lab's owner: a run of a network that is
  * slow by construction (ten-switches: 3^10 steady states to list) shows its first stages while it
  * computes; cancelled, it keeps them, marked partial with what was not finished. Then the run is
- * named, found again with the list's filters, archived (hidden until "Show archived"), and the
- * lab's audit log tells all of it in sentences.
+ * named, found again with the list's filters, archived (hidden until "Show archived"); a network
+ * with three steady states has its table sorted and three runs compared; and the lab's audit log
+ * tells all of it in sentences.
  */
 const LAB = "/labs/halvorsen-enzyme-lab";
 const OWNER = "Ingrid Halvorsen";
@@ -98,6 +99,45 @@ describe.skipIf(!hasApp)("runs: partial results, names, filters, archive, audit"
     await page.getByTestId("run-filters").getByRole("button", { name: "Filter" }).click();
     await expect.poll(async () => (await page.getByTestId("run-name").allInnerTexts()).includes("Switches, cancelled early"), { timeout: 10_000, interval: 300 }).toBe(true);
   }, 90_000);
+
+  it("sorts the steady-state table and compares three runs side by side", async () => {
+    const { page } = await owner.page(`${LAB}/networks`);
+    // -(X - 1)(X - 2)(X - 3): positive steady states 1, 2, 3 (see the fixture's header).
+    const csv = readFileSync("tests/fixtures/networks/cubic-autocatalysis.csv", "utf8");
+    const created = await page.evaluate(
+      async ({ url, name, csv }) => (await (await fetch(url, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ name, csv }) })).json()) as { network: { id: string } },
+      { url: `/api${LAB}/networks`, name: `Cubic ${NETWORK}`, csv },
+    );
+    const cubicId = created.network.id;
+    const runs: string[] = [];
+    for (const symbolic of [false, true, false]) {
+      await page.goto(`${LAB}/networks/${cubicId}/analyse`);
+      if (symbolic) await page.getByLabel("all symbolic").check();
+      await page.getByRole("button", { name: "Start analysis" }).click();
+      await page.waitForURL(/\/analyses\/[0-9a-f-]{36}$/);
+      runs.push(new URL(page.url()).pathname);
+      await expect.poll(() => text(page, "status"), { timeout: 90_000, interval: 500 }).toBe("succeeded");
+    }
+    await page.goto(runs[0]!);
+    await page.getByTestId("steady-states").waitFor();
+    const xs = async () => (await page.getByTestId("steady-state-row").locator('[data-testid="conc-X"]').allInnerTexts()).map(Number);
+    expect(await xs()).toEqual([1, 2, 3]);
+    const header = page.getByTestId("sort-conc-X");
+    await header.click();
+    const dir = await page.locator("th", { has: header }).getAttribute("aria-sort");
+    expect(await xs()).toEqual(dir === "descending" ? [3, 2, 1] : [1, 2, 3]);
+    await header.click();
+    expect(await xs()).toEqual(dir === "descending" ? [1, 2, 3] : [3, 2, 1]);
+
+    await page.goto(`${LAB}/analyses?network=${cubicId}`);
+    for (const r of runs) await page.locator(`input[name=id][value="${r.split("/").pop()}"]`).check();
+    await page.getByTestId("compare-selected").click();
+    const columns = page.getByTestId("compare-column");
+    await expect.poll(() => columns.count(), { timeout: 10_000, interval: 300 }).toBe(3);
+    expect(await page.locator("h1").innerText()).toMatch(/^Compare 3 analyses of Cubic /);
+    expect(await columns.nth(1).innerText()).toMatch(/symbolic rates/);
+    expect(await columns.nth(2).innerText()).toMatch(/numeric rates/);
+  }, 300_000);
 
   it("tells the lab's audit log in sentences", async () => {
     const { page } = await owner.page(`${LAB}/audit`);
