@@ -10,6 +10,7 @@ import type { JobRecord } from "./repository.server";
 import { isUuid } from "~/shared/uuid";
 import { NAME_MAX, NOTE_MAX } from "./run-limits";
 import type { DbExecutor } from "~/db/schema";
+import { formatDateTime } from "~/shared/dates";
 
 /** What the list's "kind" means for an analysis: how its rate constants and class were given. */
 export type RunKind = "symbolic" | "numeric" | "class";
@@ -159,5 +160,5 @@ export async function deleteRun(db: DbExecutor, id: string): Promise<{ ok: true 
 
 /** The label a run goes by: its name, else the network, version and start time. */
 export function runLabel(j: { name: string; network_name: string; version_number: number; created_at: Date }): string {
-  return j.name || `${j.network_name} v${j.version_number}, ${j.created_at.toISOString().slice(0, 16).replace("T", " ")}`;
+  return j.name || `${j.network_name} v${j.version_number}, ${formatDateTime(j.created_at)}`;
 }

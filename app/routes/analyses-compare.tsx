@@ -45,7 +45,7 @@ function Column({ s, labSlug }: { s: Side; labSlug: string }) {
         <Link to={analysisPath(labSlug, s.job.id)} className="font-medium text-accent-strong hover:underline">
           {s.job.name || formatDateTime(s.job.createdAt)}
         </Link>{" "}
-        {s.job.name && <span className="text-muted">{s.job.createdAt.slice(0, 16).replace("T", " ")} </span>}
+        {s.job.name && <span className="text-muted">{formatDateTime(s.job.createdAt)} </span>}
         · version {s.job.network.version} · engine {s.job.engineVersion}
       </p>
       <p className="text-sm text-muted">

@@ -3,6 +3,7 @@ import type { JobJson } from "~/analyses/repository.server";
 import { analysesPath, analysisPath } from "~/analyses/paths";
 import { networkPath } from "~/networks/paths";
 import { StatusBadge } from "./status";
+import { formatDateTime } from "~/shared/dates";
 
 type Run = JobJson & { partial: boolean };
 interface Choices {
@@ -129,7 +130,7 @@ export function RunsList({ labSlug, runs, choices, kindLabels }: { labSlug: stri
                     <StatusBadge status={a.status} />
                     {a.partial && <span className="ml-1 text-xs text-signal">partial result</span>}
                   </td>
-                  <td className="whitespace-nowrap px-3 py-2 text-muted">{a.createdAt.slice(0, 16).replace("T", " ")}</td>
+                  <td className="whitespace-nowrap px-3 py-2 text-muted">{formatDateTime(a.createdAt)}</td>
                   <td className="px-3 py-2 text-muted">{a.startedBy ?? "former member"}</td>
                 </tr>
               ))}
