@@ -221,7 +221,7 @@ function searchWitness(network: Network, structure: NetworkStructure, budget: Bu
     const monomial = (c: Record<string, number>) => Object.entries(c).reduce((acc, [s, e]) => mulQ(acc, powQ(x[species.indexOf(s)], e)), ONE);
     for (const r of network.reactions) {
       const j = rateNames.indexOf(r.rate);
-      const mono = monomial(r.reactant);
+      const mono = mulQ(monomial(r.reactant), heldFactor(network, r));
       for (let i = 0; i < n; i++) {
         const d = (r.product[species[i]] ?? 0) - (r.reactant[species[i]] ?? 0);
         if (d !== 0) A[i][j] = addQ(A[i][j], mulQ(fromInt(d), mono));
@@ -237,7 +237,9 @@ function searchWitness(network: Network, structure: NetworkStructure, budget: Bu
     const cover = rateNames.map((_, j) => rays.some((ray) => ray[j] > 0n));
     if (!cover.every(Boolean)) continue; // no strictly positive κ makes x* a steady state
     for (let tries = 0; tries < 8; tries++) {
-      const c = rays.map(() => BigInt(1 + Math.floor(random() * 9)));
+      // Coefficients spread over three orders of magnitude: the region where the sign of det M
+      // flips is often narrow in the cone (the fed one-species cubic needs one ray ten times the others).
+      const c = rays.map(() => BigInt(1 + Math.floor(random() * 9)) * 10n ** BigInt(Math.floor(random() * 3)));
       const kappa = rateNames.map((_, j) => fromInt(rays.reduce((acc, ray, r) => acc + ray[j] * c[r], 0n)));
       const jac = jacobianAt(network, rateNames, x, kappa);
       const M = jac.map((row, i) => (pivots.includes(i) ? W[pivots.indexOf(i)] : row));
@@ -248,6 +250,19 @@ function searchWitness(network: Network, structure: NetworkStructure, budget: Bu
     }
   }
   return null;
+}
+
+/**
+ * Π c^e over the held (constant) species of a reaction's reactant: part of its rate, not a
+ * variable. A held species without a value counts as 1 here and is held at 1 in the witness.
+ */
+function heldFactor(network: Network, r: Network["reactions"][number]): Rational {
+  let f = ONE;
+  for (const [name, e] of Object.entries(r.held ?? {})) {
+    const c = (network.constants ?? []).find((k) => k.name === name);
+    f = mulQ(f, powQ(c?.value ?? ONE, e));
+  }
+  return f;
 }
 
 function powQ(a: Rational, e: number): Rational {
@@ -267,7 +282,7 @@ function jacobianAt(network: Network, rateNames: readonly string[], x: readonly 
       const ej = r.reactant[species[j]] ?? 0;
       if (ej === 0) continue;
       // ∂/∂x_j of k·x^y = k·e_j·x^(y − e_j)
-      let dm = mulQ(k, fromInt(ej));
+      let dm = mulQ(mulQ(k, fromInt(ej)), heldFactor(network, r));
       for (const [s, e] of Object.entries(r.reactant)) dm = mulQ(dm, powQ(x[species.indexOf(s)], s === species[j] ? e - 1 : e));
       for (let i = 0; i < n; i++) {
         const d = (r.product[species[i]] ?? 0) - (r.reactant[species[i]] ?? 0);
@@ -288,7 +303,9 @@ function verify(
   budget: Budget,
 ): MultistationarityWitness | null {
   const value = new Map(rateNames.map((r, j) => [r, kappa[j]]));
-  const numeric: Network = { ...network, reactions: network.reactions.map((r) => ({ ...r, rateValue: value.get(r.rate) })) };
+  // Held species keep their values; one without a value is held at 1 in the witness (and said so in its rates).
+  const constants = (network.constants ?? []).map((c) => ({ ...c, value: c.value ?? ONE }));
+  const numeric: Network = { ...network, constants, reactions: network.reactions.map((r) => ({ ...r, rateValue: value.get(r.rate) })) };
   const initial = new Map(network.species.map((s, i) => [s, x[i]]));
   try {
     const left = budget.deadline - Date.now();
@@ -300,7 +317,10 @@ function verify(
       totals[`T${i + 1}`] = fmtQ(network.species.reduce((acc, s, k) => addQ(acc, mulQ(fromInt(law[s] ?? 0), x[k])), ZERO));
     });
     return {
-      rates: Object.fromEntries(rateNames.map((r, j) => [r, fmtQ(kappa[j])])),
+      rates: {
+        ...Object.fromEntries(rateNames.map((r, j) => [r, fmtQ(kappa[j])])),
+        ...Object.fromEntries((network.constants ?? []).filter((c) => c.value === undefined).map((c) => [c.name, "1"])),
+      },
       totals,
       initial: Object.fromEntries(network.species.map((s, i) => [s, fmtQ(x[i])])),
       steadyStates: r.steadyStates.map((s) => ({ ...s.concentrations })),

@@ -78,6 +78,24 @@ print(json.dumps(len([r for r in real_roots(Poly(f, X)) if r > 0])))
     expect(n).toBe(r.witness!.steadyStates.length);
   });
 
+  it("fed cubic switch (Schlögl's second model with A and B held, Z. Physik 253, 1972): multistationary, the held values inside the rates; SymPy counts the witness' states", () => {
+    const net = parseNetworkCsv(fixture("fed-schloegl"));
+    const r = multistationarity(net);
+    expect(r.verdict).toBe("multistationary");
+    const k = r.witness!.rates;
+    expect(r.witness!.steadyStates.length).toBeGreaterThanOrEqual(2);
+    if (!existsSync(PYTHON)) return;
+    // dX/dt = k1·A·X² − k2·X³ − k3·X + k4·B with A = 2, B = 3 held (the file's values), written out here.
+    const n = sympy(`
+import json
+from sympy import symbols, Rational as R, real_roots, Poly
+X = symbols("X")
+f = R("${k.k1}")*2*X**2 - R("${k.k2}")*X**3 - R("${k.k3}")*X + R("${k.k4}")*3
+print(json.dumps(len([r for r in real_roots(Poly(f, X)) if r > 0])))
+`) as number;
+    expect(n).toBe(r.witness!.steadyStates.length);
+  });
+
   it("Edelstein network (J. Theor. Biol. 29, 1970): multistationary for some constants; witness checked without the engine", () => {
     const net = parseNetworkCsv(EDELSTEIN);
     const r = multistationarity(net);
