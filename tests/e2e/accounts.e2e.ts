@@ -104,6 +104,9 @@ describe.skipIf(!hasApp)("accounts: sign-in, labs and invitations in headless ch
   it("the owner sees the story in the audit log", async () => {
     const { page } = await lead.page(`${labPath}/audit`);
     const log = await page.getByTestId("audit").innerText();
-    for (const kind of ["lab.created", "invitation.sent", "invitation.accepted"]) expect(log).toContain(kind);
+    // Told as sentences (the kinds sit in the rows' titles).
+    for (const said of ["created the lab", "invited", "accepted the invitation"]) expect(log).toContain(said);
+    const kinds = await page.getByTestId("audit-sentence").evaluateAll((cells) => cells.map((c) => c.getAttribute("title")));
+    for (const kind of ["lab.created", "invitation.sent", "invitation.accepted"]) expect(kinds).toContain(kind);
   });
 });
