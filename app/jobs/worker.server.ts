@@ -32,7 +32,7 @@ export interface RunningWorker {
 export async function startWorker(options: WorkerOptions): Promise<RunningWorker> {
   const id = `${hostname()}:${process.pid}:${randomBytes(3).toString("hex")}`;
   const log = options.log ?? ((line: string) => console.log(`[worker ${id}] ${line}`));
-  const db = asAnalysesDb(createDb(options.databaseUrl, { max: 4 }));
+  const db = asAnalysesDb(createDb(options.databaseUrl, { max: getEnv().dbPool.workerMax, waitMs: getEnv().dbPool.waitMs }));
   const boss = await getBoss(options.databaseUrl, { supervise: true });
   const processOptions: ProcessOptions = {
     workerId: id,
