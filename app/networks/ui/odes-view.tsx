@@ -1,14 +1,14 @@
-import katex from "katex";
 import "katex/dist/katex.min.css";
+import { katexHtml } from "~/components/render-cache";
 import { odesAlignedLatex, odeToText, type SpeciesOde } from "../odes";
 
 /**
  * The ODEs typeset by KaTeX in one aligned block (fonts come from node_modules through Vite; no
  * CDN). Rendered to an HTML+MathML string, the same on the server and in the browser; the
- * plain-text forms follow for copying and screen readers.
+ * plain-text forms follow for copying and screen readers. The HTML is remembered by formula.
  */
 export function OdesView({ odes }: { odes: SpeciesOde[] }) {
-  const html = katex.renderToString(odesAlignedLatex(odes), { displayMode: true, throwOnError: false, output: "htmlAndMathml" });
+  const html = katexHtml(odesAlignedLatex(odes), true);
   return (
     <div data-testid="odes">
       {/* KaTeX escapes every symbol it is given; names come from the validated CSV. */}
