@@ -7,8 +7,9 @@
  *    left alone);
  * 3. static files from build/client: hashed files under /assets/ with a one-year immutable cache,
  *    other files revalidated (ETag, Last-Modified);
- * 4. for writes, the body limit of its route and the NUL check (request-guards.ts), before the app
- *    reads a byte;
+ * 4. for writes (every method but GET, HEAD, OPTIONS): the same-origin check, pages' form posts
+ *    included (app/permissions/same-origin.ts: a foreign Origin is refused with 403 before the
+ *    body is read), then the body limit of its route and the NUL check (request-guards.ts);
  * 5. the app, with the client's address in its load context (app/load-context.ts) for the
  *    per-client limits. `TRUST_PROXY` is express's `trust proxy` setting: unset, the socket
  *    address counts and X-Forwarded-For is ignored; a hop count (`1` behind one reverse proxy) or a
@@ -22,6 +23,7 @@ import compression from "compression";
 import express, { type Application, type NextFunction, type Request, type RequestHandler, type Response } from "express";
 import type { ServerBuild } from "react-router";
 import type { ServerLoadContext } from "../app/load-context";
+import { CROSS_ORIGIN_MESSAGE, crossOriginWrite } from "../app/permissions/same-origin";
 import { bodyLimitFor, errorBody, nulLocation, SECURITY_HEADERS } from "./lib/request-guards";
 
 /** express's `trust proxy` value from TRUST_PROXY: false, a hop count, or a list of addresses. */
@@ -63,6 +65,22 @@ function refuse(req: Request, res: Response, status: number, body: string) {
 }
 
 const READS = new Set(["GET", "HEAD", "OPTIONS"]);
+
+/**
+ * Refuses a write whose Origin (or Sec-Fetch-Site) says another site's page sent it: the browser
+ * would have attached our session cookie. Requests with an Authorization header are API-token
+ * clients (a browser sends that header cross-origin only after a CORS preflight, which this
+ * server never grants) and pass; the API checks them itself.
+ */
+function sameOriginWrites(appOrigins: readonly string[]) {
+  return (req: Request, res: Response, next: NextFunction) => {
+    if (READS.has(req.method ?? "GET") || req.headers.authorization !== undefined) return next();
+    const own = [`${req.protocol}://${req.get("host") ?? ""}`, ...appOrigins];
+    const foreign = crossOriginWrite(req.method ?? "POST", { origin: req.get("origin"), fetchSite: req.get("sec-fetch-site") }, own);
+    if (!foreign) return next();
+    refuse(req, res, 403, errorBody("cross_origin", CROSS_ORIGIN_MESSAGE, foreign));
+  };
+}
 
 /**
  * For writes: reads the body up to the route's limit (refusing a larger declared length unread
@@ -120,11 +138,13 @@ export interface AppOptions {
   /** The URL prefix they are served under (the build's publicPath, usually "/"). */
   publicPath?: string;
   trustProxy?: TrustProxy;
+  /** Origins besides the one a request arrived on that count as ours (APP_URL's, behind a proxy). */
+  appOrigins?: readonly string[];
   /** Everything that is not a static file: the SSR handler (express-style). */
   handle: RequestHandler;
 }
 
-/** The express app: security headers, compression, static files, body limits, then the app. */
+/** The express app: security headers, compression, static files, same-origin writes, body limits, then the app. */
 export function createApp(options: AppOptions): Application {
   const app = express();
   app.disable("x-powered-by");
@@ -138,6 +158,7 @@ export function createApp(options: AppOptions): Application {
     express.static(path.join(clientDir, "assets"), { immutable: true, maxAge: "1y", index: false, redirect: false }),
   );
   app.use(publicPath, express.static(clientDir, { maxAge: 0, index: false, redirect: false }));
+  app.use(sameOriginWrites(options.appOrigins ?? []));
   app.use(guardBody(options.handle));
   app.use((err: unknown, _req: Request, res: Response, _next: NextFunction) => {
     console.error("[serve] unhandled:", err instanceof Error ? (err.stack ?? err.message) : err);
@@ -146,6 +167,14 @@ export function createApp(options: AppOptions): Application {
     res.end(errorBody("internal", "Something went wrong on our side; nothing was changed. Please try again."));
   });
   return app;
+}
+
+function appOrigin(appUrl: string | undefined): string[] {
+  try {
+    return appUrl ? [new URL(appUrl).origin] : [];
+  } catch {
+    return [];
+  }
 }
 
 /** An HTTP server (not yet listening) for the server build at `entry` (build/server/index.js). */
@@ -160,6 +189,7 @@ export async function createAppServer(entry: string, options: { trustProxy?: Tru
     clientDir: path.join(path.dirname(file), "..", "client"),
     publicPath: build.publicPath,
     trustProxy: options.trustProxy,
+    appOrigins: appOrigin(process.env.APP_URL),
     handle: createRequestHandler({
       build,
       mode: process.env.NODE_ENV,

@@ -47,7 +47,7 @@ async function listen(listener: http.RequestListener | Application) {
       req.on("error", reject);
       req.end(opts.body);
     });
-  return { send, close: () => new Promise<void>((resolve) => server.close(() => resolve())) };
+  return { send, port, close: () => new Promise<void>((resolve) => server.close(() => resolve())) };
 }
 
 describe("static files", () => {
@@ -276,5 +276,65 @@ describe("the client address under TRUST_PROXY", () => {
   it("believes only the listed proxies", async () => {
     expect(await seen("127.0.0.1", "127.0.0.1", { "X-Forwarded-For": "198.51.100.7" })).toBe("198.51.100.7");
     expect(await seen("127.0.0.1", "127.0.0.4", { "X-Forwarded-For": "198.51.100.7" })).toBe("127.0.0.4");
+  });
+});
+
+describe("same-origin check on every write, not only the API's", () => {
+  let server: Awaited<ReturnType<typeof listen>>;
+  let origin: string;
+  const reached: string[] = [];
+  beforeAll(async () => {
+    server = await listen(
+      createApp({
+        clientDir: path.join(os.tmpdir(), "stillpoint-no-client"),
+        appOrigins: ["https://stillpoint.example"],
+        handle: (req, res) => {
+          req.resume();
+          req.on("end", () => {
+            reached.push(`${req.method} ${req.url}`);
+            res.writeHead(200, { "Content-Type": "text/plain" }).end("app");
+          });
+        },
+      }),
+    );
+    origin = `http://127.0.0.1:${server.port}`;
+  });
+  afterAll(async () => server.close());
+
+  const form = { "Content-Type": "application/x-www-form-urlencoded" };
+  // One request of each class a browser can send with the session cookie attached.
+  const classes: { what: string; path: string; headers: Record<string, string>; body: string }[] = [
+    { what: "a page's form post (lab settings)", path: "/labs/alpha", headers: form, body: "intent=rename&name=X" },
+    { what: "a page's multipart upload (new network)", path: "/labs/alpha/networks/new", headers: { "Content-Type": "multipart/form-data; boundary=XX" }, body: '--XX\r\nContent-Disposition: form-data; name="name"\r\n\r\nN\r\n--XX--\r\n' },
+    { what: "a client-side submission (React Router .data)", path: "/labs/alpha/networks/n1.data", headers: form, body: "intent=archive" },
+    { what: "an anonymous form (sign-in)", path: "/sign-in", headers: form, body: "email=a%40b.test" },
+    { what: "sign-out", path: "/sign-out", headers: form, body: "" },
+    { what: "a cookie API write", path: "/api/labs", headers: { "Content-Type": "application/json" }, body: '{"name":"L"}' },
+    { what: "a text/plain post", path: "/labs/alpha/members", headers: { "Content-Type": "text/plain" }, body: "x" },
+  ];
+
+  for (const c of classes) {
+    it(`refuses ${c.what} from another origin with 403, before the app sees it; accepts it from ours`, async () => {
+      const before = reached.length;
+      const foreign = await server.send(c.path, { method: "POST", headers: { ...c.headers, Origin: "http://127.0.0.1:4000" }, body: c.body });
+      expect(foreign.status).toBe(403);
+      expect(JSON.parse(foreign.body).error).toMatchObject({ code: "cross_origin", details: { origin: "http://127.0.0.1:4000" } });
+      const fetchSite = await server.send(c.path, { method: "POST", headers: { ...c.headers, "Sec-Fetch-Site": "same-site" }, body: c.body });
+      expect(fetchSite.status).toBe(403);
+      expect(reached.length).toBe(before);
+
+      const own = await server.send(c.path, { method: "POST", headers: { ...c.headers, Origin: origin, "Sec-Fetch-Site": "same-origin" }, body: c.body });
+      expect(own.status).toBe(200);
+      const proxied = await server.send(c.path, { method: "POST", headers: { ...c.headers, Origin: "https://stillpoint.example" }, body: c.body });
+      expect(proxied.status).toBe(200);
+      expect(reached.length).toBe(before + 2);
+    });
+  }
+
+  it("lets reads, scripts without Origin and API-token clients through", async () => {
+    expect((await server.send("/labs/alpha", { headers: { Origin: "http://127.0.0.1:4000" } })).status).toBe(200);
+    expect((await server.send("/labs/alpha", { method: "POST", headers: form, body: "name=x" })).status).toBe(200);
+    const token = await server.send("/api/labs", { method: "POST", headers: { "Content-Type": "application/json", Authorization: "Bearer stp_x", Origin: "http://127.0.0.1:4000" }, body: "{}" });
+    expect(token.status).toBe(200);
   });
 });
