@@ -3,6 +3,7 @@ import * as initial from "./20261201220000_initial";
 import * as accounts from "./20261201230000_accounts";
 import * as analyses from "./20261201234500_analyses";
 import * as rateLimits from "./20261202070000_rate_limits";
+import * as networkStructures from "./20261202130000_network_structures";
 
 /**
  * Every migration, keyed by its file name without extension, in the order they run.
@@ -14,4 +15,5 @@ export const migrations: Record<string, Migration> = {
   "20261201230000_accounts": accounts,
   "20261201234500_analyses": analyses,
   "20261202070000_rate_limits": rateLimits,
+  "20261202130000_network_structures": networkStructures,
 };

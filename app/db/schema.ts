@@ -93,6 +93,20 @@ export interface NetworkVersionsTable {
   created_at: CreatedAt;
 }
 
+export type StructureStatus = "pending" | "computing" | "ready" | "failed";
+
+/** One row per distinct network file (content hash); written by the worker (app/networks/structure-store.server.ts). */
+export interface NetworkStructuresTable {
+  content_hash: string;
+  csv: string;
+  status: ColumnType<StructureStatus, StructureStatus | undefined, StructureStatus>;
+  structure: JSONColumnType<JsonObject | null, JsonObject | null | undefined, JsonObject | null>;
+  problem: string | null;
+  requested_at: ColumnType<Date, Date | string | undefined, Date | string>;
+  claimed_at: NullableTimestamp;
+  computed_at: NullableTimestamp;
+}
+
 export interface AnalysesTable {
   id: Generated<string>;
   network_version_id: string;
@@ -175,6 +189,7 @@ export interface Database {
   invitations: InvitationsTable;
   networks: NetworksTable;
   network_versions: NetworkVersionsTable;
+  network_structures: NetworkStructuresTable;
   analyses: AnalysesTable;
   api_tokens: ApiTokensTable;
   audit_events: AuditEventsTable;

@@ -5,6 +5,7 @@
 import { createHash } from "node:crypto";
 import type { Kysely, Transaction } from "kysely";
 import type { Database } from "~/db/schema";
+import { requestStructure } from "./structure-store.server";
 
 type Executor = Kysely<Database> | Transaction<Database>;
 
@@ -180,6 +181,8 @@ async function insertVersionRow(trx: Executor, networkId: string, number: number
     .values({ network_id: networkId, number, content_hash: contentHash(input.csv), csv: input.csv, change_note: input.changeNote, author_id: input.authorId })
     .returning("id")
     .executeTakeFirstOrThrow();
+  // The worker computes the structure (structure-store.server.ts); asked for with the version itself.
+  await requestStructure(trx, input.csv);
   const row = await versionQuery(trx).where("v.id", "=", inserted.id).executeTakeFirstOrThrow();
   return toVersion(row);
 }

@@ -7,6 +7,7 @@ import { networkPath } from "~/networks/paths";
 import { analysesPath, newAnalysisPath } from "~/analyses/paths";
 import { NetworkHeader } from "~/networks/ui/network-header";
 import { NetworkSettings } from "~/networks/ui/network-settings";
+import { StructurePending } from "~/networks/ui/structure-pending";
 import { StructureView } from "~/networks/ui/structure-view";
 import { VersionList } from "~/networks/ui/version-list";
 import { requireLabRole } from "~/permissions/permissions.server";
@@ -62,7 +63,11 @@ export default function NetworkPage({ loaderData, actionData }: Route.ComponentP
           </a>
         ))}
       </nav>
-      <StructureView structure={d.structure} name={d.network.name} />
+      {d.structure ? (
+        <StructureView structure={d.structure} name={d.network.name} />
+      ) : (
+        <StructurePending status={d.structureStatus === "failed" ? "failed" : "pending"} problem={d.structureProblem} />
+      )}
       {d.canEdit && <NetworkSettings network={d.network} canDelete={d.canDelete} result={actionData} />}
       {!d.canEdit && (
         <p className="text-sm text-muted">
