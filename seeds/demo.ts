@@ -6,6 +6,7 @@ import { createHash } from "node:crypto";
 import type { Kysely } from "kysely";
 import type { Database } from "../app/db/schema";
 import { DEMO_LAB, DEMO_NETWORKS, DEMO_PEOPLE } from "./demo-data";
+import { requestStructure } from "../app/networks/structure-store.server";
 
 export function contentHash(csv: string): string {
   return createHash("sha256").update(csv, "utf8").digest("hex");
@@ -82,6 +83,8 @@ export async function seedDemo(db: Kysely<Database>): Promise<SeedSummary> {
 
       for (const version of network.versions) {
         const hash = contentHash(version.csv);
+        // Asked for up front, so the worker has the structures ready before anyone opens the page.
+        await requestStructure(trx, version.csv);
         const present = await trx
           .selectFrom("network_versions")
           .select("id")
