@@ -5,7 +5,7 @@
  * worker (scripts/lib/services.ts), exactly as `npm start` runs them, and removes all of it at the
  * end. Then, for each level, that many signed-in users (each a lab member with a session of their
  * own) load the lab's network list, a network page and the network's JSON API route in a closed
- * loop (load-generator.ts), while an analysis that is slow by construction keeps the worker busy,
+ * loop (load-generator.ts), pausing `--think` ms (default 1000, a person reading) after each, while an analysis that is slow by construction keeps the worker busy,
  * one editor uploads a new network every half second and another submits an analysis every three
  * seconds. It prints latency percentiles, error counts and how often a request had to queue for a
  * database connection (the app's pool counters, DB_POOL_STATS=1), and writes
@@ -27,18 +27,21 @@ import { closedLoop, makeTarget, send, type RouteSummary, type Step, summarise }
 interface LoadOptions {
   levels: number[];
   seconds: number;
+  /** Pause of each user between two page loads (a person reading); 0 makes it a saturation test. */
+  thinkMs: number;
 }
 
-export const LOAD_USAGE = `npm run bench -- --load [--levels 50,200] [--seconds 20]`;
+export const LOAD_USAGE = `npm run bench -- --load [--levels 50,200] [--seconds 20] [--think 1000]`;
 
 function parseLoadOptions(argv: string[]): LoadOptions {
-  const o: LoadOptions = { levels: [50, 200], seconds: 20 };
+  const o: LoadOptions = { levels: [50, 200], seconds: 20, thinkMs: 1000 };
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i]!;
     if (a === "--load") continue;
     const value = argv[++i];
     if (a === "--levels" && value && /^\d+(,\d+)*$/.test(value)) o.levels = value.split(",").map(Number);
     else if (a === "--seconds" && value && /^\d+$/.test(value) && Number(value) > 0) o.seconds = Number(value);
+    else if (a === "--think" && value && /^\d+$/.test(value)) o.thinkMs = Number(value);
     else throw new RangeError(`bench --load: unexpected "${a}${value === undefined ? "" : ` ${value}`}"\nusage: ${LOAD_USAGE}`);
   }
   return o;
@@ -101,6 +104,12 @@ export async function runLoad(argv: string[], root: string): Promise<number> {
     const pageNetwork = await create("Two-site cycle (load bench)", readFileSync(path.join(root, "bench", "systems", "phospho-2site-symbolic.csv"), "utf8"));
     const slowNetwork = await create("Ten switches (load bench)", readFileSync(path.join(root, "tests", "fixtures", "networks", "ten-switches.csv"), "utf8"));
     const smallNetwork = await create("Small for submissions (load bench)", "reaction,rate,reverse_rate,rate_value,reverse_rate_value\nA <-> B,k1,k2,1,2\n");
+    // The page under load shows its whole structure: wait until the worker has computed it.
+    for (let i = 0; i < 120; i++) {
+      const item = (await fetchJson(control, { route: "setup", path: `/api/labs/${lab}/networks/${pageNetwork}`, headers: { Cookie: cookies[0]! } })) as { structureStatus: string };
+      if (item.structureStatus === "ready") break;
+      await new Promise((r) => setTimeout(r, 250));
+    }
 
     const results: { users: number; rows: RouteSummary[]; pool: PoolDelta; db: { maxConnections: number } }[] = [];
     for (const level of o.levels) {
@@ -112,9 +121,9 @@ export async function runLoad(argv: string[], root: string): Promise<number> {
       const dbSampler = sampleConnections(databaseUrl);
       const [reads, uploads, submissions] = await Promise.all([
         closedLoop(target, level, o.seconds, (user) => [
-          { route: "network list", path: `/labs/${lab}/networks`, headers: { Cookie: cookies[user]! } },
-          { route: "network page", path: `/labs/${lab}/networks/${pageNetwork}`, headers: { Cookie: cookies[user]! } },
-          { route: "network API", path: `/api/labs/${lab}/networks/${pageNetwork}`, headers: { Cookie: cookies[user]! } },
+          { route: "network list", path: `/labs/${lab}/networks`, headers: { Cookie: cookies[user]! }, thinkMs: o.thinkMs },
+          { route: "network page", path: `/labs/${lab}/networks/${pageNetwork}`, headers: { Cookie: cookies[user]! }, thinkMs: o.thinkMs },
+          { route: "network API", path: `/api/labs/${lab}/networks/${pageNetwork}`, headers: { Cookie: cookies[user]! }, thinkMs: o.thinkMs },
         ]),
         closedLoop(target, 1, o.seconds, (_user, round) => [
           {
@@ -141,7 +150,7 @@ export async function runLoad(argv: string[], root: string): Promise<number> {
       const pool = delta(poolBefore, await poolCounters(control));
       const rows = summarise([...reads, ...uploads, ...submissions], o.seconds);
       results.push({ users: level, rows, pool, db });
-      printLevel(level, o.seconds, rows, pool, db);
+      printLevel(level, o, rows, pool, db);
       target.agent.destroy();
       await cancelAll(control, lab, cookies[0]!);
     }
@@ -273,8 +282,8 @@ function sampleConnections(databaseUrl: string) {
 
 const ms = (v: number) => (Number.isFinite(v) ? `${Math.round(v)}` : "–");
 
-function printLevel(users: number, seconds: number, rows: RouteSummary[], pool: PoolDelta, db: { maxConnections: number }) {
-  console.log(`${users} concurrent users, ${seconds} s, an analysis running:`);
+function printLevel(users: number, o: LoadOptions, rows: RouteSummary[], pool: PoolDelta, db: { maxConnections: number }) {
+  console.log(`${users} concurrent users, ${o.seconds} s, ${o.thinkMs} ms between a user's requests, an analysis running:`);
   console.log("| route | requests | errors | p50 ms | p95 ms | p99 ms | max ms | req/s |");
   console.log("|---|---|---|---|---|---|---|---|");
   for (const r of rows) console.log(`| ${r.route} | ${r.requests} | ${r.errors} | ${ms(r.p50)} | ${ms(r.p95)} | ${ms(r.p99)} | ${ms(r.max)} | ${r.perSecond.toFixed(1)} |`);

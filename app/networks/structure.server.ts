@@ -11,12 +11,23 @@ import {
   type NetworkStructure,
   tryParseNetworkCsv,
 } from "@domain/network/index";
+import { LruMap } from "~/components/render-cache";
+import { contentHash } from "./networks.server";
 
 export type FileCheck = { ok: true; network: Network } | { ok: false; problems: readonly NetworkFileProblem[] };
 export type CsvAnalysis = { ok: true; structure: NetworkStructure } | { ok: false; problems: readonly NetworkFileProblem[] };
 
-/** Parses the file and checks the limits; no algebra (milliseconds even for the largest allowed file). */
+const checked = new LruMap<FileCheck>(1000);
+
+/**
+ * Parses the file and checks the limits; no algebra (milliseconds even for the largest allowed
+ * file). Remembered by content hash: the lab's list parses every network's newest version on each view.
+ */
 export function checkNetworkFile(csv: string): FileCheck {
+  return checked.getOrCompute(contentHash(csv), () => checkUncached(csv));
+}
+
+function checkUncached(csv: string): FileCheck {
   const parsed = tryParseNetworkCsv(csv);
   if (!parsed.ok) return { ok: false, problems: parsed.problems };
   // Cheap size checks before any algebra: structure grows much faster than the file.
