@@ -3,7 +3,8 @@ import * as initial from "./20261201220000_initial";
 import * as accounts from "./20261201230000_accounts";
 import * as analyses from "./20261201234500_analyses";
 import * as rateLimits from "./20261202070000_rate_limits";
-import * as networkStructures from "./20261202130000_network_structures";
+import * as publicLabs from "./20261202130000_public_labs";
+import * as networkStructures from "./20261202140000_network_structures";
 
 /**
  * Every migration, keyed by its file name without extension, in the order they run.
@@ -15,5 +16,6 @@ export const migrations: Record<string, Migration> = {
   "20261201230000_accounts": accounts,
   "20261201234500_analyses": analyses,
   "20261202070000_rate_limits": rateLimits,
-  "20261202130000_network_structures": networkStructures,
+  "20261202130000_public_labs": publicLabs,
+  "20261202140000_network_structures": networkStructures,
 };

@@ -1,7 +1,8 @@
-/** npm run seed — add the demo lab, people and networks (idempotent). Uses DATABASE_URL / DB_*. */
+/** npm run seed — add the demo lab, people and networks, and the public worked examples (idempotent). Uses DATABASE_URL / DB_*. */
 import { createDb } from "../app/db.server";
 import { getEnv } from "../app/env.server";
 import { seedDemo } from "../seeds/demo";
+import { seedExamples } from "../seeds/examples";
 
 export async function seed(databaseUrl: string) {
   const db = createDb(databaseUrl, { max: 1 });
@@ -10,6 +11,8 @@ export async function seed(databaseUrl: string) {
     console.log(
       `[seed] demo lab ready: ${summary.users} people, ${summary.networks} networks, ${summary.versionsAdded} new versions`,
     );
+    const examples = await seedExamples(db);
+    console.log(`[seed] public worked examples ready: ${examples.versionsAdded} new versions`);
     return summary;
   } finally {
     await db.destroy();

@@ -24,7 +24,7 @@ import express, { type Application, type NextFunction, type Request, type Reques
 import type { ServerBuild } from "react-router";
 import type { ServerLoadContext } from "../app/load-context";
 import { CROSS_ORIGIN_MESSAGE, crossOriginWrite } from "../app/permissions/same-origin";
-import { bodyLimitFor, errorBody, nulLocation, SECURITY_HEADERS } from "./lib/request-guards";
+import { binaryFilePart, bodyLimitFor, errorBody, nulLocation, SECURITY_HEADERS } from "./lib/request-guards";
 
 /** express's `trust proxy` value from TRUST_PROXY: false, a hop count, or a list of addresses. */
 export type TrustProxy = false | number | string;
@@ -119,7 +119,14 @@ function readBounded(req: Request, res: Response, then: (guarded: Request) => vo
     done = true;
     const body = Buffer.concat(chunks);
     const nul = nulLocation(String(req.headers["content-type"] ?? ""), body);
-    if (nul) return refuse(req, res, 400, errorBody("invalid_request", `The request contains a NUL character in ${nul}; remove it and send again.`, { where: nul }));
+    if (nul) {
+      // A NUL inside an uploaded file means a binary file: say so, with where it sits in that file.
+      const file = binaryFilePart(String(req.headers["content-type"] ?? ""), body);
+      const message = file
+        ? `${file.filename || "The uploaded file"}: this is not a text file: binary content at byte ${file.byte} (0x00, line ${file.line}); nothing was saved.`
+        : `The request contains a NUL character in ${nul}; remove it and send again.`;
+      return refuse(req, res, 400, errorBody("invalid_request", message, file ? { where: nul, problems: [{ row: file.line, message: `this is not a text file: binary content at byte ${file.byte} (0x00, line ${file.line})`, expected: "a text file in UTF-8, such as a CSV saved from a spreadsheet or a text editor" }] } : { where: nul }));
+    }
     const stream = new Readable({
       read() {
         if (body.length > 0) this.push(body);

@@ -3,9 +3,9 @@
  * matched by e-mail, the lab by slug, networks by (lab, name), versions by content hash.
  */
 import { createHash } from "node:crypto";
-import type { Kysely } from "kysely";
+import type { Kysely, Transaction } from "kysely";
 import type { Database } from "../app/db/schema";
-import { DEMO_LAB, DEMO_NETWORKS, DEMO_PEOPLE } from "./demo-data";
+import { DEMO_LAB, DEMO_NETWORKS, DEMO_PEOPLE, type DemoNetwork } from "./demo-data";
 import { requestStructure } from "../app/networks/structure-store.server";
 
 export function contentHash(csv: string): string {
@@ -48,69 +48,78 @@ export async function seedDemo(db: Kysely<Database>): Promise<SeedSummary> {
         .execute();
     }
 
-    let versionsAdded = 0;
-    for (const network of DEMO_NETWORKS) {
-      const firstAuthor = userIds.get(network.versions[0].author) ?? null;
-      const existing = await trx
-        .selectFrom("networks")
-        .select("id")
-        .where("lab_id", "=", lab.id)
-        .where("name", "=", network.name)
-        .executeTakeFirst();
-      // A demo text that was corrected replaces its earlier wording, never a person's own text.
-      if (existing && network.previousDescriptions?.length)
-        await trx
-          .updateTable("networks")
-          .set({ description: network.description })
-          .where("id", "=", existing.id)
-          .where("description", "in", network.previousDescriptions)
-          .execute();
-      const networkId =
-        existing?.id ??
-        (
-          await trx
-            .insertInto("networks")
-            .values({
-              lab_id: lab.id,
-              name: network.name,
-              description: network.description,
-              tags: network.tags,
-              created_by: firstAuthor,
-            })
-            .returning("id")
-            .executeTakeFirstOrThrow()
-        ).id;
-
-      for (const version of network.versions) {
-        const hash = contentHash(version.csv);
-        // Asked for up front, so the worker has the structures ready before anyone opens the page.
-        await requestStructure(trx, version.csv);
-        const present = await trx
-          .selectFrom("network_versions")
-          .select("id")
-          .where("network_id", "=", networkId)
-          .where("content_hash", "=", hash)
-          .executeTakeFirst();
-        if (present) continue;
-        const { max } = await trx
-          .selectFrom("network_versions")
-          .select((eb) => eb.fn.max("number").as("max"))
-          .where("network_id", "=", networkId)
-          .executeTakeFirstOrThrow();
-        await trx
-          .insertInto("network_versions")
-          .values({
-            network_id: networkId,
-            number: (max ?? 0) + 1,
-            content_hash: hash,
-            csv: version.csv,
-            change_note: version.changeNote,
-            author_id: userIds.get(version.author) ?? null,
-          })
-          .execute();
-        versionsAdded++;
-      }
-    }
+    const versionsAdded = await upsertNetworks(trx, lab.id, DEMO_NETWORKS, userIds);
     return { users: userIds.size, networks: DEMO_NETWORKS.length, versionsAdded };
   });
+}
+
+/**
+ * Adds each network (matched by lab and name) and each of its versions (matched by content hash)
+ * that is missing; returns how many versions were added. Authors not in `userIds` stay null.
+ */
+export async function upsertNetworks(trx: Transaction<Database>, labId: string, networks: readonly DemoNetwork[], userIds: ReadonlyMap<string, string>): Promise<number> {
+  let versionsAdded = 0;
+  for (const network of networks) {
+    const firstAuthor = userIds.get(network.versions[0].author) ?? null;
+    const existing = await trx
+      .selectFrom("networks")
+      .select("id")
+      .where("lab_id", "=", labId)
+      .where("name", "=", network.name)
+      .executeTakeFirst();
+    // A demo text that was corrected replaces its earlier wording, never a person's own text.
+    if (existing && network.previousDescriptions?.length)
+      await trx
+        .updateTable("networks")
+        .set({ description: network.description })
+        .where("id", "=", existing.id)
+        .where("description", "in", network.previousDescriptions)
+        .execute();
+    const networkId =
+      existing?.id ??
+      (
+        await trx
+          .insertInto("networks")
+          .values({
+            lab_id: labId,
+            name: network.name,
+            description: network.description,
+            tags: network.tags,
+            created_by: firstAuthor,
+          })
+          .returning("id")
+          .executeTakeFirstOrThrow()
+      ).id;
+
+    for (const version of network.versions) {
+      const hash = contentHash(version.csv);
+      // Asked for up front, so the worker has the structures ready before anyone opens the page.
+      await requestStructure(trx, version.csv);
+      const present = await trx
+        .selectFrom("network_versions")
+        .select("id")
+        .where("network_id", "=", networkId)
+        .where("content_hash", "=", hash)
+        .executeTakeFirst();
+      if (present) continue;
+      const { max } = await trx
+        .selectFrom("network_versions")
+        .select((eb) => eb.fn.max("number").as("max"))
+        .where("network_id", "=", networkId)
+        .executeTakeFirstOrThrow();
+      await trx
+        .insertInto("network_versions")
+        .values({
+          network_id: networkId,
+          number: (max ?? 0) + 1,
+          content_hash: hash,
+          csv: version.csv,
+          change_note: version.changeNote,
+          author_id: userIds.get(version.author) ?? null,
+        })
+        .execute();
+      versionsAdded++;
+    }
+  }
+  return versionsAdded;
 }

@@ -2,9 +2,10 @@ import { redirect } from "react-router";
 import { db } from "~/db.server";
 import { destroyAllSessionsOf } from "~/auth/session.server";
 import { parseDisplayName, updateDisplayName, type CurrentUser } from "~/auth/users.server";
-import { recordAudit } from "~/labs/audit.server";
-import { type ActionResult, field, ok, refuse } from "~/labs/form.server";
-import { createApiToken, isUuid, parseExpiryDays, parseTokenName, revokeApiToken } from "./api-tokens.server";
+import { recordAudit } from "~/shared/audit.server";
+import { type ActionResult, field, ok, refuse } from "~/shared/form";
+import { isUuid } from "~/shared/uuid";
+import { createApiToken, parseExpiryDays, parseTokenName, revokeApiToken } from "./api-tokens.server";
 
 export const ACCOUNT_INTENTS = ["rename", "create-token", "revoke-token", "sign-out-everywhere"] as const;
 export type AccountIntent = (typeof ACCOUNT_INTENTS)[number];

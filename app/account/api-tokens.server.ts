@@ -1,9 +1,7 @@
-import type { Kysely, Transaction } from "kysely";
-import type { Database } from "~/db/schema";
+import type { DbExecutor } from "~/db/schema";
 import { randomToken, sha256Hex } from "~/auth/hashing.server";
-import { recordAudit } from "~/labs/audit.server";
-
-type Executor = Kysely<Database> | Transaction<Database>;
+import { recordAudit } from "~/shared/audit.server";
+import { isUuid } from "~/shared/uuid";
 
 /** Recognisable prefix so leaked tokens are easy to spot in logs and secret scanners. */
 export const TOKEN_PREFIX = "stp_";
@@ -22,7 +20,7 @@ export interface ApiTokenSummary {
  * SHA-256, so a database leak does not hand out working tokens.
  */
 export async function createApiToken(
-  db: Executor,
+  db: DbExecutor,
   args: { userId: string; name: string; expiresAt: Date | null },
 ): Promise<{ token: string; id: string }> {
   const token = TOKEN_PREFIX + randomToken(32);
@@ -35,7 +33,7 @@ export async function createApiToken(
   return { token, id: row.id };
 }
 
-export async function listApiTokens(db: Executor, userId: string): Promise<ApiTokenSummary[]> {
+export async function listApiTokens(db: DbExecutor, userId: string): Promise<ApiTokenSummary[]> {
   const rows = await db
     .selectFrom("api_tokens")
     .select(["id", "name", "created_at", "expires_at", "last_used_at", "revoked_at"])
@@ -53,7 +51,7 @@ export async function listApiTokens(db: Executor, userId: string): Promise<ApiTo
 }
 
 /** Revokes one of the user's own tokens; false when there is no such live token of theirs. */
-export async function revokeApiToken(db: Executor, userId: string, tokenId: string): Promise<boolean> {
+export async function revokeApiToken(db: DbExecutor, userId: string, tokenId: string): Promise<boolean> {
   if (!isUuid(tokenId)) return false;
   const row = await db
     .updateTable("api_tokens")
@@ -69,7 +67,7 @@ export async function revokeApiToken(db: Executor, userId: string, tokenId: stri
 }
 
 /** The owner of a live (not revoked, not expired) token, recording when it was used. */
-export async function findUserIdByApiToken(db: Executor, token: string): Promise<string | undefined> {
+export async function findUserIdByApiToken(db: DbExecutor, token: string): Promise<string | undefined> {
   if (!token.startsWith(TOKEN_PREFIX) || token.length > 200) return undefined;
   const now = new Date();
   const row = await db
@@ -99,8 +97,4 @@ export function parseExpiryDays(raw: unknown, now = new Date()): { ok: true; val
     return { ok: false, message: "Expiry must be a whole number of days between 1 and 365, or never." };
   }
   return { ok: true, value: new Date(now.getTime() + days * 86_400_000) };
-}
-
-export function isUuid(value: string): boolean {
-  return /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(value);
 }

@@ -2,7 +2,7 @@
 import { apiError } from "~/permissions/api-errors";
 import type { LabAccess } from "~/permissions/permissions.server";
 import { findJob, jobJson, type JobRecord } from "./repository.server";
-import type { AnalysesDb, JobKind } from "./schema";
+import type { DbExecutor, JobKind } from "~/db/schema";
 
 export async function readJsonBody(request: Request): Promise<Record<string, unknown>> {
   let body: unknown;
@@ -15,7 +15,7 @@ export async function readJsonBody(request: Request): Promise<Record<string, unk
   return body as Record<string, unknown>;
 }
 
-export async function requireApiJob(db: AnalysesDb, access: LabAccess, id: string | undefined, kind: JobKind): Promise<JobRecord> {
+export async function requireApiJob(db: DbExecutor, access: LabAccess, id: string | undefined, kind: JobKind): Promise<JobRecord> {
   const job = await findJob(db, access.lab.id, id);
   if (!job || job.kind !== kind) throw apiError("not_found", `No such ${kind === "analysis" ? "analysis" : kind} in this lab.`);
   return job;

@@ -2,11 +2,11 @@
 import { exportAnalysis, EXPORT_FILES, scanCsv, type ExportFile } from "./exports";
 import { listJobs, type JobRecord } from "./repository.server";
 import type { AnalysisResult, ScanResult } from "./result-types";
-import type { AnalysesDb } from "./schema";
+import type { DbExecutor } from "~/db/schema";
+import { notFound } from "~/shared/responses";
 
-const notFound = () => new Response("Not found", { status: 404, statusText: "Not Found" });
 
-export async function downloadResponse(db: AnalysesDb, job: JobRecord, file: string | undefined): Promise<Response> {
+export async function downloadResponse(db: DbExecutor, job: JobRecord, file: string | undefined): Promise<Response> {
   const safeName = job.network_name.replace(/[^A-Za-z0-9_-]+/g, "-").toLowerCase();
   const attach = (body: string, type: string, name: string) =>
     new Response(body, { headers: { "Content-Type": type, "Content-Disposition": `attachment; filename="${safeName}-v${job.version_number}-${name}"` } });

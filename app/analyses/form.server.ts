@@ -17,9 +17,3 @@ export function analysisInputFromForm(form: FormData): Record<string, unknown> {
     notify: form.get("notify") === "on",
   };
 }
-
-export function formObject(form: FormData): Record<string, unknown> {
-  const out: Record<string, unknown> = {};
-  for (const [k, v] of form.entries()) if (typeof v === "string") out[k] = v;
-  return out;
-}

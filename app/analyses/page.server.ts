@@ -1,13 +1,14 @@
 /** Everything the analysis page (and its read-only shared copy) shows, as plain JSON. */
+import { analysedNetwork } from "./analysed-network";
 import { rateSymbols } from "./params";
 import type { AnalysisParams } from "./params";
 import { presentResult } from "./present";
 import { jobJson, listJobs, type JobRecord } from "./repository.server";
 import type { AnalysisResult } from "./result-types";
-import type { AnalysesDb } from "./schema";
+import type { DbExecutor } from "~/db/schema";
 import { networkOf } from "./service.server";
 
-export async function analysisPageData(db: AnalysesDb, job: JobRecord, options: { sharedView: boolean }) {
+export async function analysisPageData(db: DbExecutor, job: JobRecord, options: { sharedView: boolean }) {
   const children = await listJobs(db, job.lab_id, { parentId: job.id });
   const visible = options.sharedView ? children.filter((c) => c.status === "succeeded") : children;
   const version = await db.selectFrom("network_versions").select("csv").where("id", "=", job.network_version_id).executeTakeFirstOrThrow();
@@ -24,6 +25,8 @@ export async function analysisPageData(db: AnalysesDb, job: JobRecord, options: 
     view: result ? presentResult(result, params) : null,
     rates: rateSymbols(network),
     species: [...network.species],
+    // The pinned version's reactions and the rate values the run used (also on share links, which grant this version).
+    network: analysedNetwork(version.csv, params),
     numeric: params.rateMode === "numeric" && params.initial !== null,
     relations: childJson("relation"),
     scans: childJson("scan"),

@@ -3,23 +3,23 @@
  * functions taking the database first; lab ids come from a permission check made by the caller.
  */
 import { sql } from "kysely";
-import type { AnalysisStatus, JsonObject } from "~/db/schema";
 import { SITE_LIMITS, type Limits } from "./params";
 
 export { SITE_LIMITS };
 import { ENGINE_VERSION } from "./engine-version";
-import type { AnalysesDb, JobKind, JobRow } from "./schema";
+import { isUuid } from "~/shared/uuid";
+import type { AnalysisStatus, DbExecutor, JobKind, JobRow, JsonObject } from "~/db/schema";
 
 export const DEFAULT_LIMITS: Limits = { maxTimeLimitSeconds: 300, maxBasisSize: 5000 };
 
-export async function labLimits(db: AnalysesDb, labId: string): Promise<Limits> {
+export async function labLimits(db: DbExecutor, labId: string): Promise<Limits> {
   const row = await db.selectFrom("lab_analysis_settings").select(["max_time_limit_seconds", "max_basis_size"]).where("lab_id", "=", labId).executeTakeFirst();
   if (!row) return DEFAULT_LIMITS;
   // A value stored before the site maximum existed is capped on the way out.
   return { maxTimeLimitSeconds: Math.min(row.max_time_limit_seconds, SITE_LIMITS.maxTimeLimitSeconds), maxBasisSize: row.max_basis_size };
 }
 
-export async function setLabLimits(db: AnalysesDb, labId: string, limits: Limits): Promise<void> {
+export async function setLabLimits(db: DbExecutor, labId: string, limits: Limits): Promise<void> {
   await db
     .insertInto("lab_analysis_settings")
     .values({ lab_id: labId, max_time_limit_seconds: limits.maxTimeLimitSeconds, max_basis_size: limits.maxBasisSize })
@@ -38,7 +38,7 @@ export interface NewJob {
   notify: boolean;
 }
 
-export async function insertJob(db: AnalysesDb, job: NewJob): Promise<JobRow> {
+export async function insertJob(db: DbExecutor, job: NewJob): Promise<JobRow> {
   return db
     .insertInto("analyses")
     .values({
@@ -62,7 +62,7 @@ export async function insertJob(db: AnalysesDb, job: NewJob): Promise<JobRow> {
  * jobs waiting or running: counted and inserted in one transaction under advisory locks on the lab
  * and the starter, so a burst of parallel requests cannot slip past the cap. Returns a message for the person when refused.
  */
-export async function insertJobWithinCaps(db: AnalysesDb, job: NewJob): Promise<{ ok: true; job: JobRow } | { ok: false; message: string }> {
+export async function insertJobWithinCaps(db: DbExecutor, job: NewJob): Promise<{ ok: true; job: JobRow } | { ok: false; message: string }> {
   return db.transaction().execute(async (trx) => {
     // Lab before user, always in this order, so two starters never wait on each other in a cycle.
     for (const key of [`jobs:lab:${job.labId}`, `jobs:user:${job.startedBy}`]) {
@@ -83,7 +83,7 @@ export async function insertJobWithinCaps(db: AnalysesDb, job: NewJob): Promise<
     if (active.lab >= SITE_LIMITS.maxActiveJobsPerLab) {
       return { ok: false as const, message: `this lab already has ${active.lab} jobs waiting or running (at most ${SITE_LIMITS.maxActiveJobsPerLab}); start more when some have finished` };
     }
-    return { ok: true as const, job: await insertJob(trx as unknown as AnalysesDb, job) };
+    return { ok: true as const, job: await insertJob(trx, job) };
   });
 }
 
@@ -96,7 +96,7 @@ export interface JobRecord extends JobRow {
   starter_email: string | null;
 }
 
-function jobQuery(db: AnalysesDb) {
+function jobQuery(db: DbExecutor) {
   return db
     .selectFrom("analyses as a")
     .innerJoin("network_versions as v", "v.id", "a.network_version_id")
@@ -106,18 +106,16 @@ function jobQuery(db: AnalysesDb) {
     .select(["n.id as network_id", "n.name as network_name", "v.number as version_number", "u.display_name as starter_name", "u.email as starter_email"]);
 }
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-
-export async function findJob(db: AnalysesDb, labId: string, id: string | undefined): Promise<JobRecord | undefined> {
-  if (!id || !UUID.test(id)) return undefined;
+export async function findJob(db: DbExecutor, labId: string, id: string | undefined): Promise<JobRecord | undefined> {
+  if (!isUuid(id)) return undefined;
   return (await jobQuery(db).where("a.id", "=", id).where("a.lab_id", "=", labId).executeTakeFirst()) as JobRecord | undefined;
 }
 
-export async function findJobById(db: AnalysesDb, id: string): Promise<JobRecord | undefined> {
+export async function findJobById(db: DbExecutor, id: string): Promise<JobRecord | undefined> {
   return (await jobQuery(db).where("a.id", "=", id).executeTakeFirst()) as JobRecord | undefined;
 }
 
-export async function listJobs(db: AnalysesDb, labId: string, filter: { kind?: JobKind; networkId?: string; parentId?: string; limit?: number } = {}): Promise<JobRecord[]> {
+export async function listJobs(db: DbExecutor, labId: string, filter: { kind?: JobKind; networkId?: string; parentId?: string; limit?: number } = {}): Promise<JobRecord[]> {
   let q = jobQuery(db).where("a.lab_id", "=", labId);
   if (filter.kind) q = q.where("a.kind", "=", filter.kind);
   if (filter.networkId) q = q.where("n.id", "=", filter.networkId);
@@ -129,7 +127,7 @@ export async function listJobs(db: AnalysesDb, labId: string, filter: { kind?: J
  * Cancels a job: a queued one at once; a running one by setting the flag its worker polls with
  * every heartbeat (the worker then kills the child process). Returns the status afterwards.
  */
-export async function requestCancel(db: AnalysesDb, id: string): Promise<AnalysisStatus> {
+export async function requestCancel(db: DbExecutor, id: string): Promise<AnalysisStatus> {
   const queued = await db
     .updateTable("analyses")
     .set({ status: "cancelled", cancel_requested_at: sql`now()`, finished_at: sql`now()`, error: "Cancelled before a worker started it.", progress: { stage: "cancelled" } })

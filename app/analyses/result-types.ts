@@ -1,59 +1,45 @@
-/** The stored analysis result: the CLI's `analyse --json` object (domain/cli/analyse.ts `toJson`), typed for the pages. */
-export interface StoredSteadyState {
-  concentrations: Record<string, number>;
-  stable: boolean | null;
-  verdict: string;
-  /** Always { re, im } objects; results stored before that shape may hold plain numbers for real ones. */
-  eigenvalues: (number | { re: number; im: number })[];
-  residual: number;
-}
+/**
+ * Stored job results as the pages, exports and API read them. The analysis result is the
+ * domain's one JSON shape (domain/steady-state/result.ts, also the CLI's `analyse --json`); the
+ * only differences here are for rows written by older engine versions, which lack keys that
+ * were added later.
+ */
+import type { FoldScan } from "@domain/steady-state/folds";
+import type { RelationResult } from "@domain/steady-state/relation";
+import type { AnalysisResultJson, MultistationarityJson, SteadyStateJson } from "@domain/steady-state/result";
 
-export interface AnalysisResult {
-  species: string[];
-  complexes: string[];
-  reactions: number;
-  rank: number;
-  linkageClasses: number;
-  deficiency: number;
-  weaklyReversible: boolean;
-  conservationLaws: Record<string, number>[];
-  groebnerBasis: string[];
-  groebnerBasisComplete: boolean;
-  /** Missing in results stored before it existed. */
-  groebnerBasisStatus?: "complete" | "skipped" | "unfinished";
-  parametrisation: { free: string[]; expressions: Record<string, string>; positive: boolean } | null;
-  acr: { species: string; value: string }[];
-  steadyStates: StoredSteadyState[] | null;
-  steadyStatesReason?: string | null;
-  warnings: string[];
-  order: { species: string[]; suggested: string[]; reason: string; userGiven: boolean };
-  ordering: string;
-  genericConditions: string[];
-  triangularForm: { species: string | null; polynomials: string[] }[];
-  rootsNeeded: { species: string; polynomial: string; degree: number }[];
-  nonVanishing: string[];
-  relations: { expression: string; inIdeal: boolean; vanishes: boolean; remainder: string }[];
-  eliminant: { variable: string; polynomial: string } | null;
-  steadyStateSet: "finite" | "continuum" | null;
-  positiveSteadyStatesExist: boolean | null;
-  positiveSteadyStatesReason?: string | null;
-  unfinished?: { stage: string; reason: string }[];
-  contradictions?: string[];
-  parameters: { rateConstants: string[]; totals: string[]; values: Record<string, string> };
-  /** Added by the worker beside the CLI's analyse object; absent in older results. */
-  multistationarity?: MultistationarityView;
-}
+/** A stored steady state; rows stored before eigenvalues became { re, im } may hold plain numbers for real ones. */
+export type StoredSteadyState = Omit<SteadyStateJson, "eigenvalues"> & { eigenvalues: (number | { re: number; im: number })[] };
 
-export interface ExactScan {
-  folds: { value: number; interval: [number, number]; exact: [string, string] }[];
-  /** Open parameter intervals between folds with the exact count of positive steady states. */
-  windows: { from: number; to: number; count: number; sample: string }[];
+/** Keys missing in results stored before they existed. */
+type AddedLater =
+  | "constants"
+  | "groebnerBasisStatus"
+  | "steadyStatesReason"
+  | "positiveSteadyStatesReason"
+  | "unfinished"
+  | "contradictions"
+  | "odes"
+  | "steadyStateSystem"
+  | "minimalSemiPositiveConservationLaws"
+  | "deficiencyZeroTheorem"
+  | "deficiencyOneTheorem";
+
+export type AnalysisResult = Omit<AnalysisResultJson, AddedLater | "steadyStates"> &
+  Partial<Pick<AnalysisResultJson, AddedLater>> & {
+    steadyStates: StoredSteadyState[] | null;
+    /** Added by the worker beside the analysis object; absent in older results. */
+    multistationarity?: MultistationarityJson;
+  };
+
+/** What the worker stores now: the current shape exactly (built in app/jobs/compute.ts). */
+export type FreshAnalysisResult = AnalysisResultJson & { multistationarity: MultistationarityJson };
+
+/** The domain's exact fold scan (folds, windows with exact counts), its curve points named `curve`. */
+export type ExactScan = Pick<FoldScan, "folds" | "windows" | "eliminant" | "assumptions" | "warnings"> & {
   /** Curve points: an even grid plus points beside each fold. */
-  curve: { value: number; steadyStates: { concentrations: Record<string, number>; stable: boolean | null }[] }[];
-  eliminant: { variable: string; polynomial: string };
-  assumptions: string;
-  warnings: string[];
-}
+  curve: FoldScan["points"];
+};
 
 export interface ScanResult {
   parameter: { kind: "rate" | "initial"; name: string };
@@ -65,17 +51,8 @@ export interface ScanResult {
   exactNote?: string | null;
 }
 
-export interface MultistationarityView {
-  verdict: "monostationary" | "multistationary" | "undecided";
-  method: string;
-  reason: string;
-  witness?: { rates: Record<string, string>; totals: Record<string, string>; initial: Record<string, string>; steadyStates: Record<string, number>[] };
-  assumptions?: string[];
-  sources?: string[];
-}
-
 export interface RelationJobResult {
-  relation: { expression: string; inIdeal: boolean; vanishes: boolean; remainder: string } | null;
+  relation: RelationResult | null;
   warnings: string[];
 }
 

@@ -10,17 +10,19 @@ import type { ExactScan, ScanResult } from "./result-types";
 export interface BranchChart {
   rows: Record<string, number | null>[];
   branches: number;
+  /** Every drawn point: parameter value, branch (1-based), the species' value and the state's verdict. */
+  points: { x: number; branch: number; y: number; verdict: string }[];
   counts: { value: number; count: number | null }[];
   /** Parameter intervals where more than one positive steady state exists. */
   multistable: { from: number; to: number; count: number }[];
 }
 
 export function scanBranches(scan: ScanResult, species: string): BranchChart {
-  type Branch = { last: number; lastX: number; values: Map<number, { y: number; stable: boolean }> };
+  type Branch = { last: number; lastX: number; values: Map<number, { y: number; stable: boolean; verdict: string }> };
   const branches: Branch[] = [];
   scan.points.forEach((p, xi) => {
     if (!p.states) return;
-    const ys = p.states.map((s) => ({ y: s.concentrations[species] ?? NaN, stable: s.verdict === "stable" })).sort((a, b) => a.y - b.y);
+    const ys = p.states.map((s) => ({ y: s.concentrations[species] ?? NaN, stable: s.verdict === "stable", verdict: s.verdict })).sort((a, b) => a.y - b.y);
     const free = new Set(branches.map((_, i) => i).filter((i) => branches[i]!.lastX === xi - 1));
     for (const s of ys) {
       let best = -1;
@@ -59,7 +61,10 @@ export function scanBranches(scan: ScanResult, species: string): BranchChart {
       else multistable.push({ from: c.value, to: c.value, count: c.count });
     }
   }
-  return { rows, branches: branches.length, counts, multistable };
+  const points = branches.flatMap((b, bi) =>
+    [...b.values].sort(([i], [j]) => i - j).map(([xi, st]) => ({ x: scan.points[xi]!.value, branch: bi + 1, y: st.y, verdict: st.verdict })),
+  );
+  return { rows, branches: branches.length, points, counts, multistable };
 }
 
 type CurvePoint = ExactScan["curve"][number];

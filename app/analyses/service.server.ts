@@ -4,14 +4,14 @@
  * server only parses the network file here — the algebra runs in the worker.
  */
 import { parseNetworkCsv, type Network } from "@domain/network/index";
-import type { JsonObject } from "~/db/schema";
 import { getEnv } from "~/env.server";
 import { enqueue } from "~/jobs/queue.server";
 import type { LabAccess } from "~/permissions/permissions.server";
 import type { VersionRecord } from "~/networks/networks.server";
 import { parseAnalysisParams, parseRelationParams, parseScanParams, parseTimeCourseParams, type AnalysisParams, type Problems } from "./params";
 import { insertJobWithinCaps, labLimits, requestCancel, type JobRecord } from "./repository.server";
-import type { AnalysesDb, JobKind, JobRow } from "./schema";
+import type { DbExecutor, JobKind, JobRow, JsonObject } from "~/db/schema";
+import { type AuditKind, recordAudit } from "~/shared/audit.server";
 
 export type StartOutcome = { ok: true; job: JobRow } | { ok: false; problems: Problems };
 
@@ -28,7 +28,7 @@ export function networkOf(csv: string): Network {
   return parseNetworkCsv(csv);
 }
 
-export async function startAnalysis(db: AnalysesDb, access: LabAccess, version: VersionRecord, input: Record<string, unknown>): Promise<StartOutcome> {
+export async function startAnalysis(db: DbExecutor, access: LabAccess, version: VersionRecord, input: Record<string, unknown>): Promise<StartOutcome> {
   const parsed = parseAnalysisParams(input, networkOf(version.csv), await labLimits(db, access.lab.id));
   if (!parsed.ok) return parsed;
   const inserted = await insertJobWithinCaps(db, {
@@ -47,7 +47,7 @@ export async function startAnalysis(db: AnalysesDb, access: LabAccess, version: 
 }
 
 /** A scan, relation test or time course hanging off an analysis (same network version and settings). */
-export async function startFollowUp(db: AnalysesDb, access: LabAccess, parent: JobRecord, kind: Exclude<JobKind, "analysis">, input: Record<string, unknown>): Promise<StartOutcome> {
+export async function startFollowUp(db: DbExecutor, access: LabAccess, parent: JobRecord, kind: Exclude<JobKind, "analysis">, input: Record<string, unknown>): Promise<StartOutcome> {
   if (parent.kind !== "analysis") return { ok: false, problems: [{ field: "analysis", message: "scans, relation tests and time courses start from an analysis" }] };
   const limits = await labLimits(db, access.lab.id);
   const parentParams = parent.params as unknown as AnalysisParams;
@@ -77,10 +77,11 @@ export async function startFollowUp(db: AnalysesDb, access: LabAccess, parent: J
   return { ok: true, job: inserted.job };
 }
 
-export async function cancelJob(db: AnalysesDb, job: JobRecord) {
+export async function cancelJob(db: DbExecutor, job: JobRecord) {
   return requestCancel(db, job.id);
 }
 
-export async function recordAnalysisAudit(db: AnalysesDb, labId: string, actorId: string, kind: string, details: JsonObject): Promise<void> {
-  await db.insertInto("audit_events").values({ lab_id: labId, actor_id: actorId, kind, details }).execute();
+/** An analysis event in the lab's audit trail (the shared writer, with this feature's kinds). */
+export async function recordAnalysisAudit(db: DbExecutor, labId: string, actorId: string, kind: AuditKind & `analysis.${string}`, details: JsonObject): Promise<void> {
+  await recordAudit(db, { kind, actorId, labId, details });
 }

@@ -6,11 +6,11 @@
 import { sql } from "kysely";
 import { randomToken, sha256Hex } from "~/auth/hashing.server";
 import { findJobById, type JobRecord } from "./repository.server";
-import type { AnalysesDb } from "./schema";
+import type { DbExecutor } from "~/db/schema";
 
 export const SHARE_DAYS = { default: 14, max: 90 };
 
-export async function createShareLink(db: AnalysesDb, analysisId: string, createdBy: string, days: number): Promise<{ id: string; token: string; expiresAt: Date }> {
+export async function createShareLink(db: DbExecutor, analysisId: string, createdBy: string, days: number): Promise<{ id: string; token: string; expiresAt: Date }> {
   const token = randomToken(32);
   const row = await db
     .insertInto("analysis_share_links")
@@ -20,7 +20,7 @@ export async function createShareLink(db: AnalysesDb, analysisId: string, create
   return { id: row.id, token, expiresAt: row.expires_at };
 }
 
-export async function listShareLinks(db: AnalysesDb, analysisId: string) {
+export async function listShareLinks(db: DbExecutor, analysisId: string) {
   const rows = await db
     .selectFrom("analysis_share_links as l")
     .leftJoin("users as u", "u.id", "l.created_by")
@@ -38,7 +38,7 @@ export async function listShareLinks(db: AnalysesDb, analysisId: string) {
   }));
 }
 
-export async function revokeShareLink(db: AnalysesDb, analysisId: string, linkId: string): Promise<boolean> {
+export async function revokeShareLink(db: DbExecutor, analysisId: string, linkId: string): Promise<boolean> {
   const r = await db
     .updateTable("analysis_share_links")
     .set({ revoked_at: sql`now()` })
@@ -50,7 +50,7 @@ export async function revokeShareLink(db: AnalysesDb, analysisId: string, linkId
 }
 
 /** The analysis a live token opens, or undefined (unknown, expired or revoked: all look the same). */
-export async function findSharedAnalysis(db: AnalysesDb, token: string | undefined): Promise<JobRecord | undefined> {
+export async function findSharedAnalysis(db: DbExecutor, token: string | undefined): Promise<JobRecord | undefined> {
   if (!token || !/^[A-Za-z0-9_-]{20,100}$/.test(token)) return undefined;
   const link = await db
     .selectFrom("analysis_share_links")

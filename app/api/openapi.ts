@@ -1,10 +1,13 @@
 /**
  * The OpenAPI 3.1 description of the JSON API (OpenAPI Specification 3.1.0, 2021), built from
- * the route catalogue below and the schemas in ./schemas. Request schemas marked
- * `x-enforced-by-schema: true` are the objects the route itself checks bodies with; the others
- * describe a body that the route's own parser checks (its problems come back located as well).
- * A test keeps the catalogue equal to the /api routes of app/routes.ts.
+ * the route catalogue below and the schemas in ./schemas. Every request body schema is
+ * `z.toJSONSchema` of the zod schema the route checks the body with (app/api/body.ts), so the
+ * document follows the check; what a schema cannot say (species of this network, the lab's limits)
+ * the route's own parser checks next, and its problems come back located as well.
+ * A test keeps the catalogue equal to the /api routes of app/routes.ts and each body schema equal
+ * to its zod schema's JSON Schema.
  */
+import { z } from "zod/v4";
 import * as S from "./schemas";
 import type { JsonSchema } from "./json-schema";
 
@@ -14,11 +17,12 @@ interface Operation {
   readonly path: string;
   readonly summary: string;
   readonly role: Role;
-  readonly body?: { schema: keyof typeof BODY_SCHEMAS; enforced: boolean; alsoAccepts?: string[] };
+  readonly body?: { schema: keyof typeof BODY_SCHEMAS; alsoAccepts?: string[] };
   readonly ok: number;
 }
 
-const BODY_SCHEMAS = {
+/** The zod schema of each request body, by its name in components.schemas. */
+export const BODY_SCHEMAS = {
   NetworkCreate: S.NETWORK_CREATE,
   VersionCreate: S.VERSION_CREATE,
   LabCreate: S.LAB_CREATE,
@@ -29,12 +33,12 @@ const BODY_SCHEMAS = {
 const LAB = "/api/labs/{labSlug}";
 export const API_OPERATIONS: readonly Operation[] = [
   { method: "get", path: "/api/health", summary: "Health: database reachable, migrations applied.", role: "public", ok: 200 },
-  { method: "get", path: "/api/me", summary: "Who the token (or session) acts as, and their labs with roles.", role: "signed-in", ok: 200 },
+  { method: "get", path: "/api/me", summary: "Who the token (or session) acts as, their labs with roles, and the public labs (`publicLabs`) they may read as a guest.", role: "signed-in", ok: 200 },
   { method: "get", path: "/api/openapi.json", summary: "This document.", role: "signed-in", ok: 200 },
   { method: "get", path: "/api/labs", summary: "The caller's labs.", role: "signed-in", ok: 200 },
-  { method: "post", path: "/api/labs", summary: "Create a lab owned by the caller.", role: "signed-in", body: { schema: "LabCreate", enforced: false }, ok: 201 },
-  { method: "get", path: LAB, summary: "The lab and the caller's role.", role: "viewer", ok: 200 },
-  { method: "get", path: `${LAB}/members`, summary: "Who is in the lab, with roles.", role: "viewer", ok: 200 },
+  { method: "post", path: "/api/labs", summary: "Create a lab owned by the caller.", role: "signed-in", body: { schema: "LabCreate" }, ok: 201 },
+  { method: "get", path: LAB, summary: "The lab (`public` when every signed-in person may read it), the caller's role, and `guest` when they read a public lab without being a member.", role: "viewer", ok: 200 },
+  { method: "get", path: `${LAB}/members`, summary: "Who is in the lab, with roles (members only: a guest of a public lab gets 404).", role: "viewer", ok: 200 },
   { method: "get", path: `${LAB}/audit`, summary: "The lab's audit trail, newest first.", role: "owner", ok: 200 },
   { method: "get", path: `${LAB}/networks`, summary: "The lab's networks with counts (`?archived=1` includes archived).", role: "viewer", ok: 200 },
   {
@@ -42,7 +46,7 @@ export const API_OPERATIONS: readonly Operation[] = [
     path: `${LAB}/networks`,
     summary: "Create a network from JSON, a multipart `file` (.csv, .xml/.sbml, .txt), a text/csv body or an application/sbml+xml body (`?name=`).",
     role: "editor",
-    body: { schema: "NetworkCreate", enforced: true, alsoAccepts: ["multipart/form-data", "text/csv", "application/sbml+xml"] },
+    body: { schema: "NetworkCreate", alsoAccepts: ["multipart/form-data", "text/csv", "application/sbml+xml"] },
     ok: 201,
   },
   { method: "get", path: `${LAB}/networks/{networkId}`, summary: "The network, its newest version (CSV) and that version's structure (null, with structureStatus \"pending\", until the worker has computed it).", role: "viewer", ok: 200 },
@@ -52,17 +56,17 @@ export const API_OPERATIONS: readonly Operation[] = [
     path: `${LAB}/networks/{networkId}/versions`,
     summary: "Save a new version; the same body forms as creating a network. 409 when the content equals a version.",
     role: "editor",
-    body: { schema: "VersionCreate", enforced: true, alsoAccepts: ["multipart/form-data", "text/csv", "application/sbml+xml"] },
+    body: { schema: "VersionCreate", alsoAccepts: ["multipart/form-data", "text/csv", "application/sbml+xml"] },
     ok: 201,
   },
   { method: "get", path: `${LAB}/networks/{networkId}/versions/{number}`, summary: "One version with its CSV and structure (null, with structureStatus \"pending\", until computed).", role: "viewer", ok: 200 },
   { method: "get", path: `${LAB}/analyses`, summary: "The lab's analyses, newest first (`?networkId=`).", role: "viewer", ok: 200 },
-  { method: "post", path: `${LAB}/analyses`, summary: "Start an analysis of a network version (202, queued).", role: "editor", body: { schema: "AnalysisCreate", enforced: false }, ok: 202 },
+  { method: "post", path: `${LAB}/analyses`, summary: "Start an analysis of a network version (202, queued).", role: "editor", body: { schema: "AnalysisCreate" }, ok: 202 },
   { method: "get", path: `${LAB}/analyses/{analysisId}`, summary: "Status, progress and (once succeeded) the result.", role: "viewer", ok: 200 },
   { method: "delete", path: `${LAB}/analyses/{analysisId}`, summary: "Cancel (as POST …/cancel).", role: "editor", ok: 200 },
   { method: "post", path: `${LAB}/analyses/{analysisId}/cancel`, summary: "Cancel: a queued analysis at once, a running one within a heartbeat.", role: "editor", ok: 200 },
   { method: "get", path: `${LAB}/analyses/{analysisId}/scans`, summary: "The scans started from this analysis.", role: "viewer", ok: 200 },
-  { method: "post", path: `${LAB}/analyses/{analysisId}/scans`, summary: "Start a parameter scan (202, queued).", role: "editor", body: { schema: "ScanCreate", enforced: false }, ok: 202 },
+  { method: "post", path: `${LAB}/analyses/{analysisId}/scans`, summary: "Start a parameter scan (202, queued).", role: "editor", body: { schema: "ScanCreate" }, ok: 202 },
   { method: "get", path: `${LAB}/scans/{scanId}`, summary: "Status, progress and (once succeeded) the scan's points.", role: "viewer", ok: 200 },
   { method: "delete", path: `${LAB}/scans/{scanId}`, summary: "Cancel (as POST …/cancel).", role: "editor", ok: 200 },
   { method: "post", path: `${LAB}/scans/{scanId}/cancel`, summary: "Cancel a scan.", role: "editor", ok: 200 },
@@ -100,11 +104,15 @@ export function openApiDocument(version: string): Record<string, unknown> {
       const content: Record<string, unknown> = { "application/json": { schema: { $ref: `#/components/schemas/${op.body.schema}` } } };
       for (const t of op.body.alsoAccepts ?? []) content[t] = { schema: t === "multipart/form-data" ? { type: "object", properties: { file: { type: "string", contentMediaType: "application/octet-stream" }, name: { type: "string" } } } : { type: "string" } };
       operation.requestBody = { required: true, content };
-      operation["x-enforced-by-schema"] = op.body.enforced;
+      operation["x-enforced-by-schema"] = true;
     }
     (paths[op.path] ??= {})[op.method] = operation;
   }
-  const schemas: Record<string, JsonSchema> = { ...BODY_SCHEMAS, FileProblem: S.FILE_PROBLEM, ApiError: S.API_ERROR };
+  const schemas: Record<string, unknown> = {
+    ...Object.fromEntries(Object.entries(BODY_SCHEMAS).map(([name, schema]) => [name, bodyJsonSchema(schema)])),
+    FileProblem: S.FILE_PROBLEM,
+    ApiError: S.API_ERROR,
+  };
   return {
     openapi: "3.1.0",
     info: {
@@ -125,4 +133,13 @@ export function openApiDocument(version: string): Record<string, unknown> {
       },
     },
   };
+}
+
+/**
+ * A body schema as published: z.toJSONSchema in the 2020-12 dialect, as the request is read
+ * (`io: "input"`), without the `$schema` key (the document names its dialect once).
+ */
+export function bodyJsonSchema(schema: z.ZodType): Record<string, unknown> {
+  const { $schema: _dialect, ...rest } = z.toJSONSchema(schema, { target: "draft-2020-12", io: "input" }) as Record<string, unknown>;
+  return rest;
 }

@@ -6,7 +6,7 @@ import { db } from "~/db.server";
 import { getEnv } from "~/env.server";
 import { sendMail } from "~/mail/mailer.server";
 import { signInCodeMail } from "~/mail/templates";
-import { recordAudit } from "~/labs/audit.server";
+import { recordAudit } from "~/shared/audit.server";
 import { CODE_CHARSET, consumeCode, recordIssuedCode, SIGN_IN_POLICY } from "./login-codes.server";
 import { getSession, rotateSession, safeReturnTo } from "./session.server";
 import { findUserByEmail } from "./users.server";

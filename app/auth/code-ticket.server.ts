@@ -1,6 +1,7 @@
 import { getEnv } from "~/env.server";
 import { hmacHex, sameHex } from "./hashing.server";
 import { SIGN_IN_POLICY } from "./login-codes.server";
+import { isUuid } from "~/shared/uuid";
 
 /**
  * The browser that asked for a sign-in code gets a ticket naming the issued code (its ledger
@@ -37,7 +38,7 @@ export function readTicket(request: Request): string | undefined {
     const dot = value.lastIndexOf(".");
     if (dot <= 0) return undefined;
     const rowId = value.slice(0, dot);
-    if (!/^[0-9a-f-]{36}$/i.test(rowId)) return undefined;
+    if (!isUuid(rowId)) return undefined;
     return sameHex(value.slice(dot + 1), sign(rowId)) ? rowId : undefined;
   }
   return undefined;

@@ -1,6 +1,6 @@
 import { redirect } from "react-router";
 import { db } from "~/db.server";
-import { recordAudit } from "~/labs/audit.server";
+import { recordAudit } from "~/shared/audit.server";
 import { authenticator, CODE_GONE, issuedCode, SIGN_IN_PATHS } from "./authenticator.server";
 import { readTicket, ticketCookie } from "./code-ticket.server";
 import { checkCodeRequest, checkTypedCode, isOpenLink, looksLikeEmail, normalizeCode, normalizeEmail } from "./login-codes.server";

@@ -1,7 +1,4 @@
-import type { Kysely, Transaction } from "kysely";
-import type { Database, User } from "~/db/schema";
-
-type Executor = Kysely<Database> | Transaction<Database>;
+import type { DbExecutor, User } from "~/db/schema";
 
 /** What the app passes around for the signed-in person. */
 export interface CurrentUser {
@@ -17,18 +14,18 @@ export function toCurrentUser(row: Pick<User, "id" | "email" | "display_name" | 
 
 const columns = ["id", "email", "display_name", "is_site_admin"] as const;
 
-export async function findUserById(db: Executor, id: string): Promise<CurrentUser | undefined> {
+export async function findUserById(db: DbExecutor, id: string): Promise<CurrentUser | undefined> {
   const row = await db.selectFrom("users").select(columns).where("id", "=", id).executeTakeFirst();
   return row && toCurrentUser(row);
 }
 
-export async function findUserByEmail(db: Executor, email: string): Promise<CurrentUser | undefined> {
+export async function findUserByEmail(db: DbExecutor, email: string): Promise<CurrentUser | undefined> {
   const row = await db.selectFrom("users").select(columns).where("email", "=", email.toLowerCase()).executeTakeFirst();
   return row && toCurrentUser(row);
 }
 
 /** Creates the account, or returns the existing one if two first sign-ins raced. */
-export async function createUser(db: Executor, email: string, displayName: string): Promise<{ user: CurrentUser; created: boolean }> {
+export async function createUser(db: DbExecutor, email: string, displayName: string): Promise<{ user: CurrentUser; created: boolean }> {
   const inserted = await db
     .insertInto("users")
     .values({ email: email.toLowerCase(), display_name: displayName })
@@ -41,7 +38,7 @@ export async function createUser(db: Executor, email: string, displayName: strin
   return { user: existing, created: false };
 }
 
-export async function updateDisplayName(db: Executor, userId: string, displayName: string): Promise<void> {
+export async function updateDisplayName(db: DbExecutor, userId: string, displayName: string): Promise<void> {
   await db.updateTable("users").set({ display_name: displayName }).where("id", "=", userId).execute();
 }
 

@@ -13,12 +13,13 @@ export function AppShell({ user, children }: { user: ShellUser | null; children:
   return (
     <div className="flex min-h-screen flex-col">
       <header className="border-b border-line bg-surface">
-        <div className="mx-auto flex max-w-page items-center gap-8 px-6 py-3">
+        {/* On a phone the menu wraps to a row of its own below the name and the person's menu. */}
+        <div className="mx-auto flex max-w-page flex-wrap items-center gap-x-8 gap-y-2 px-4 py-3 sm:px-6">
           <Link to="/" className="flex items-center gap-2 text-lg font-semibold tracking-tight text-ink">
             <StillpointMark />
             Stillpoint
           </Link>
-          <nav aria-label="Main" className="flex gap-1 text-sm">
+          <nav aria-label="Main" className="order-last -mx-1 flex w-full gap-1 overflow-x-auto text-sm sm:order-none sm:mx-0 sm:w-auto">
             {NAV_ITEMS.map((item) => (
               <NavLink
                 key={item.to}
@@ -31,11 +32,11 @@ export function AppShell({ user, children }: { user: ShellUser | null; children:
               </NavLink>
             ))}
           </nav>
-          <div className="ml-auto text-sm" data-testid="session-state">
+          <div className="ml-auto min-w-0 text-sm" data-testid="session-state">
             {user ? (
-              <div className="flex items-center gap-4">
+              <div className="flex min-w-0 items-center gap-4">
                 {user.activeLab && (
-                  <Link to={`/labs/${user.activeLab.slug}`} className="text-muted hover:text-ink" data-testid="active-lab" title="Working lab (switch under Labs)">
+                  <Link to={`/labs/${user.activeLab.slug}`} className="hidden max-w-48 truncate text-muted hover:text-ink sm:inline" data-testid="active-lab" title="Working lab (switch under Labs)">
                     {user.activeLab.name}
                   </Link>
                 )}
@@ -49,9 +50,9 @@ export function AppShell({ user, children }: { user: ShellUser | null; children:
           </div>
         </div>
       </header>
-      <main className="mx-auto w-full max-w-page flex-1 px-6 py-10">{children}</main>
+      <main className="mx-auto w-full min-w-0 max-w-page flex-1 px-4 py-6 sm:px-6 sm:py-10">{children}</main>
       <footer className="border-t border-line">
-        <div className="mx-auto max-w-page px-6 py-4 text-xs text-faint">
+        <div className="mx-auto max-w-page px-4 py-4 text-xs text-faint sm:px-6">
           Stillpoint · exact analysis of mass-action reaction networks
         </div>
       </footer>
@@ -66,9 +67,9 @@ export function AppShell({ user, children }: { user: ShellUser | null; children:
 function UserMenu({ user }: { user: ShellUser }) {
   return (
     <details className="group relative" data-testid="user-menu">
-      <summary className="flex cursor-pointer list-none items-center gap-2 text-muted hover:text-ink [&::-webkit-details-marker]:hidden">
+      <summary className="flex cursor-pointer list-none items-center gap-2 text-muted hover:text-ink [&::-webkit-details-marker]:hidden" title={user.displayName}>
         <span className="grid size-7 place-items-center rounded-pill bg-accent-soft text-xs font-semibold text-accent-strong">{initials(user.displayName)}</span>
-        {user.displayName}
+        <span className="hidden max-w-40 truncate sm:inline">{user.displayName}</span>
         <span aria-hidden className="text-faint group-open:rotate-180">▾</span>
       </summary>
       <div className="absolute right-0 z-20 mt-2 w-52 rounded-card border border-line bg-surface p-1 shadow-lg" role="menu">

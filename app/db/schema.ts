@@ -1,4 +1,4 @@
-import type { ColumnType, Generated, Insertable, JSONColumnType, Selectable, Updateable } from "kysely";
+import type { ColumnType, Generated, Insertable, JSONColumnType, Kysely, Selectable, Transaction, Updateable } from "kysely";
 
 /**
  * Row types of every table, mirroring migrations/ exactly. Kysely checks queries against it.
@@ -8,6 +8,8 @@ import type { ColumnType, Generated, Insertable, JSONColumnType, Selectable, Upd
 
 /** Set by the database on insert, never written by the app. */
 type CreatedAt = ColumnType<Date, never, never>;
+/** Written by the app on insert (no default), readable as Date. */
+type RequiredTimestamp = ColumnType<Date, Date | string, Date | string>;
 /** Written by the app (or defaulted), readable as Date. */
 type Timestamp = ColumnType<Date, Date | string | undefined, Date | string>;
 /** Defaulted on insert; the database also bumps it on every update (trigger). */
@@ -19,6 +21,10 @@ export const LAB_ROLES: readonly LabRole[] = ["owner", "editor", "viewer"];
 
 export type AnalysisStatus = "queued" | "running" | "succeeded" | "failed" | "cancelled";
 export const ANALYSIS_STATUSES: readonly AnalysisStatus[] = ["queued", "running", "succeeded", "failed", "cancelled"];
+
+/** What a row of `analyses` computes (migration 20261201234500_analyses). */
+export type JobKind = "analysis" | "scan" | "relation" | "timecourse";
+export const JOB_KINDS: readonly JobKind[] = ["analysis", "scan", "relation", "timecourse"];
 
 export type Json = null | boolean | number | string | Json[] | { [key: string]: Json };
 export type JsonObject = { [key: string]: Json };
@@ -39,6 +45,8 @@ export interface LabsTable {
   slug: string;
   name: string;
   created_by: string | null;
+  /** Readable by every signed-in person as a viewer, without membership (migration 20261202130000). */
+  is_public: Generated<boolean>;
   created_at: CreatedAt;
   updated_at: UpdatedAt;
 }
@@ -125,6 +133,36 @@ export interface AnalysesTable {
   created_at: CreatedAt;
   started_at: NullableTimestamp;
   finished_at: NullableTimestamp;
+  // Job bookkeeping (migration 20261201234500_analyses).
+  kind: ColumnType<JobKind, JobKind | undefined, JobKind>;
+  parent_id: string | null;
+  attempts: Generated<number>;
+  max_attempts: Generated<number>;
+  heartbeat_at: NullableTimestamp;
+  worker_id: string | null;
+  cancel_requested_at: NullableTimestamp;
+  time_limit_seconds: Generated<number>;
+  notify_by_email: Generated<boolean>;
+}
+
+/** Read-only links to one analysis (migration 20261201234500_analyses). */
+export interface AnalysisShareLinksTable {
+  id: Generated<string>;
+  analysis_id: string;
+  /** SHA-256 hex of the token; the token itself is shown once. */
+  token_hash: string;
+  created_by: string | null;
+  created_at: CreatedAt;
+  expires_at: RequiredTimestamp;
+  revoked_at: NullableTimestamp;
+}
+
+/** Each lab's ceiling on time limit and basis size (same migration). */
+export interface LabAnalysisSettingsTable {
+  lab_id: string;
+  max_time_limit_seconds: Generated<number>;
+  max_basis_size: Generated<number>;
+  updated_at: Generated<Date>;
 }
 
 export interface ApiTokensTable {
@@ -159,7 +197,6 @@ export interface SessionsTable {
   expires_at: Timestamp;
 }
 
-/** Ledger of e-mailed sign-in codes: single use, attempt and rate limits (same migration). */
 /** One counted action in a rate-limit bucket (migrations/20261202070000_rate_limits.ts). */
 export interface RateLimitEventsTable {
   id: Generated<string>;
@@ -167,6 +204,7 @@ export interface RateLimitEventsTable {
   created_at: CreatedAt;
 }
 
+/** Ledger of e-mailed sign-in codes: single use, attempt limits (migration 20261201230000_accounts). */
 export interface LoginCodesTable {
   id: Generated<string>;
   /** Lower-case. */
@@ -191,12 +229,51 @@ export interface Database {
   network_versions: NetworkVersionsTable;
   network_structures: NetworkStructuresTable;
   analyses: AnalysesTable;
+  analysis_share_links: AnalysisShareLinksTable;
+  lab_analysis_settings: LabAnalysisSettingsTable;
   api_tokens: ApiTokensTable;
   audit_events: AuditEventsTable;
   sessions: SessionsTable;
   login_codes: LoginCodesTable;
   rate_limit_events: RateLimitEventsTable;
 }
+
+/** The pool or a transaction: what repository functions take first. */
+export type DbExecutor = Kysely<Database> | Transaction<Database>;
+
+/**
+ * The columns of every table, as a value the schema test compares with the migrated database
+ * (information_schema). `satisfies` refuses a name the interface lacks; `MissingColumns`
+ * below refuses an interface column left out here, so the list cannot drift from the interface.
+ */
+export const DATABASE_COLUMNS = {
+  users: ["id", "email", "display_name", "is_site_admin", "created_at", "updated_at"],
+  labs: ["id", "slug", "name", "created_by", "created_at", "updated_at", "is_public"],
+  memberships: ["lab_id", "user_id", "role", "created_at", "updated_at"],
+  invitations: ["id", "lab_id", "email", "role", "token_hash", "invited_by", "created_at", "expires_at", "accepted_at", "accepted_by", "revoked_at"],
+  networks: ["id", "lab_id", "name", "description", "tags", "archived_at", "created_by", "created_at", "updated_at"],
+  network_versions: ["id", "network_id", "number", "content_hash", "csv", "change_note", "author_id", "created_at"],
+  network_structures: ["content_hash", "csv", "status", "structure", "problem", "requested_at", "claimed_at", "computed_at"],
+  analyses: [
+    "id", "network_version_id", "lab_id", "status", "params", "result", "error", "engine_version", "progress", "timings",
+    "started_by", "created_at", "started_at", "finished_at", "kind", "parent_id", "attempts", "max_attempts",
+    "heartbeat_at", "worker_id", "cancel_requested_at", "time_limit_seconds", "notify_by_email",
+  ],
+  analysis_share_links: ["id", "analysis_id", "token_hash", "created_by", "created_at", "expires_at", "revoked_at"],
+  lab_analysis_settings: ["lab_id", "max_time_limit_seconds", "max_basis_size", "updated_at"],
+  api_tokens: ["id", "user_id", "name", "token_hash", "created_at", "expires_at", "last_used_at", "revoked_at"],
+  audit_events: ["id", "lab_id", "actor_id", "kind", "details", "created_at"],
+  sessions: ["id_hash", "user_id", "data", "created_at", "expires_at"],
+  login_codes: ["id", "email", "code_hash", "link_hash", "client_key", "created_at", "expires_at", "attempts", "consumed_at", "invalidated_at"],
+  rate_limit_events: ["id", "bucket", "created_at"],
+} as const satisfies { readonly [T in keyof Database]: readonly (keyof Database[T] & string)[] };
+
+/** Interface columns missing from DATABASE_COLUMNS, per table; `never` when the list is complete. */
+type MissingColumns = {
+  [T in keyof Database]: Exclude<keyof Database[T], (typeof DATABASE_COLUMNS)[T][number]>;
+}[keyof Database];
+/** Fails to compile (naming the column) when an interface column is not listed above. */
+export type AssertColumnsComplete<M extends never = MissingColumns> = M;
 
 export type User = Selectable<UsersTable>;
 export type NewUser = Insertable<UsersTable>;
@@ -213,6 +290,8 @@ export type NewNetworkVersion = Insertable<NetworkVersionsTable>;
 export type Analysis = Selectable<AnalysesTable>;
 export type NewAnalysis = Insertable<AnalysesTable>;
 export type AnalysisUpdate = Updateable<AnalysesTable>;
+export type JobRow = Selectable<AnalysesTable>;
+export type ShareLinkRow = Selectable<AnalysisShareLinksTable>;
 export type ApiToken = Selectable<ApiTokensTable>;
 export type NewApiToken = Insertable<ApiTokensTable>;
 export type AuditEvent = Selectable<AuditEventsTable>;

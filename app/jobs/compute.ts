@@ -1,18 +1,18 @@
 /**
  * The algebra and numerics of one job, run only inside the job's child process (never in the web
  * server). Pure apart from the progress callback: input CSV and params in, plain JSON out. The
- * analysis result is exactly the CLI's `analyse --json` object (one code path: domain/cli/analyse.ts).
+ * analysis result is the domain's one JSON shape (domain/steady-state/result.ts), which the CLI prints too.
  */
 import { parseRational, type Rational } from "@domain/algebra/rational";
-import { toJson } from "@domain/cli/analyse";
-import { multistationarityToJson } from "@domain/cli/multistationarity";
 import { parseNetworkCsv, type Network } from "@domain/network/index";
 import { analyseNetwork, type AnalysisProgress } from "@domain/steady-state/index";
 import { foldScan } from "@domain/steady-state/folds";
 import { multistationarity } from "@domain/steady-state/multistationarity";
 import { testRelationOnNetwork } from "@domain/steady-state/relation";
+import { analysisResultJson, multistationarityJson, type MultistationarityJson } from "@domain/steady-state/result";
 import { suggestedOrder } from "~/analyses/suggested-order";
 import type { AnalysisParams, RelationParams, ScanParams, TimeCourseParams } from "~/analyses/params";
+import type { ExactScan, FreshAnalysisResult } from "~/analyses/result-types";
 import { decimalText, effectiveOrder, scanGrid } from "~/analyses/params";
 import { simulateTimeCourse } from "./time-course";
 
@@ -80,13 +80,13 @@ export function computeJob(payload: JobPayload, options: ComputeOptions): Record
       // The multistationarity verdict is about "some constants", so it ignores the run's values; it gets a small share of the time.
       options.onProgress?.({ phase: "multistationarity", message: "deficiency theorems, injectivity, witness search" });
       const left = options.engineTimeoutMs - (Date.now() - started);
-      let verdict: Record<string, unknown>;
+      let verdict: MultistationarityJson;
       try {
-        verdict = left > 500 ? multistationarityToJson(multistationarity(parseNetworkCsv(payload.csv), { timeoutMs: Math.min(10_000, left / 2) })) : { verdict: "undecided", method: "none", reason: "no time left after the analysis" };
+        verdict = left > 500 ? multistationarityJson(multistationarity(parseNetworkCsv(payload.csv), { timeoutMs: Math.min(10_000, left / 2) })) : { verdict: "undecided", method: "none", reason: "no time left after the analysis" };
       } catch (e) {
         verdict = { verdict: "undecided", method: "none", reason: `not finished: ${(e as Error).message}` };
       }
-      return { ...toJson(r), multistationarity: verdict };
+      return { ...analysisResultJson(r), multistationarity: verdict } satisfies FreshAnalysisResult;
     }
     case "relation": {
       // Rate constants and totals may appear: symbolic in a symbolic run, substituted in a numeric one.
@@ -134,7 +134,7 @@ function computeScan(payload: Extract<JobPayload, { kind: "scan" }>, options: Co
   const grid = scanGrid(params);
   const start = Date.now();
   // Exact fold points and windows first (half the time at most); the grid below stays as before.
-  let exact: Record<string, unknown> | null = null;
+  let exact: ExactScan | null = null;
   let exactNote: string | null = null;
   try {
     options.onProgress?.({ phase: "folds", message: `exact fold points of ${params.parameter.name}` });

@@ -2,12 +2,12 @@
 import { getEnv } from "~/env.server";
 import { sendMail } from "~/mail/mailer.server";
 import { findJobById } from "~/analyses/repository.server";
-import type { AnalysesDb } from "~/analyses/schema";
+import type { DbExecutor } from "~/db/schema";
 import { analysisPath } from "~/analyses/paths";
 
 const KIND_WORDS = { analysis: "Analysis", scan: "Parameter scan", relation: "Relation test", timecourse: "Time course" } as const;
 
-export async function notifyStarter(db: AnalysesDb, id: string): Promise<void> {
+export async function notifyStarter(db: DbExecutor, id: string): Promise<void> {
   const job = await findJobById(db, id);
   if (!job || !job.starter_email) return;
   const lab = await db.selectFrom("labs").select("slug").where("id", "=", job.lab_id).executeTakeFirstOrThrow();

@@ -7,8 +7,7 @@
 import { sql } from "kysely";
 import type { AnalysisParams } from "~/analyses/params";
 import { findJobById } from "~/analyses/repository.server";
-import type { AnalysesDb, JobRow } from "~/analyses/schema";
-import type { JsonObject } from "~/db/schema";
+import type { DbExecutor, JobRow, JsonObject } from "~/db/schema";
 import type { JobPayload } from "./compute";
 import { notifyStarter } from "./notify.server";
 import { parseProgress, type JobProgress } from "./progress";
@@ -32,7 +31,7 @@ export interface ProcessOptions {
  * job is still claimed exactly once, but one lab's burst no longer makes another lab's tiny job wait
  * behind all of it. `FOR UPDATE SKIP LOCKED` lets workers claim side by side.
  */
-export async function claimNextJob(db: AnalysesDb, workerId: string, preferId: string | null): Promise<JobRow | undefined> {
+export async function claimNextJob(db: DbExecutor, workerId: string, preferId: string | null): Promise<JobRow | undefined> {
   const picked = await sql<{ id: string }>`
     SELECT a.id FROM analyses a
     WHERE a.status = 'queued' AND a.cancel_requested_at IS NULL
@@ -48,7 +47,7 @@ export async function claimNextJob(db: AnalysesDb, workerId: string, preferId: s
   return claim(db, id, workerId);
 }
 
-async function claim(db: AnalysesDb, id: string, workerId: string): Promise<JobRow | undefined> {
+async function claim(db: DbExecutor, id: string, workerId: string): Promise<JobRow | undefined> {
   return db
     .updateTable("analyses")
     .set({
@@ -67,7 +66,7 @@ async function claim(db: AnalysesDb, id: string, workerId: string): Promise<JobR
     .executeTakeFirst();
 }
 
-async function payloadFor(db: AnalysesDb, row: JobRow): Promise<JobPayload> {
+async function payloadFor(db: DbExecutor, row: JobRow): Promise<JobPayload> {
   const version = await db.selectFrom("network_versions").select("csv").where("id", "=", row.network_version_id).executeTakeFirstOrThrow();
   const parent = row.parent_id ? await findJobById(db, row.parent_id) : undefined;
   const parentParams = parent?.params as unknown as AnalysisParams;
@@ -96,7 +95,7 @@ const seconds = (ms: number) => `${Math.round(ms / 100) / 10} s`;
  * the fairest queued job (claimNextJob; usually the named one) and runs it. Returns the final status
  * it wrote, or null if nothing was claimed.
  */
-export async function processJob(db: AnalysesDb, messageId: string, options: ProcessOptions): Promise<string | null> {
+export async function processJob(db: DbExecutor, messageId: string, options: ProcessOptions): Promise<string | null> {
   // Cancelled while waiting (e.g. after a requeue): settle it rather than leave it queued.
   await db
     .updateTable("analyses")
@@ -105,7 +104,7 @@ export async function processJob(db: AnalysesDb, messageId: string, options: Pro
     .where("status", "=", "queued")
     .where("cancel_requested_at", "is not", null)
     .execute();
-  const row = await db.transaction().execute((trx) => claimNextJob(trx as unknown as AnalysesDb, options.workerId, messageId));
+  const row = await db.transaction().execute((trx) => claimNextJob(trx, options.workerId, messageId));
   if (!row) return null;
   const id = row.id;
   const started = Date.now();

@@ -5,7 +5,7 @@
  * once never requeue a row twice.
  */
 import { sql } from "kysely";
-import type { AnalysesDb } from "~/analyses/schema";
+import type { DbExecutor } from "~/db/schema";
 
 export interface SweepResult {
   requeued: { id: string; timeLimitSeconds: number }[];
@@ -13,7 +13,7 @@ export interface SweepResult {
   failed: string[];
 }
 
-export async function sweepStaleJobs(db: AnalysesDb, staleAfterMs: number): Promise<SweepResult> {
+export async function sweepStaleJobs(db: DbExecutor, staleAfterMs: number): Promise<SweepResult> {
   const rows = await db
     .updateTable("analyses")
     .set({
@@ -39,7 +39,7 @@ export async function sweepStaleJobs(db: AnalysesDb, staleAfterMs: number): Prom
 }
 
 /** Queued rows with no live queue message (e.g. a send that failed) older than `olderThanMs`. */
-export async function orphanedQueuedJobs(db: AnalysesDb, olderThanMs: number): Promise<{ id: string; timeLimitSeconds: number }[]> {
+export async function orphanedQueuedJobs(db: DbExecutor, olderThanMs: number): Promise<{ id: string; timeLimitSeconds: number }[]> {
   const rows = await db
     .selectFrom("analyses as a")
     .select(["a.id", "a.time_limit_seconds"])
@@ -55,7 +55,7 @@ export async function orphanedQueuedJobs(db: AnalysesDb, olderThanMs: number): P
  * A worker shutting down cleanly (SIGTERM, Ctrl-C) hands its running jobs back: queued again with
  * the attempt not counted, so a restart never costs a job one of its tries.
  */
-export async function releaseRunningJobs(db: AnalysesDb, workerId: string): Promise<{ id: string; timeLimitSeconds: number }[]> {
+export async function releaseRunningJobs(db: DbExecutor, workerId: string): Promise<{ id: string; timeLimitSeconds: number }[]> {
   const rows = await db
     .updateTable("analyses")
     .set({

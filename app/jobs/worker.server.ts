@@ -9,7 +9,6 @@ import { randomBytes } from "node:crypto";
 import { pathToFileURL } from "node:url";
 import { createDb } from "~/db.server";
 import { getEnv } from "~/env.server";
-import { asAnalysesDb } from "~/analyses/schema";
 import { computePendingStructures } from "~/networks/structure-store.server";
 import { enqueue, getBoss, QUEUE, stopBosses, type JobMessage } from "./queue.server";
 import { processJob, stopAllChildren, type ProcessOptions } from "./process-job.server";
@@ -36,8 +35,7 @@ export interface RunningWorker {
 export async function startWorker(options: WorkerOptions): Promise<RunningWorker> {
   const id = `${hostname()}:${process.pid}:${randomBytes(3).toString("hex")}`;
   const log = options.log ?? ((line: string) => console.log(`[worker ${id}] ${line}`));
-  const plainDb = createDb(options.databaseUrl, { max: getEnv().dbPool.workerMax, waitMs: getEnv().dbPool.waitMs });
-  const db = asAnalysesDb(plainDb);
+  const db = createDb(options.databaseUrl, { max: getEnv().dbPool.workerMax, waitMs: getEnv().dbPool.waitMs });
   const boss = await getBoss(options.databaseUrl, { supervise: true });
   const processOptions: ProcessOptions = {
     workerId: id,
@@ -81,7 +79,7 @@ export async function startWorker(options: WorkerOptions): Promise<RunningWorker
     if (structuresBusy) return;
     structuresBusy = true;
     try {
-      const n = await computePendingStructures(plainDb, 50);
+      const n = await computePendingStructures(db, 50);
       if (n > 0 && options.logStructures) log(`computed ${n} network structure${n === 1 ? "" : "s"}`);
     } catch (e) {
       log(`structures failed: ${(e as Error).message}`);

@@ -1,9 +1,7 @@
-import type { Kysely, Transaction } from "kysely";
-import type { Database, LabRole } from "~/db/schema";
+import type { Kysely } from "kysely";
+import type { Database, DbExecutor, LabRole } from "~/db/schema";
 import { randomToken, sha256Hex } from "~/auth/hashing.server";
-import { recordAudit } from "./audit.server";
-
-type Executor = Kysely<Database> | Transaction<Database>;
+import { recordAudit } from "~/shared/audit.server";
 
 export const INVITATION_DAYS = 7;
 
@@ -116,7 +114,7 @@ export async function revokeInvitation(db: Kysely<Database>, args: { labId: stri
 }
 
 /** Invitations not yet accepted or revoked (expired ones included, so owners can resend). */
-export async function listOpenInvitations(db: Executor, labId: string): Promise<InvitationRow[]> {
+export async function listOpenInvitations(db: DbExecutor, labId: string): Promise<InvitationRow[]> {
   const rows = await db
     .selectFrom("invitations as i")
     .leftJoin("users as u", "u.id", "i.invited_by")
@@ -138,7 +136,7 @@ export async function listOpenInvitations(db: Executor, labId: string): Promise<
 }
 
 /** What the accept page shows for a link: the lab, the role, the address, and whether it still works. */
-export async function findInvitationByToken(db: Executor, token: string) {
+export async function findInvitationByToken(db: DbExecutor, token: string) {
   if (!/^[A-Za-z0-9_-]{20,100}$/.test(token)) return undefined;
   const row = await db
     .selectFrom("invitations as i")

@@ -1,7 +1,7 @@
 import { db } from "~/db.server";
 import { getEnv } from "~/env.server";
 import { looksLikeEmail, normalizeEmail } from "~/auth/login-codes.server";
-import { isUuid } from "~/account/api-tokens.server";
+import { isUuid } from "~/shared/uuid";
 import { sendMail } from "~/mail/mailer.server";
 import { invitationMail } from "~/mail/templates";
 import type { LabAccess } from "~/permissions/permissions.server";
@@ -9,7 +9,7 @@ import { isLabRole } from "~/permissions/roles";
 import { createInvitation, InvitationError, resendInvitation, revokeInvitation } from "./invitations.server";
 import { parseLabName, renameLab } from "./labs.server";
 import { changeRole, MembershipError, removeMember } from "./memberships.server";
-import { type ActionResult, field, ok, refuse } from "./form.server";
+import { type ActionResult, field, ok, refuse } from "~/shared/form";
 import { takeRateLimit } from "~/auth/rate-limit.server";
 
 /**

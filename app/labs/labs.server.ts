@@ -1,8 +1,6 @@
-import type { Kysely, Transaction } from "kysely";
-import type { Database, LabRole } from "~/db/schema";
-import { recordAudit } from "./audit.server";
-
-type Executor = Kysely<Database> | Transaction<Database>;
+import type { Kysely } from "kysely";
+import type { Database, DbExecutor, LabRole } from "~/db/schema";
+import { recordAudit } from "~/shared/audit.server";
 
 export interface LabSummary {
   id: string;
@@ -10,6 +8,7 @@ export interface LabSummary {
   name: string;
   role: LabRole;
   memberCount: number;
+  isPublic: boolean;
 }
 
 /** "Kinetics Group (Basel)" → "kinetics-group-basel"; never empty, at most 48 characters. */
@@ -61,7 +60,7 @@ export async function renameLab(db: Kysely<Database>, args: { labId: string; act
 }
 
 /** The labs a user belongs to, with their role, alphabetically. */
-export async function listLabsOf(db: Executor, userId: string): Promise<LabSummary[]> {
+export async function listLabsOf(db: DbExecutor, userId: string): Promise<LabSummary[]> {
   const rows = await db
     .selectFrom("memberships as m")
     .innerJoin("labs as l", "l.id", "m.lab_id")
@@ -69,6 +68,7 @@ export async function listLabsOf(db: Executor, userId: string): Promise<LabSumma
       "l.id",
       "l.slug",
       "l.name",
+      "l.is_public",
       "m.role",
       eb
         .selectFrom("memberships as all_m")
@@ -79,15 +79,55 @@ export async function listLabsOf(db: Executor, userId: string): Promise<LabSumma
     .where("m.user_id", "=", userId)
     .orderBy("l.name")
     .execute();
-  return rows.map((r) => ({ id: r.id, slug: r.slug, name: r.name, role: r.role, memberCount: Number(r.member_count ?? 0) }));
+  return rows.map((r) => ({ id: r.id, slug: r.slug, name: r.name, role: r.role, memberCount: Number(r.member_count ?? 0), isPublic: r.is_public }));
 }
 
 /** The lab with this slug and the user's role in it (null when not a member); undefined when no such lab. */
-export async function findLabWithRole(db: Executor, slug: string, userId: string) {
+export async function findLabWithRole(db: DbExecutor, slug: string, userId: string) {
   return db
     .selectFrom("labs as l")
     .leftJoin("memberships as m", (join) => join.onRef("m.lab_id", "=", "l.id").on("m.user_id", "=", userId))
-    .select(["l.id", "l.slug", "l.name", "m.role"])
+    .select(["l.id", "l.slug", "l.name", "l.is_public", "m.role"])
     .where("l.slug", "=", slug)
     .executeTakeFirst();
+}
+
+export interface PublicLab {
+  id: string;
+  slug: string;
+  name: string;
+  networkCount: number;
+}
+
+/** Labs every signed-in person may read (the worked examples), with how many live networks each holds. */
+export async function listPublicLabs(db: DbExecutor): Promise<PublicLab[]> {
+  const rows = await db
+    .selectFrom("labs as l")
+    .select((eb) => [
+      "l.id",
+      "l.slug",
+      "l.name",
+      eb
+        .selectFrom("networks as n")
+        .select(eb.fn.countAll<string>().as("n"))
+        .whereRef("n.lab_id", "=", "l.id")
+        .where("n.archived_at", "is", null)
+        .as("network_count"),
+    ])
+    .where("l.is_public", "=", true)
+    .orderBy("l.name")
+    .execute();
+  return rows.map((r) => ({ id: r.id, slug: r.slug, name: r.name, networkCount: Number(r.network_count ?? 0) }));
+}
+
+/** How many live networks the labs a user belongs to hold together (0 → show the first steps). */
+export async function countNetworksOf(db: DbExecutor, userId: string): Promise<number> {
+  const row = await db
+    .selectFrom("networks as n")
+    .innerJoin("memberships as m", "m.lab_id", "n.lab_id")
+    .select((eb) => eb.fn.countAll<string>().as("n"))
+    .where("m.user_id", "=", userId)
+    .where("n.archived_at", "is", null)
+    .executeTakeFirstOrThrow();
+  return Number(row.n);
 }

@@ -1,8 +1,6 @@
 import type { Kysely, Transaction } from "kysely";
-import type { Database, LabRole } from "~/db/schema";
-import { recordAudit } from "./audit.server";
-
-type Executor = Kysely<Database> | Transaction<Database>;
+import type { Database, DbExecutor, LabRole } from "~/db/schema";
+import { recordAudit } from "~/shared/audit.server";
 
 export class MembershipError extends Error {
   constructor(
@@ -24,7 +22,7 @@ export interface MemberRow {
 
 const ROLE_ORDER: Record<LabRole, number> = { owner: 0, editor: 1, viewer: 2 };
 
-export async function listMembers(db: Executor, labId: string): Promise<MemberRow[]> {
+export async function listMembers(db: DbExecutor, labId: string): Promise<MemberRow[]> {
   const rows = await db
     .selectFrom("memberships as m")
     .innerJoin("users as u", "u.id", "m.user_id")

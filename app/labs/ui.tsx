@@ -30,12 +30,6 @@ export const inputClass =
   "w-full rounded-md border border-line bg-surface px-3 py-2 text-sm text-ink placeholder:text-faint focus:border-accent focus:outline-none";
 export const labelClass = "block text-sm font-medium text-ink";
 
-export function formatDate(value: Date | string | null | undefined): string {
-  if (!value) return "—";
-  const d = typeof value === "string" ? new Date(value) : value;
-  return d.toISOString().slice(0, 16).replace("T", " ") + " UTC";
-}
-
 /**
  * A one-button form posting `intent` and a few hidden fields to the current route's action —
  * the small row actions (revoke, remove, resend) of the account and member pages.

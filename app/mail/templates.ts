@@ -1,5 +1,6 @@
 import type { LabRole } from "~/db/schema";
 import type { MailMessage } from "./mailer.server";
+import { formatDay } from "~/shared/dates";
 
 const escapeHtml = (s: string) =>
   s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
@@ -34,7 +35,7 @@ export function invitationMail(args: {
   expiresAt: Date;
 }): MailMessage {
   const { to, labName, role, inviterName, acceptUrl, expiresAt } = args;
-  const until = expiresAt.toISOString().slice(0, 10);
+  const until = formatDay(expiresAt);
   return {
     to,
     subject: `${inviterName} invited you to ${labName} on Stillpoint`,

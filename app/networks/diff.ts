@@ -26,12 +26,14 @@ export interface NetworkDiff {
    * Holding a species also changes the reactions' complexes, which the lists above show.
    */
   constantsChanged: string[];
+  /** Stored initial values set, removed or changed, e.g. `S = 10`, `S: 10 → 5`, `S: no initial value`. */
+  initialChanged: string[];
   /** True when nothing above is non-empty. */
   identical: boolean;
 }
 
 /** `constants` may be missing from a structure stored before constant species existed. */
-type Side = Pick<NetworkStructure, "species" | "reactionList"> & { constants?: NetworkStructure["constants"] };
+type Side = Pick<NetworkStructure, "species" | "reactionList"> & { constants?: NetworkStructure["constants"]; initial?: NetworkStructure["initial"] };
 
 export const reactionText = (r: Pick<ReactionSummary, "reactant" | "product">) => `${r.reactant} → ${r.product}`;
 
@@ -68,8 +70,9 @@ export function diffNetworks(before: Side, after: Side): NetworkDiff {
     if (changes.length > 0) reactionsChanged.push({ reaction: reactionText(now), before: old, after: now, changes });
   }
   const constantsChanged = diffConstants(before.constants ?? [], after.constants ?? []);
-  const identical = [speciesAdded, speciesRemoved, reactionsAdded, reactionsRemoved, reactionsChanged, constantsChanged].every((l) => l.length === 0);
-  return { speciesAdded, speciesRemoved, reactionsAdded, reactionsRemoved, reactionsChanged, constantsChanged, identical };
+  const initialChanged = diffInitial(before.initial ?? [], after.initial ?? []);
+  const identical = [speciesAdded, speciesRemoved, reactionsAdded, reactionsRemoved, reactionsChanged, constantsChanged, initialChanged].every((l) => l.length === 0);
+  return { speciesAdded, speciesRemoved, reactionsAdded, reactionsRemoved, reactionsChanged, constantsChanged, initialChanged, identical };
 }
 
 function diffConstants(before: NetworkStructure["constants"], after: NetworkStructure["constants"]): string[] {
@@ -81,5 +84,16 @@ function diffConstants(before: NetworkStructure["constants"], after: NetworkStru
     else if (old.value !== c.value) out.push(`${c.name}: ${held(old.value)} → ${held(c.value)}`);
   }
   for (const b of before) if (!after.some((c) => c.name === b.name)) out.push(`${b.name} no longer held constant`);
+  return out;
+}
+
+function diffInitial(before: NonNullable<NetworkStructure["initial"]>, after: NonNullable<NetworkStructure["initial"]>): string[] {
+  const out: string[] = [];
+  for (const c of after) {
+    const old = before.find((b) => b.name === c.name);
+    if (!old) out.push(`${c.name} = ${c.value}`);
+    else if (old.value !== c.value) out.push(`${c.name}: ${old.value} → ${c.value}`);
+  }
+  for (const b of before) if (!after.some((c) => c.name === b.name)) out.push(`${b.name}: no initial value`);
   return out;
 }

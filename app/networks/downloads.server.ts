@@ -1,26 +1,28 @@
-import { formatNetworkCsv, formatReactionList, odeJulia, odePython, parseNetworkCsv } from "@domain/network/index";
+import { formatNetworkCsv, formatReactionList, parseNetworkCsv } from "@domain/network/index";
+import { odeJulia, odePython } from "@domain/steady-state/index";
 import { formatSbml } from "@domain/network/sbml/index";
 import { csvTextSafe } from "~/downloads/escape";
 import { stoichiometricMatrixCsv } from "./matrix-csv";
 import type { NetworkRecord, VersionRecord } from "./networks.server";
-import { massActionOdes, odesLatexDocument } from "./odes";
+import { odesLatexDocument } from "./odes";
 import type { StructureState } from "./structure-store.server";
+import { odesOf } from "./structure.server";
 import type { NetworkStructure } from "@domain/network/index";
+import { notFound } from "~/shared/responses";
 
 const slug = (name: string) => name.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "") || "network";
 
 /**
  * The downloads. The network CSV is written by the domain's formatNetworkCsv, so every
- * rate symbol is explicit and the file reads back to the same network. The two that need the
- * structure answer 503 with Retry-After while the worker is still computing it.
+ * rate symbol is explicit and the file reads back to the same network. Every format carries the
+ * constant species and the stored initial values (SBML as boundary species and initialConcentration,
+ * the reaction list as the CSV's directive lines, the code as parameters and INITIAL). The two that
+ * need the structure answer 503 with Retry-After while the worker is still computing it.
  */
 export function downloadFile(network: NetworkRecord, version: VersionRecord, file: string | undefined, structureState: StructureState): Response {
   const stem = `${slug(network.name)}-v${version.number}`;
   const send = (body: string, type: string, name: string) =>
     new Response(body, { headers: { "Content-Type": `${type}; charset=utf-8`, "Content-Disposition": `attachment; filename="${name}"` } });
-  // The open formats and code do not carry constant species yet: refuse rather than drop them.
-  if (["network.xml", "network.txt", "odes.py", "odes.jl"].includes(file ?? "") && (parseNetworkCsv(version.csv).constants ?? []).length > 0)
-    return new Response("This version holds species constant; the SBML, reaction-list and ODE-code downloads do not carry constant species yet. Download the CSV instead.", { status: 409, headers: { "Content-Type": "text/plain; charset=utf-8" } });
   const withStructure = (make: (s: NetworkStructure) => Response): Response => {
     if (structureState.status === "ready") return make(structureState.structure);
     if (structureState.status === "failed") return new Response(`The structure of this version could not be computed: ${structureState.message}`, { status: 422, headers: { "Content-Type": "text/plain; charset=utf-8" } });
@@ -30,8 +32,9 @@ export function downloadFile(network: NetworkRecord, version: VersionRecord, fil
     case "network.csv":
       return send(csvTextSafe(formatNetworkCsv(parseNetworkCsv(version.csv))), "text/csv", `${stem}.csv`);
     case "odes.tex":
+      // The equations need no structure (odesOf only writes the polynomials); the held values come formatted from it.
       return withStructure((structure) =>
-        send(odesLatexDocument(`${network.name} (version ${version.number})`, massActionOdes(structure), structure.constants), "application/x-tex", `${stem}-odes.tex`),
+        send(odesLatexDocument(`${network.name} (version ${version.number})`, odesOf(version.csv), structure.constants), "application/x-tex", `${stem}-odes.tex`),
       );
     // Open formats and code (issue 14): SBML Level 3 Version 2, a reaction list, the ODEs as Python and Julia.
     case "network.xml":
@@ -45,6 +48,6 @@ export function downloadFile(network: NetworkRecord, version: VersionRecord, fil
     case "stoichiometric-matrix.csv":
       return withStructure((structure) => send(stoichiometricMatrixCsv(structure), "text/csv", `${stem}-stoichiometric-matrix.csv`));
     default:
-      throw new Response("No such download", { status: 404, statusText: "Not Found" });
+      throw notFound("No such download");
   }
 }

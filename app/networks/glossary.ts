@@ -20,6 +20,8 @@ export const GLOSSARY = {
     "The deficiency δ = n − ℓ − s counts complexes (n), minus linkage classes (ℓ), minus the rank (s). It is never negative. Small deficiency often means the network's steady states can be described without knowing the rate constants.",
   weakReversibility:
     "A network is weakly reversible when every reaction lies on a cycle of arrows: whenever you can go from one complex to another, you can also come back, maybe by a longer route.",
+  theorems:
+    "Two published theorems that decide, from the structure alone and for any positive rate constants, how many positive steady states each compatibility class can hold. Where one applies, the verdict card says so; where neither does, only an analysis with rate constants can count them.",
   deficiencyZero:
     "A theorem that decides, from structure alone, what the steady states look like when the deficiency is 0. The assumptions listed are part of the statement: it says nothing outside them.",
   deficiencyOne:

@@ -5,7 +5,6 @@
  */
 import { formatFromName, readNetworkDocument, type NetworkFileProblem, type NetworkFormat } from "@domain/network/index";
 import { readSbml, type SbmlReactionReport } from "@domain/network/sbml/index";
-import { formatRational } from "@domain/algebra/rational";
 
 export type ImportResult =
   | { ok: true; format: NetworkFormat; csv: string; notes: string[] }
@@ -26,8 +25,8 @@ export function importFormat(fileName: string | undefined, contentType: string |
 }
 
 /**
- * Reads SBML or a reaction list into our CSV. Initial concentrations of an SBML file have no place
- * in a version, so they are named in `notes` rather than dropped unsaid.
+ * Reads SBML or a reaction list into our CSV. Held species and initial concentrations travel in the
+ * CSV's `# constant:` and `# initial:` lines, so nothing of the file's network is dropped.
  * Example: importNetworkText("A -> B, k = 2\n", "text") is { ok: true, csv: "reaction,label,rate,rate_value\nA -> B,,k,2\n", … }.
  */
 export function importNetworkText(text: string, format: NetworkFormat): ImportResult {
@@ -44,9 +43,5 @@ export function importNetworkText(text: string, format: NetworkFormat): ImportRe
       notes: [...r.notes],
     };
   }
-  const notes = [...r.document.notes];
-  if (r.document.initial.size > 0) {
-    notes.push(`initial concentrations in the file are not part of a network version: ${[...r.document.initial].map(([s, v]) => `${s} = ${formatRational(v)}`).join(", ")}`);
-  }
-  return { ok: true, format, csv: r.document.csv, notes };
+  return { ok: true, format, csv: r.document.csv, notes: [...r.document.notes] };
 }

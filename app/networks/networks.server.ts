@@ -3,16 +3,14 @@
  * function's lab or network id comes from a permission check made by the caller.
  */
 import { createHash } from "node:crypto";
-import type { Kysely, Transaction } from "kysely";
-import type { Database } from "~/db/schema";
+import type { Kysely } from "kysely";
+import type { Database, DbExecutor } from "~/db/schema";
+import { recordAudit } from "~/shared/audit.server";
+import { isUuid } from "~/shared/uuid";
 import { requestStructure } from "./structure-store.server";
-
-type Executor = Kysely<Database> | Transaction<Database>;
 
 export const contentHash = (csv: string) => createHash("sha256").update(csv, "utf8").digest("hex");
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-export const isUuid = (s: string | undefined): s is string => s !== undefined && UUID.test(s);
 
 export interface NetworkRecord {
   id: string;
@@ -70,7 +68,7 @@ function toNetwork(r: {
   };
 }
 
-function versionQuery(db: Executor) {
+function versionQuery(db: DbExecutor) {
   return db
     .selectFrom("network_versions as v")
     .leftJoin("users as u", "u.id", "v.author_id")
@@ -101,7 +99,7 @@ function toVersion(r: {
   };
 }
 
-export async function listNetworks(db: Executor, labId: string, options: { includeArchived?: boolean } = {}): Promise<NetworkListEntry[]> {
+export async function listNetworks(db: DbExecutor, labId: string, options: { includeArchived?: boolean } = {}): Promise<NetworkListEntry[]> {
   let q = db.selectFrom("networks as n").select(networkColumns).where("n.lab_id", "=", labId);
   if (!options.includeArchived) q = q.where("n.archived_at", "is", null);
   const networks = (await q.orderBy("n.name").execute()).map(toNetwork);
@@ -126,28 +124,28 @@ export async function listNetworks(db: Executor, labId: string, options: { inclu
 }
 
 /** The network in this lab, or undefined (also for a malformed id). */
-export async function findNetwork(db: Executor, labId: string, networkId: string | undefined): Promise<NetworkRecord | undefined> {
+export async function findNetwork(db: DbExecutor, labId: string, networkId: string | undefined): Promise<NetworkRecord | undefined> {
   if (!isUuid(networkId)) return undefined;
   const row = await db.selectFrom("networks as n").select(networkColumns).where("n.id", "=", networkId).where("n.lab_id", "=", labId).executeTakeFirst();
   return row && toNetwork(row);
 }
 
-export async function listVersions(db: Executor, networkId: string): Promise<VersionRecord[]> {
+export async function listVersions(db: DbExecutor, networkId: string): Promise<VersionRecord[]> {
   return (await versionQuery(db).where("v.network_id", "=", networkId).orderBy("v.number", "desc").execute()).map(toVersion);
 }
 
-export async function findVersion(db: Executor, networkId: string, number: number): Promise<VersionRecord | undefined> {
+export async function findVersion(db: DbExecutor, networkId: string, number: number): Promise<VersionRecord | undefined> {
   if (!Number.isSafeInteger(number) || number < 1) return undefined;
   const row = await versionQuery(db).where("v.network_id", "=", networkId).where("v.number", "=", number).executeTakeFirst();
   return row && toVersion(row);
 }
 
-export async function latestVersion(db: Executor, networkId: string): Promise<VersionRecord | undefined> {
+export async function latestVersion(db: DbExecutor, networkId: string): Promise<VersionRecord | undefined> {
   const row = await versionQuery(db).where("v.network_id", "=", networkId).orderBy("v.number", "desc").limit(1).executeTakeFirst();
   return row && toVersion(row);
 }
 
-export async function findVersionByHash(db: Executor, networkId: string, hash: string): Promise<VersionRecord | undefined> {
+export async function findVersionByHash(db: DbExecutor, networkId: string, hash: string): Promise<VersionRecord | undefined> {
   const row = await versionQuery(db).where("v.network_id", "=", networkId).where("v.content_hash", "=", hash).executeTakeFirst();
   return row && toVersion(row);
 }
@@ -175,7 +173,7 @@ export async function insertNetwork(db: Kysely<Database>, input: NewNetworkInput
   });
 }
 
-async function insertVersionRow(trx: Executor, networkId: string, number: number, input: { csv: string; changeNote: string; authorId: string }) {
+async function insertVersionRow(trx: DbExecutor, networkId: string, number: number, input: { csv: string; changeNote: string; authorId: string }) {
   const inserted = await trx
     .insertInto("network_versions")
     .values({ network_id: networkId, number, content_hash: contentHash(input.csv), csv: input.csv, change_note: input.changeNote, author_id: input.authorId })
@@ -211,11 +209,11 @@ export async function appendVersion(
   });
 }
 
-export async function updateNetworkDetails(db: Executor, networkId: string, details: { name: string; description: string; tags: string[] }) {
+export async function updateNetworkDetails(db: DbExecutor, networkId: string, details: { name: string; description: string; tags: string[] }) {
   await db.updateTable("networks").set({ ...details, updated_at: new Date() }).where("id", "=", networkId).execute();
 }
 
-export async function setArchived(db: Executor, networkId: string, archived: boolean) {
+export async function setArchived(db: DbExecutor, networkId: string, archived: boolean) {
   await db
     .updateTable("networks")
     .set({ archived_at: archived ? new Date() : null, updated_at: new Date() })
@@ -227,9 +225,6 @@ export async function setArchived(db: Executor, networkId: string, archived: boo
 export async function deleteNetwork(db: Kysely<Database>, network: NetworkRecord, actorId: string) {
   await db.transaction().execute(async (trx) => {
     await trx.deleteFrom("networks").where("id", "=", network.id).execute();
-    await trx
-      .insertInto("audit_events")
-      .values({ kind: "network.deleted", actor_id: actorId, lab_id: network.labId, details: { networkId: network.id, name: network.name } })
-      .execute();
+    await recordAudit(trx, { kind: "network.deleted", actorId, labId: network.labId, details: { networkId: network.id, name: network.name } });
   });
 }

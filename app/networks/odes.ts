@@ -1,56 +1,12 @@
-import type { NetworkStructure } from "@domain/network/index";
+import type { SpeciesOde } from "@domain/steady-state/ode-terms";
 import { latexText } from "~/downloads/escape";
 
 /**
- * Mass-action ODEs written from the structure the page already shows (one code path): the
- * stoichiometric matrix N, the complex composition Y and each reaction's rate symbol.
- * dx_s/dt = Σ_j N[s][j] · k_j · Π_t x_t^Y[t][c(j)], where c(j) is reaction j's reactant complex
- * (Horn & Jackson, Arch. Rational Mech. Anal. 47, 1972, eq. 2.5). Rate constants stay symbolic;
- * terms with the same rate symbol and reactant are merged. A constant species of the reactant
- * (`held` in the reaction list) appears as a factor marked `constant`, its concentration written
- * like any other (its value, if given, is in the structure's `constants`), and has no equation.
- * The exact builder the analyses use is domain/steady-state/kinetics.ts; this one writes the same
- * equations from the page's structure without values substituted.
+ * The mass-action ODEs written out for people: plain text, TeX and a LaTeX document. The
+ * equations themselves come from the domain's one builder (domain/steady-state/ode-terms.ts,
+ * read from the exact polynomials of kinetics.ts with every constant symbolic); this file only
+ * formats them. A constant species appears as a factor marked `constant` and has no equation.
  */
-
-export interface OdeTerm {
-  /** Integer coefficient, never 0. */
-  coefficient: number;
-  rate: string;
-  /** Species with their exponents, in the network's species order, then the constant species. */
-  factors: { species: string; power: number; constant?: true }[];
-}
-
-export interface SpeciesOde {
-  species: string;
-  terms: OdeTerm[];
-}
-
-export function massActionOdes(structure: Pick<NetworkStructure, "species" | "complexes" | "complexComposition" | "reactionList" | "stoichiometricMatrix">): SpeciesOde[] {
-  const complexIndex = new Map(structure.complexes.map((c, i) => [c, i]));
-  const monomials = structure.reactionList.map((r) => {
-    const c = complexIndex.get(r.reactant);
-    if (c === undefined) throw new Error(`reactant complex ${r.reactant} of ${r.id} is not among the complexes`);
-    const factors: OdeTerm["factors"] = structure.species
-      .map((species, s) => ({ species, power: structure.complexComposition[s]![c]! }))
-      .filter((f) => f.power !== 0);
-    const held = Object.entries(r.held ?? {});
-    for (const [species, power] of held) factors.push({ species, power, constant: true });
-    return { rate: r.rate, factors, key: `${r.rate}|${r.reactant}|${held.map(([s, p]) => `${p}${s}`).join("+")}` };
-  });
-  return structure.species.map((species, s) => {
-    const merged = new Map<string, OdeTerm>();
-    structure.stoichiometricMatrix[s]!.forEach((n, j) => {
-      if (n === 0) return;
-      const m = monomials[j]!;
-      const existing = merged.get(m.key);
-      if (existing) existing.coefficient += n;
-      else merged.set(m.key, { coefficient: n, rate: m.rate, factors: m.factors });
-    });
-    return { species, terms: [...merged.values()].filter((t) => t.coefficient !== 0) };
-  });
-}
-
 /** `dE/dt = -k1·E·S + k2·C` (plain text, for tables, tooltips and tests). */
 export function odeToText(ode: SpeciesOde): string {
   const rhs = ode.terms
@@ -100,12 +56,12 @@ export function odeToLatex(ode: SpeciesOde): string {
 }
 
 /** All equations in one `aligned` block, equals signs under each other (for display). */
-export function odesAlignedLatex(odes: SpeciesOde[]): string {
+export function odesAlignedLatex(odes: readonly SpeciesOde[]): string {
   return `\\begin{aligned}\n${odes.map((o) => odeToLatex(o).replace(" = ", " &= ")).join(" \\\\[0.6em]\n")}\n\\end{aligned}`;
 }
 
 /** A complete LaTeX document with the ODEs in an `align*` block (the download). */
-export function odesLatexDocument(title: string, odes: SpeciesOde[], constants: readonly { name: string; value?: string }[] = []): string {
+export function odesLatexDocument(title: string, odes: readonly SpeciesOde[], constants: readonly { name: string; value?: string }[] = []): string {
   const lines = odes.map((o) => "  " + odeToLatex(o).replace(" = ", " &= "));
   // Held species have no equation; the document says at what concentration they are held.
   const held =

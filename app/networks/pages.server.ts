@@ -10,11 +10,17 @@ import type { LabAccess } from "~/permissions/permissions.server";
 import { hasRole } from "~/permissions/roles";
 import { diffNetworks, type NetworkDiff } from "./diff";
 import { findNetwork, findVersion, latestVersion, listNetworks, listVersions, type NetworkRecord, type VersionRecord } from "./networks.server";
-import { checkNetworkFile } from "./structure.server";
+import { checkNetworkFile, odesOf } from "./structure.server";
 import { structureState, structureStates, type StructureState } from "./structure-store.server";
 import { contentHash } from "./networks.server";
+import type { SpeciesOde } from "@domain/steady-state/ode-terms";
 import { networkPath } from "./paths";
+import { verdictCard, type LatestAnalysis, type VerdictCard } from "./verdict";
+import { listJobs } from "~/analyses/repository.server";
+import { analysisPath, newAnalysisPath } from "~/analyses/paths";
+import type { AnalysisResult } from "~/analyses/result-types";
 import type { NetworkTableRow } from "./ui/network-table";
+import { notFound } from "~/shared/responses";
 
 export { networkPath };
 
@@ -66,7 +72,7 @@ export async function networkTableRows(db: Kysely<Database>, access: LabAccess, 
       reactionCount: file.ok ? file.network.reactions.length : 0,
       deficiency: state?.status === "ready" ? state.structure.deficiency : null,
       lastChange: n.latest.createdAt.toISOString(),
-      author: n.latest.authorName ?? "(former member)",
+      author: n.latest.authorName ?? (access.lab.isPublic ? "worked example" : "(former member)"),
       version: n.latest.number,
     };
   });
@@ -77,7 +83,7 @@ export async function requireNetwork(db: Kysely<Database>, access: LabAccess, ne
   const network = await findNetwork(db, access.lab.id, networkId);
   if (!network) {
     if (api) throw apiError("not_found", "No such network in this lab.");
-    throw new Response("Not found", { status: 404, statusText: "Not Found" });
+    throw notFound();
   }
   return network;
 }
@@ -87,13 +93,13 @@ export async function requireVersion(db: Kysely<Database>, network: NetworkRecor
   const version = raw == null || raw === "" ? await latestVersion(db, network.id) : await findVersion(db, network.id, Number(raw));
   if (!version) {
     if (api) throw apiError("not_found", `Version ${raw} of this network does not exist.`);
-    throw new Response(`No version ${raw}`, { status: 404, statusText: "Not Found" });
+    throw notFound(`No version ${raw}`);
   }
   return version;
 }
 
 export interface NetworkPageData {
-  lab: { slug: string; name: string };
+  lab: { slug: string; name: string; isPublic: boolean };
   network: NetworkJson;
   version: VersionJson;
   latestNumber: number;
@@ -102,23 +108,47 @@ export interface NetworkPageData {
   structure: NetworkStructure | null;
   structureStatus: StructureState["status"];
   structureProblem?: string;
+  /** From the file alone (no structure needed), so the page shows them while the structure is pending. */
+  odes: SpeciesOde[];
   canEdit: boolean;
   canDelete: boolean;
+  /** Reading a public lab (the worked examples) without being a member. */
+  guest: boolean;
+  /** Null until the structure is ready: every line rests on it. */
+  verdict: VerdictCard | null;
+}
+
+/** The newest finished analysis of exactly this version, for the verdict card. */
+async function latestAnalysisOf(db: Kysely<Database>, labSlug: string, labId: string, networkId: string, versionNumber: number): Promise<LatestAnalysis | null> {
+  const jobs = await listJobs(db, labId, { kind: "analysis", networkId, limit: 50 });
+  const job = jobs.find((j) => j.status === "succeeded" && j.version_number === versionNumber && j.result);
+  if (!job) return null;
+  return {
+    href: analysisPath(labSlug, job.id),
+    result: job.result as unknown as AnalysisResult,
+    rateMode: job.params.rateMode === "symbolic" ? "symbolic" : "numeric",
+    finishedAt: (job.finished_at ?? job.created_at).toISOString(),
+  };
 }
 
 export async function networkPageData(db: Kysely<Database>, access: LabAccess, network: NetworkRecord, versionParam: string | null): Promise<NetworkPageData> {
   const version = await requireVersion(db, network, versionParam);
   const versions = await listVersions(db, network.id);
   const state = await structureState(db, version.csv);
+  const canEdit = hasRole(access.role, "editor");
+  const latest = await latestAnalysisOf(db, access.lab.slug, access.lab.id, network.id, version.number);
   return {
-    lab: { slug: access.lab.slug, name: access.lab.name },
+    lab: { slug: access.lab.slug, name: access.lab.name, isPublic: access.lab.isPublic },
     network: networkJson(network),
     version: versionJson(version),
     latestNumber: versions[0]!.number,
     versions: versions.map((v) => versionJson(v)),
     ...structureFields(state),
-    canEdit: hasRole(access.role, "editor"),
+    odes: odesOf(version.csv),
+    canEdit,
     canDelete: hasRole(access.role, "owner"),
+    guest: access.guest,
+    verdict: state.status === "ready" ? verdictCard(state.structure, latest, { newAnalysis: canEdit ? newAnalysisPath(access.lab.slug, network.id, version.number) : null }) : null,
   };
 }
 

@@ -102,7 +102,7 @@ export function checkCsv(csv: unknown): SaveResult<{ csv: string }> {
     return { ok: false, code: "invalid_request", message: "The network is empty: give at least one reaction.", details: { problems: [{ row: 1, message: "the file is empty", expected: "a header such as `reaction,rate` and one reaction per row" }] } };
   }
   if (new TextEncoder().encode(csv).length > MAX_CSV_BYTES) {
-    return { ok: false, code: "invalid_request", message: `The network file is larger than ${MAX_CSV_LABEL}.`, details: { fields: { csv: `At most ${MAX_CSV_LABEL}.` } } };
+    return { ok: false, code: "payload_too_large", message: `The network file is larger than ${MAX_CSV_LABEL}.`, details: { fields: { csv: `At most ${MAX_CSV_LABEL}.` } } };
   }
   const nul = nulPosition(csv);
   if (nul) {
@@ -188,5 +188,7 @@ function mergeFailures(results: (SaveResult<object> | { ok: true })[]): SaveFail
   const details: SaveFailure["details"] = {};
   if (problems.length > 0) details.problems = problems;
   if (Object.keys(fields).length > 0) details.fields = fields;
-  return { ok: false, code: "invalid_request", message: failures.map((f) => f.message).join(" "), details };
+  // A body over the size limit is answered 413 whatever else is wrong with it.
+  const code = failures.some((f) => f.code === "payload_too_large") ? "payload_too_large" : "invalid_request";
+  return { ok: false, code, message: failures.map((f) => f.message).join(" "), details };
 }

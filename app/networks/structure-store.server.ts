@@ -7,10 +7,10 @@
  * `structureStatus: "pending"` meanwhile. Ready structures are also kept in memory by hash: a
  * version never changes, so neither does its structure.
  */
-import { sql, type Kysely, type Transaction } from "kysely";
+import { sql, type Kysely } from "kysely";
 import type { NetworkStructure } from "@domain/network/index";
 import { LruMap } from "~/components/render-cache";
-import type { Database, JsonObject } from "~/db/schema";
+import type { Database, DbExecutor, JsonObject } from "~/db/schema";
 import { contentHash } from "./networks.server";
 import { analyseCsv } from "./structure.server";
 
@@ -26,7 +26,7 @@ export const STALE_CLAIM_MS = 60_000;
 const ready = new LruMap<NetworkStructure>(1000);
 
 /** Records that the file's structure is wanted (nothing happens if it is already stored or requested). */
-export async function requestStructure(db: Kysely<Database> | Transaction<Database>, csv: string): Promise<void> {
+export async function requestStructure(db: DbExecutor, csv: string): Promise<void> {
   await db
     .insertInto("network_structures")
     .values({ content_hash: contentHash(csv), csv })

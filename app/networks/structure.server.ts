@@ -12,6 +12,7 @@ import {
   tryParseNetworkCsv,
 } from "@domain/network/index";
 import { LruMap } from "~/components/render-cache";
+import { massActionTerms, type SpeciesOde } from "@domain/steady-state/ode-terms";
 import { contentHash } from "./networks.server";
 
 export type FileCheck = { ok: true; network: Network } | { ok: false; problems: readonly NetworkFileProblem[] };
@@ -41,6 +42,21 @@ export function analyseCsv(csv: string): CsvAnalysis {
   const checked = checkNetworkFile(csv);
   if (!checked.ok) return checked;
   return { ok: true, structure: analyseStructure(checked.network) };
+}
+
+const odes = new LruMap<SpeciesOde[]>(1000);
+
+/**
+ * The mass-action ODEs of a stored version, from the domain's one builder (rate constants
+ * symbolic). Only writes the polynomials, no structure or elimination: cheap enough for the
+ * request, and remembered by content hash like the file check.
+ */
+export function odesOf(csv: string): SpeciesOde[] {
+  return odes.getOrCompute(contentHash(csv), () => {
+    const file = checkNetworkFile(csv);
+    if (!file.ok) throw new Error(`stored network version does not parse: ${file.problems[0]?.message}`);
+    return massActionTerms(file.network);
+  });
 }
 
 /** The few numbers the lab's list shows and filters on. */

@@ -35,6 +35,11 @@ const STATUS: Record<ApiErrorCode, number> = {
   unavailable: 503,
 };
 
+/** The HTTP status of an error code, for pages that answer a form with `data(…, { status })`. */
+export function apiStatus(code: ApiErrorCode): number {
+  return STATUS[code];
+}
+
 export function apiError(code: ApiErrorCode, message: string, details?: unknown, headers?: HeadersInit): Response {
   const body: ApiErrorBody = { error: details === undefined ? { code, message } : { code, message, details } };
   const h = new Headers(headers);

@@ -8,6 +8,7 @@ import { findLabWithRole, listLabsOf } from "~/labs/labs.server";
 import { apiError } from "./api-errors";
 import { assertCookieWriteAllowed } from "./api-origin.server";
 import { hasRole } from "./roles";
+import { notFound } from "~/shared/responses";
 
 /**
  * The one place that decides who may do what. Every loader, action and API route calls one of
@@ -18,12 +19,18 @@ import { hasRole } from "./roles";
  *
  * A lab the caller does not belong to answers exactly like a lab that does not exist, so slugs
  * cannot be probed. Site administrators get the admin lists, not other labs' contents.
+ *
+ * A public lab (the worked examples) is the one exception: every signed-in person reads it as a
+ * viewer without being a member — a guest. Guests get nothing beyond the viewer role, and
+ * `requireLabMember` keeps them out of the member list (people's addresses are for members only).
  */
 
 export interface LabAccess {
   user: CurrentUser;
-  lab: { id: string; slug: string; name: string };
+  lab: { id: string; slug: string; name: string; isPublic: boolean };
   role: LabRole;
+  /** Reading a public lab without being a member of it. */
+  guest: boolean;
 }
 
 /**
@@ -58,7 +65,6 @@ function signInRedirect(request: Request): Response {
   return redirect(`/sign-in?returnTo=${encodeURIComponent(returnTo)}`);
 }
 
-const notFound = () => new Response("Not found", { status: 404, statusText: "Not Found" });
 const forbidden = (message: string) => new Response(message, { status: 403, statusText: "Forbidden" });
 
 export async function requireUser(request: Request): Promise<CurrentUser> {
@@ -75,9 +81,10 @@ export async function requireSiteAdmin(request: Request): Promise<CurrentUser> {
 
 async function labAccess(user: CurrentUser, labSlug: string | undefined, minRole: LabRole) {
   const row = labSlug ? await findLabWithRole(db(), labSlug, user.id) : undefined;
-  if (!row || !row.role) return { outcome: "not_found" as const };
-  if (!hasRole(row.role, minRole)) return { outcome: "forbidden" as const, role: row.role };
-  const access: LabAccess = { user, lab: { id: row.id, slug: row.slug, name: row.name }, role: row.role };
+  const role: LabRole | null = row?.role ?? (row?.is_public ? "viewer" : null);
+  if (!row || !role) return { outcome: "not_found" as const };
+  if (!hasRole(role, minRole)) return { outcome: "forbidden" as const, role };
+  const access: LabAccess = { user, lab: { id: row.id, slug: row.slug, name: row.name, isPublic: row.is_public }, role, guest: !row.role };
   return { outcome: "ok" as const, access };
 }
 
@@ -126,6 +133,16 @@ export async function requireApiSiteAdmin(request: Request): Promise<CurrentUser
   return user;
 }
 
+/**
+ * For what only members see (who the other members are): a guest of a public lab is answered as
+ * if the page did not exist, like any other lab they are not in.
+ */
+export function requireLabMember(access: LabAccess, api = false): LabAccess {
+  if (!access.guest) return access;
+  if (api) throw apiError("not_found", "No such lab.");
+  throw notFound();
+}
+
 const article = (role: LabRole) => (role === "viewer" ? "a" : "an");
 
 /**
@@ -150,5 +167,5 @@ export async function requireActiveLabRole(request: Request, minRole: LabRole): 
   const lab = labs.find((l) => l.slug === preferred) ?? labs[0];
   if (!lab) throw redirect("/labs");
   if (!hasRole(lab.role, minRole)) throw forbidden(`This needs the ${minRole} role; you are ${article(lab.role)} ${lab.role} in ${lab.name}.`);
-  return { user, lab: { id: lab.id, slug: lab.slug, name: lab.name }, role: lab.role };
+  return { user, lab: { id: lab.id, slug: lab.slug, name: lab.name, isPublic: lab.isPublic }, role: lab.role, guest: false };
 }

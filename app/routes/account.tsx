@@ -3,11 +3,12 @@ import type { Route } from "./+types/account";
 import { db } from "~/db.server";
 import { listApiTokens } from "~/account/api-tokens.server";
 import { parseAccountIntent, runAccountIntent } from "~/account/account-actions.server";
-import { listAccountEvents } from "~/labs/audit.server";
+import { listAccountEvents } from "~/shared/audit.server";
 import { listLabsOf } from "~/labs/labs.server";
-import type { ActionResult } from "~/labs/form.server";
-import { formatDate, FormMessage, inputClass, IntentButton, RoleBadge } from "~/labs/ui";
+import type { ActionResult } from "~/shared/form";
+import { FormMessage, inputClass, IntentButton, RoleBadge } from "~/labs/ui";
 import { requireUser } from "~/permissions/permissions.server";
+import { formatDateTime } from "~/shared/dates";
 
 export const meta: Route.MetaFunction = () => [{ title: "Your account · Stillpoint" }];
 
@@ -64,29 +65,31 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
       </section>
       <section className="space-y-3">
         <h2 className="font-semibold">Personal API tokens</h2>
-        <table className="w-full text-left text-sm" data-testid="tokens">
-          <thead className="border-b border-line text-xs uppercase tracking-wide text-faint">
-            <tr><th className="py-2">Name</th><th>Created</th><th>Expires</th><th>Last used</th><th /></tr>
-          </thead>
-          <tbody>
-            {tokens.length === 0 && (
-              <tr><td colSpan={5} className="py-2 text-muted">No tokens yet. Scripts use one to call the JSON API as you.</td></tr>
-            )}
-            {tokens.map((t) => (
-              <tr key={t.id} className="border-b border-line">
-                <td className="py-2">{t.name}</td>
-                <td className="text-muted">{formatDate(t.createdAt)}</td>
-                <td className="text-muted">{t.expiresAt ? formatDate(t.expiresAt) : "never"}</td>
-                <td className="text-muted">{t.lastUsedAt ? formatDate(t.lastUsedAt) : "never"}</td>
-                <td className="text-right">
-                  {t.revokedAt ? <span className="text-xs text-faint">revoked</span> : (
-                    <IntentButton intent="revoke-token" fields={{ tokenId: t.id }} tone="danger">Revoke</IntentButton>
-                  )}
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
+        <div className="relative overflow-x-auto">
+          <table className="w-full text-left text-sm" data-testid="tokens">
+            <thead className="border-b border-line text-xs uppercase tracking-wide text-faint">
+              <tr><th className="py-2">Name</th><th>Created</th><th>Expires</th><th>Last used</th><th /></tr>
+            </thead>
+            <tbody>
+              {tokens.length === 0 && (
+                <tr><td colSpan={5} className="py-2 text-muted">No tokens yet. Scripts use one to call the JSON API as you.</td></tr>
+              )}
+              {tokens.map((t) => (
+                <tr key={t.id} className="border-b border-line">
+                  <td className="py-2">{t.name}</td>
+                  <td className="text-muted">{formatDateTime(t.createdAt)}</td>
+                  <td className="text-muted">{t.expiresAt ? formatDateTime(t.expiresAt) : "never"}</td>
+                  <td className="text-muted">{t.lastUsedAt ? formatDateTime(t.lastUsedAt) : "never"}</td>
+                  <td className="text-right">
+                    {t.revokedAt ? <span className="text-xs text-faint">revoked</span> : (
+                      <IntentButton intent="revoke-token" fields={{ tokenId: t.id }} tone="danger">Revoke</IntentButton>
+                    )}
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
         <Form method="post" className="flex flex-wrap items-end gap-3">
           <input type="hidden" name="intent" value="create-token" />
           <label className="space-y-1 text-sm font-medium">Name<input name="name" required maxLength={100} placeholder="e.g. batch upload script" className={inputClass} /></label>
@@ -100,7 +103,7 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
       <section>
         <h2 className="font-semibold">Recent account activity</h2>
         <ul className="mt-2 space-y-1 text-sm text-muted">
-          {events.map((e) => <li key={e.id}><span className="font-mono text-xs">{e.kind}</span> · {formatDate(e.created_at)}</li>)}
+          {events.map((e) => <li key={e.id}><span className="font-mono text-xs">{e.kind}</span> · {formatDateTime(e.created_at)}</li>)}
         </ul>
       </section>
       <section className="flex flex-wrap gap-3">

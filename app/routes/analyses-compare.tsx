@@ -6,9 +6,10 @@ import { findJob, jobJson } from "~/analyses/repository.server";
 import type { AnalysisParams } from "~/analyses/params";
 import { presentResult } from "~/analyses/present";
 import type { AnalysisResult } from "~/analyses/result-types";
-import { asAnalysesDb } from "~/analyses/schema";
 import { Tex } from "~/analyses/ui/tex";
 import { requireLabRole } from "~/permissions/permissions.server";
+import { notFound } from "~/shared/responses";
+import { formatDateTime } from "~/shared/dates";
 
 export const meta: Route.MetaFunction = () => [{ title: "Compare analyses · Stillpoint" }];
 
@@ -16,9 +17,9 @@ export const meta: Route.MetaFunction = () => [{ title: "Compare analyses · Sti
 export async function loader({ request, params }: Route.LoaderArgs) {
   const access = await requireLabRole(request, params.labSlug, "viewer");
   const url = new URL(request.url);
-  const adb = asAnalysesDb(db());
+  const adb = db();
   const [a, b] = await Promise.all([findJob(adb, access.lab.id, url.searchParams.get("a") ?? undefined), findJob(adb, access.lab.id, url.searchParams.get("b") ?? undefined)]);
-  if (!a || !b || a.kind !== "analysis" || b.kind !== "analysis") throw new Response("Not found", { status: 404 });
+  if (!a || !b || a.kind !== "analysis" || b.kind !== "analysis") throw notFound();
   if (a.network_id !== b.network_id) throw new Response("Only two analyses of the same network can be compared.", { status: 400 });
   const side = (j: typeof a) => {
     const result = j.status === "succeeded" ? (j.result as unknown as AnalysisResult) : null;
@@ -35,7 +36,7 @@ function Column({ s, labSlug }: { s: Side; labSlug: string }) {
     <div className="min-w-0 space-y-3 rounded-card border border-line bg-surface p-4" data-testid="compare-column">
       <p className="text-sm">
         <Link to={analysisPath(labSlug, s.job.id)} className="font-medium text-accent-strong hover:underline">
-          {s.job.createdAt.slice(0, 16).replace("T", " ")}
+          {formatDateTime(s.job.createdAt)}
         </Link>{" "}
         · version {s.job.network.version} · engine {s.job.engineVersion}
       </p>
@@ -75,7 +76,7 @@ export default function Compare({ loaderData: d }: Route.ComponentProps) {
   return (
     <div className="space-y-4">
       <h1 className="text-2xl font-semibold tracking-tight">Compare two analyses of {d.a.job.network.name}</h1>
-      <div className="grid gap-4 md:grid-cols-2">
+      <div className="grid grid-cols-1 gap-4 md:grid-cols-2">
         <Column s={d.a} labSlug={d.lab.slug} />
         <Column s={d.b} labSlug={d.lab.slug} />
       </div>

@@ -6,7 +6,6 @@ import { suggestedOrder } from "~/analyses/suggested-order";
 import { fileRateValues, rateSymbols } from "~/analyses/params";
 import { analysisPath } from "~/analyses/paths";
 import { labLimits } from "~/analyses/repository.server";
-import { asAnalysesDb } from "~/analyses/schema";
 import { networkOf, startAnalysis } from "~/analyses/service.server";
 import { OrderEditor } from "~/analyses/ui/order-editor";
 import { Problems } from "~/analyses/ui/problems";
@@ -15,6 +14,7 @@ import { structureState } from "~/networks/structure-store.server";
 import { StructurePending } from "~/networks/ui/structure-pending";
 import { networkPath } from "~/networks/paths";
 import { requireLabRole } from "~/permissions/permissions.server";
+import { formatRational } from "@domain/algebra/rational";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `New analysis of ${data?.network.name ?? "a network"} · Stillpoint` }];
 
@@ -35,9 +35,11 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     species: [...parsed.species],
     rates: rateSymbols(parsed),
     fileValues: fileRateValues(parsed),
+    // The version's stored initial values (`# initial:`) fill the fields; the person can change or clear them.
+    storedInitial: Object.fromEntries((parsed.initial ?? []).map((i) => [i.name, formatRational(i.value)])),
     suggested: suggestion.order,
     reason: suggestion.reason,
-    limits: await labLimits(asAnalysesDb(db()), access.lab.id),
+    limits: await labLimits(db(), access.lab.id),
   };
 }
 
@@ -45,7 +47,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const access = await requireLabRole(request, params.labSlug, "editor");
   const network = await requireNetwork(db(), access, params.networkId);
   const version = await requireVersion(db(), network, new URL(request.url).searchParams.get("v"));
-  const outcome = await startAnalysis(asAnalysesDb(db()), access, version, analysisInputFromForm(await request.formData()));
+  const outcome = await startAnalysis(db(), access, version, analysisInputFromForm(await request.formData()));
   if (!outcome.ok) return { problems: outcome.problems };
   throw redirect(analysisPath(access.lab.slug, outcome.job.id));
 }
@@ -75,7 +77,7 @@ export default function NewAnalysis({ loaderData: d, actionData }: Route.Compone
         // The form suggests an order from the conservation laws, which the worker is still computing.
         <StructurePending status={d.structureStatus === "failed" ? "failed" : "pending"} problem={d.structureProblem} what="The structure this form needs" />
       ) : (
-        <Form method="post" className="grid gap-8 lg:grid-cols-2">
+        <Form method="post" className="grid grid-cols-1 gap-8 lg:grid-cols-2">
           <fieldset className="space-y-3">
             <legend className="mb-2 font-semibold">Elimination order</legend>
             <OrderEditor suggested={d.suggested} reason={d.reason} />
@@ -116,11 +118,14 @@ export default function NewAnalysis({ loaderData: d, actionData }: Route.Compone
               {d.species.map((s) => (
                 <label key={s} className="space-y-0.5 text-sm">
                   <span className="block font-mono">{s}</span>
-                  <input className={`${input} w-full`} name={`initial.${s}`} placeholder="0" aria-label={`Initial concentration of ${s}`} />
+                  <input className={`${input} w-full`} name={`initial.${s}`} placeholder="0" defaultValue={d.storedInitial[s] ?? ""} aria-label={`Initial concentration of ${s}`} />
                 </label>
               ))}
             </div>
-            <p className="text-xs text-muted">Leave all empty for a symbolic analysis only. Unlisted species start at 0; the totals of the conservation laws follow.</p>
+            <p className="text-xs text-muted">
+              {Object.keys(d.storedInitial).length > 0 ? "Filled in from the values stored with this version; change them here for this analysis only. " : ""}
+              Leave all empty for a symbolic analysis only. Unlisted species start at 0; the totals of the conservation laws follow.
+            </p>
           </fieldset>
           <fieldset className="space-y-3">
             <legend className="mb-2 font-semibold">Limits</legend>

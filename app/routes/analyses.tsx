@@ -4,18 +4,18 @@ import { db } from "~/db.server";
 import { analysisPath } from "~/analyses/paths";
 import { jobJson, labLimits, listJobs, setLabLimits } from "~/analyses/repository.server";
 import { SITE_LIMITS } from "~/analyses/params";
-import { asAnalysesDb } from "~/analyses/schema";
 import { recordAnalysisAudit } from "~/analyses/service.server";
 import { StatusBadge } from "~/analyses/ui/status";
 import { networkPath } from "~/networks/paths";
 import { assertLabRole, requireLabRole } from "~/permissions/permissions.server";
 import { hasRole } from "~/permissions/roles";
+import { formatDateTime } from "~/shared/dates";
 
 export const meta: Route.MetaFunction = () => [{ title: "Analyses · Stillpoint" }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const access = await requireLabRole(request, params.labSlug, "viewer");
-  const adb = asAnalysesDb(db());
+  const adb = db();
   const jobs = await listJobs(adb, access.lab.id, { kind: "analysis" });
   return { lab: access.lab, analyses: jobs.map((j) => jobJson(j)), isOwner: hasRole(access.role, "owner"), limits: await labLimits(adb, access.lab.id) };
 }
@@ -32,8 +32,8 @@ export async function action({ request, params }: Route.ActionArgs) {
   if (!Number.isInteger(maxTimeLimitSeconds) || maxTimeLimitSeconds < 1 || maxTimeLimitSeconds > siteMax) problems.push({ field: "maxTimeLimitSeconds", message: `expected 1 to ${siteMax} seconds (the site's maximum)` });
   if (!Number.isInteger(maxBasisSize) || maxBasisSize < 1 || maxBasisSize > 1_000_000) problems.push({ field: "maxBasisSize", message: "expected 1 to 1000000" });
   if (problems.length > 0) return data({ problems }, { status: 400 });
-  await setLabLimits(asAnalysesDb(db()), access.lab.id, { maxTimeLimitSeconds, maxBasisSize });
-  await recordAnalysisAudit(asAnalysesDb(db()), access.lab.id, access.user.id, "analysis.limits_changed", { maxTimeLimitSeconds, maxBasisSize });
+  await setLabLimits(db(), access.lab.id, { maxTimeLimitSeconds, maxBasisSize });
+  await recordAnalysisAudit(db(), access.lab.id, access.user.id, "analysis.limits_changed", { maxTimeLimitSeconds, maxBasisSize });
   return { saved: true };
 }
 
@@ -74,7 +74,7 @@ export default function Analyses({ loaderData: d, actionData }: Route.ComponentP
                   <td className="px-4 py-2 text-muted">
                     {p.rateMode} rates{p.initial ? ", numeric steady states" : ""}
                   </td>
-                  <td className="whitespace-nowrap px-4 py-2 text-muted">{a.createdAt.slice(0, 16).replace("T", " ")}</td>
+                  <td className="whitespace-nowrap px-4 py-2 text-muted">{formatDateTime(a.createdAt)}</td>
                   <td className="px-4 py-2 text-muted">{a.startedBy ?? "former member"}</td>
                 </tr>
               );

@@ -1,11 +1,9 @@
 import { Link, data, redirect } from "react-router";
 import type { Route } from "./+types/analysis";
 import { db } from "~/db.server";
-import { formObject } from "~/analyses/form.server";
 import { analysisPageData } from "~/analyses/page.server";
 import { analysesPath, analysisPath, newAnalysisPath, sharePath } from "~/analyses/paths";
 import { findJob, listJobs } from "~/analyses/repository.server";
-import { asAnalysesDb } from "~/analyses/schema";
 import { cancelJob, recordAnalysisAudit, startFollowUp } from "~/analyses/service.server";
 import { createShareLink, listShareLinks, revokeShareLink, SHARE_DAYS } from "~/analyses/share.server";
 import { AnalysisBody } from "~/analyses/ui/analysis-body";
@@ -16,14 +14,16 @@ import { getEnv } from "~/env.server";
 import { networkPath } from "~/networks/paths";
 import { assertLabRole, requireLabRole } from "~/permissions/permissions.server";
 import { hasRole } from "~/permissions/roles";
+import { isUuid } from "~/shared/uuid";
+import { notFound } from "~/shared/responses";
+import { formObject } from "~/shared/form";
+import { formatDateTime } from "~/shared/dates";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `Analysis of ${data?.page.job.network.name ?? "a network"} · Stillpoint` }];
 
-const notFound = () => new Response("Not found", { status: 404, statusText: "Not Found" });
-
 export async function loader({ request, params }: Route.LoaderArgs) {
   const access = await requireLabRole(request, params.labSlug, "viewer");
-  const adb = asAnalysesDb(db());
+  const adb = db();
   const job = await findJob(adb, access.lab.id, params.analysisId);
   if (!job) throw notFound();
   if (job.parent_id) throw redirect(analysisPath(access.lab.slug, job.parent_id));
@@ -35,13 +35,13 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     canEdit: hasRole(access.role, "editor"),
     isOwner,
     shareLinks: isOwner ? await listShareLinks(adb, job.id) : [],
-    compareWith: siblings.map((s) => ({ id: s.id, label: `${s.created_at.toISOString().slice(0, 16).replace("T", " ")} · v${s.version_number} · ${s.starter_name ?? "?"}` })),
+    compareWith: siblings.map((s) => ({ id: s.id, label: `${formatDateTime(s.created_at)} · v${s.version_number} · ${s.starter_name ?? "?"}` })),
   };
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
   const access = await requireLabRole(request, params.labSlug, "viewer");
-  const adb = asAnalysesDb(db());
+  const adb = db();
   const job = await findJob(adb, access.lab.id, params.analysisId);
   if (!job || job.parent_id) throw notFound();
   const form = await request.formData();
@@ -78,7 +78,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     case "share-revoke": {
       assertLabRole(access, "owner");
       const linkId = String(form.get("linkId") ?? "");
-      if (!/^[0-9a-f-]{36}$/i.test(linkId) || !(await revokeShareLink(adb, job.id, linkId))) throw notFound();
+      if (!isUuid(linkId) || !(await revokeShareLink(adb, job.id, linkId))) throw notFound();
       await recordAnalysisAudit(adb, access.lab.id, access.user.id, "analysis.share_link_revoked", { analysisId: job.id, linkId });
       return { revoked: linkId };
     }
@@ -106,7 +106,7 @@ export default function AnalysisPage({ loaderData: d }: Route.ComponentProps) {
         </p>
         <h1 className="text-2xl font-semibold tracking-tight">Steady-state analysis</h1>
         <p className="text-sm text-muted">
-          Started by {p.job.startedBy ?? "a former member"} on {p.job.createdAt.slice(0, 16).replace("T", " ")} UTC
+          Started by {p.job.startedBy ?? "a former member"} on {formatDateTime(p.job.createdAt)}
           {d.canEdit && (
             <>
               {" "}

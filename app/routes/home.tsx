@@ -1,5 +1,6 @@
 import { Link } from "react-router";
 import type { Route } from "./+types/home";
+import { EXAMPLE_LAB } from "~/labs/example-lab";
 
 export const meta: Route.MetaFunction = () => [{ title: "Stillpoint — steady states of reaction networks" }];
 
@@ -37,7 +38,7 @@ const COMPUTES = [
 export default function Home() {
   return (
     <div className="space-y-16">
-      <section className="grid gap-10 md:grid-cols-[1.15fr_1fr] md:items-center">
+      <section className="grid grid-cols-1 gap-10 md:grid-cols-[1.15fr_1fr] md:items-center">
         <div>
           <p className="text-sm font-semibold uppercase tracking-wide text-accent">For reaction-network modellers</p>
           <h1 className="mt-3 text-3xl font-semibold tracking-tight text-ink">
@@ -53,8 +54,9 @@ export default function Home() {
             <Link to="/sign-in" className="btn-primary">
               Sign in with your e-mail
             </Link>
-            <Link to="/networks" className="btn-quiet">
-              See the demo networks
+            {/* Signed out, this asks for a sign-in first and then opens the public examples. */}
+            <Link to={`/labs/${EXAMPLE_LAB.slug}/networks`} className="btn-quiet">
+              See the worked examples
             </Link>
           </div>
         </div>
@@ -84,7 +86,7 @@ export default function Home() {
         </ul>
       </section>
 
-      <section aria-labelledby="how" className="grid gap-6 md:grid-cols-3">
+      <section aria-labelledby="how" className="grid grid-cols-1 gap-6 md:grid-cols-3">
         <h2 id="how" className="sr-only">
           How it works
         </h2>

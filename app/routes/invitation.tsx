@@ -5,6 +5,7 @@ import { commitSession, getSession } from "~/auth/session.server";
 import { acceptInvitation, findInvitationByToken, InvitationError } from "~/labs/invitations.server";
 import { FormMessage, RoleBadge } from "~/labs/ui";
 import { getOptionalUser, requireUser } from "~/permissions/permissions.server";
+import { notFound } from "~/shared/responses";
 
 export const meta: Route.MetaFunction = () => [{ title: "Invitation · Stillpoint" }];
 
@@ -15,7 +16,7 @@ export const meta: Route.MetaFunction = () => [{ title: "Invitation · Stillpoin
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await getOptionalUser(request);
   const invitation = await findInvitationByToken(db(), params.token);
-  if (!invitation) throw new Response("This invitation link is not valid.", { status: 404 });
+  if (!invitation) throw notFound("This invitation link is not valid.");
   const path = new URL(request.url).pathname;
   return {
     invitation: { labName: invitation.labName, role: invitation.role, email: invitation.email, status: invitation.status },

@@ -1,9 +1,9 @@
 import { Link } from "react-router";
 import type { Route } from "./+types/lab-audit";
 import { db } from "~/db.server";
-import { listLabAudit } from "~/labs/audit.server";
-import { formatDate } from "~/labs/ui";
+import { listLabAudit } from "~/shared/audit.server";
 import { requireLabRole } from "~/permissions/permissions.server";
+import { formatDateTime } from "~/shared/dates";
 
 export const meta: Route.MetaFunction = () => [{ title: "Audit log · Stillpoint" }];
 
@@ -21,21 +21,23 @@ export default function Audit({ loaderData }: Route.ComponentProps) {
         <Link to={`/labs/${lab.slug}`} className="text-sm text-muted hover:text-ink">← {lab.name}</Link>
         <h1 className="mt-1 text-2xl font-semibold tracking-tight">Audit log</h1>
       </header>
-      <table className="w-full text-left text-sm" data-testid="audit">
-        <thead className="border-b border-line text-xs uppercase tracking-wide text-faint">
-          <tr><th className="py-2">When</th><th>Who</th><th>What</th><th>Details</th></tr>
-        </thead>
-        <tbody>
-          {events.map((e) => (
-            <tr key={e.id} className="border-b border-line align-top">
-              <td className="py-2 whitespace-nowrap text-muted">{formatDate(e.createdAt)}</td>
-              <td>{e.actorName ?? "—"}</td>
-              <td className="font-mono text-xs">{e.kind}</td>
-              <td className="font-mono text-xs text-muted">{JSON.stringify(e.details)}</td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <div className="relative overflow-x-auto">
+        <table className="w-full text-left text-sm" data-testid="audit">
+          <thead className="border-b border-line text-xs uppercase tracking-wide text-faint">
+            <tr><th className="py-2">When</th><th>Who</th><th>What</th><th>Details</th></tr>
+          </thead>
+          <tbody>
+            {events.map((e) => (
+              <tr key={e.id} className="border-b border-line align-top">
+                <td className="py-2 whitespace-nowrap text-muted">{formatDateTime(e.createdAt)}</td>
+                <td>{e.actorName ?? "—"}</td>
+                <td className="font-mono text-xs">{e.kind}</td>
+                <td className="font-mono text-xs text-muted">{JSON.stringify(e.details)}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
     </div>
   );
 }

@@ -6,6 +6,7 @@ import { requireNetwork, requireVersion } from "~/networks/pages.server";
 import { networkPath } from "~/networks/paths";
 import { saveVersion } from "~/networks/save.server";
 import { NetworkEditor } from "~/networks/ui/network-editor";
+import { apiStatus } from "~/permissions/api-errors";
 import { requireLabRole } from "~/permissions/permissions.server";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `Edit ${data?.network.name ?? "network"} · Stillpoint` }];
@@ -22,7 +23,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const network = await requireNetwork(db(), access, params.networkId);
   const form = await request.formData();
   const result = await saveVersion(db(), network, { authorId: access.user.id, csv: form.get("csv"), changeNote: form.get("changeNote") });
-  if (!result.ok) return data({ error: { code: result.code, message: result.message, details: result.details } }, { status: result.code === "conflict" ? 409 : 400 });
+  if (!result.ok) return data({ error: { code: result.code, message: result.message, details: result.details } }, { status: apiStatus(result.code) });
   throw redirect(`${networkPath(access.lab.slug, network.id)}/versions?from=${result.version.number - 1}&to=${result.version.number}`);
 }
 
@@ -41,7 +42,7 @@ export default function EditNetworkPage({ loaderData, actionData }: Route.Compon
         <h1 className="text-2xl font-semibold tracking-tight">New version</h1>
         <p className="mt-1 text-sm text-muted">Starting from version {version.number}. Saving adds version {version.number + 1}; earlier versions never change.</p>
       </header>
-      <NetworkEditor mode="version" initialRows={rows} initialConstants={loaded.constants} failure={actionData} />
+      <NetworkEditor mode="version" initialRows={rows} initialConstants={loaded.constants} initialValues={loaded.initial} failure={actionData} />
     </div>
   );
 }

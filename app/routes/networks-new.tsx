@@ -6,6 +6,7 @@ import { emptyRow } from "~/networks/grid";
 import { networkPath } from "~/networks/paths";
 import { createNetwork } from "~/networks/save.server";
 import { NetworkEditor } from "~/networks/ui/network-editor";
+import { apiStatus } from "~/permissions/api-errors";
 import { requireLabRole } from "~/permissions/permissions.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "New network · Stillpoint" }];
@@ -27,7 +28,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     csv: form.get("csv"),
     changeNote: form.get("changeNote"),
   });
-  if (!result.ok) return data({ error: { code: result.code, message: result.message, details: result.details } }, { status: 400 });
+  if (!result.ok) return data({ error: { code: result.code, message: result.message, details: result.details } }, { status: apiStatus(result.code) });
   throw redirect(networkPath(access.lab.slug, result.network.id));
 }
 

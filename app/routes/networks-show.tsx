@@ -8,22 +8,11 @@ import { analysesPath, newAnalysisPath } from "~/analyses/paths";
 import { NetworkHeader } from "~/networks/ui/network-header";
 import { NetworkSettings } from "~/networks/ui/network-settings";
 import { StructurePending } from "~/networks/ui/structure-pending";
-import { StructureView } from "~/networks/ui/structure-view";
+import { AtAGlance, EVIDENCE, OdesSection, StructureView } from "~/networks/ui/structure-view";
+import { VerdictCardView } from "~/networks/ui/verdict-card";
+import { GuestNotice } from "~/labs/guest-notice";
 import { VersionList } from "~/networks/ui/version-list";
 import { requireLabRole } from "~/permissions/permissions.server";
-
-const SECTIONS = [
-  ["reactions", "Reactions"],
-  ["species", "Species"],
-  ["stoichiometric-matrix", "Stoichiometric matrix"],
-  ["complexes", "Complexes"],
-  ["graph", "Complex graph"],
-  ["rank", "Rank and deficiency"],
-  ["deficiency-zero", "Deficiency zero theorem"],
-  ["deficiency-one", "Deficiency one theorem"],
-  ["conservation", "Conservation laws"],
-  ["odes", "ODEs"],
-] as const;
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.network.name ?? "Network"} · Stillpoint` }];
 
@@ -45,35 +34,73 @@ export default function NetworkPage({ loaderData, actionData }: Route.ComponentP
   return (
     <div className="space-y-8">
       <NetworkHeader data={d} result={actionData} />
-      <p className="flex flex-wrap gap-4 text-sm">
-        {d.canEdit && (
-          <Link to={newAnalysisPath(d.lab.slug, d.network.id, d.version.number)} className="rounded-md bg-accent px-3 py-1.5 font-medium text-accent-ink hover:bg-accent-strong" data-testid="start-analysis">
-            Start analysis of version {d.version.number}
+      {!d.guest && (
+        <p className="flex flex-wrap gap-4 text-sm">
+          {d.canEdit && (
+            <Link
+              to={newAnalysisPath(d.lab.slug, d.network.id, d.version.number)}
+              className="rounded-md bg-accent px-3 py-1.5 font-medium text-accent-ink hover:bg-accent-strong"
+              data-testid="start-analysis"
+            >
+              Start analysis of version {d.version.number}
+            </Link>
+          )}
+          <Link to={analysesPath(d.lab.slug)} className="self-center text-accent-strong hover:underline">
+            Analyses of this lab
           </Link>
-        )}
-        <Link to={analysesPath(d.lab.slug)} className="self-center text-accent-strong hover:underline">
-          Analyses of this lab
-        </Link>
-      </p>
-      <VersionList base={base} versions={d.versions} current={d.version.number} latest={d.latestNumber} canEdit={d.canEdit} />
-      <nav aria-label="On this page" className="flex flex-wrap gap-x-4 gap-y-1 text-sm">
-        {SECTIONS.map(([id, label]) => (
-          <a key={id} href={`#${id}`} className="text-accent-strong hover:underline">
-            {label}
-          </a>
-        ))}
-      </nav>
-      {d.structure ? (
-        <StructureView structure={d.structure} name={d.network.name} />
-      ) : (
-        <StructurePending status={d.structureStatus === "failed" ? "failed" : "pending"} problem={d.structureProblem} />
-      )}
-      {d.canEdit && <NetworkSettings network={d.network} canDelete={d.canDelete} result={actionData} />}
-      {!d.canEdit && (
-        <p className="text-sm text-muted">
-          You can read and download this network; editors of <Link to={`/labs/${d.lab.slug}`}>{d.lab.name}</Link> can change it.
         </p>
       )}
+      {d.guest && <GuestNotice slug={d.lab.slug} />}
+      {d.verdict ? (
+        <VerdictCardView card={d.verdict} />
+      ) : (
+        // Every line of the card and all evidence but the rate equations rest on the structure the worker is computing.
+        <StructurePending status={d.structureStatus === "failed" ? "failed" : "pending"} problem={d.structureProblem} />
+      )}
+      <div className="grid gap-8 lg:grid-cols-[14rem_minmax(0,1fr)]">
+        <aside className="space-y-5 lg:sticky lg:top-4 lg:self-start">
+          {d.structure && (
+            <div>
+              <h2 className="mb-1 text-xs font-semibold uppercase tracking-wide text-faint">At a glance</h2>
+              <AtAGlance structure={d.structure} />
+            </div>
+          )}
+          <nav aria-label="Evidence">
+            <h2 className="mb-1 text-xs font-semibold uppercase tracking-wide text-faint">Evidence</h2>
+            <ol className="flex flex-wrap gap-x-4 gap-y-1 text-sm lg:block lg:space-y-1">
+              {EVIDENCE.filter(([id]) => d.structure || id === "odes").map(([id, label]) => (
+                <li key={id}>
+                  <a href={`#${id}`} className="text-accent-strong hover:underline">
+                    {label}
+                  </a>
+                </li>
+              ))}
+              <li>
+                <a href="#versions-title" className="text-accent-strong hover:underline">
+                  Versions
+                </a>
+              </li>
+            </ol>
+          </nav>
+        </aside>
+        <div className="min-w-0 space-y-8">
+          {d.structure ? <StructureView structure={d.structure} odes={d.odes} name={d.network.name} /> : <OdesSection odes={d.odes} />}
+          <VersionList
+            base={base}
+            versions={d.versions}
+            current={d.version.number}
+            latest={d.latestNumber}
+            canEdit={d.canEdit}
+            unknownAuthor={d.lab.isPublic ? "worked example" : "former member"}
+          />
+          {d.canEdit && <NetworkSettings network={d.network} canDelete={d.canDelete} result={actionData} />}
+          {!d.canEdit && !d.guest && (
+            <p className="text-sm text-muted">
+              You can read and download this network; editors of <Link to={`/labs/${d.lab.slug}`}>{d.lab.name}</Link> can change it.
+            </p>
+          )}
+        </div>
+      </div>
     </div>
   );
 }

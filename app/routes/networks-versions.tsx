@@ -7,6 +7,7 @@ import { networkPath } from "~/networks/paths";
 import { DiffView } from "~/networks/ui/diff-view";
 import { StructurePending } from "~/networks/ui/structure-pending";
 import { requireLabRole } from "~/permissions/permissions.server";
+import { formatDateTime } from "~/shared/dates";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `Versions of ${data?.network.name ?? "network"} · Stillpoint` }];
 
@@ -60,32 +61,34 @@ export default function VersionsPage({ loaderData }: Route.ComponentProps) {
       {comparison.diff ? <DiffView diff={comparison.diff} /> : <StructurePending status="pending" what="The comparison" />}
       <section className="space-y-2">
         <h2 className="text-lg font-semibold">All versions</h2>
-        <table className="w-full text-sm">
-          <thead className="border-b border-line text-left text-xs uppercase tracking-wide text-muted">
-            <tr>
-              <th className="py-1.5 pr-4">Version</th>
-              <th className="py-1.5 pr-4">Saved</th>
-              <th className="py-1.5 pr-4">Author</th>
-              <th className="py-1.5 pr-4">Change note</th>
-              <th className="py-1.5 pr-4">Content hash (SHA-256)</th>
-            </tr>
-          </thead>
-          <tbody>
-            {versions.map((v) => (
-              <tr key={v.number} className="border-b border-line">
-                <td className="py-1.5 pr-4">
-                  <Link to={`${base}?v=${v.number}`} className="text-accent-strong hover:underline">
-                    v{v.number}
-                  </Link>
-                </td>
-                <td className="py-1.5 pr-4 whitespace-nowrap">{v.createdAt.slice(0, 16).replace("T", " ")} UTC</td>
-                <td className="py-1.5 pr-4">{v.author ?? "former member"}</td>
-                <td className="py-1.5 pr-4">{v.changeNote}</td>
-                <td className="py-1.5 pr-4 font-mono text-xs text-muted">{v.contentHash.slice(0, 16)}…</td>
+        <div className="relative overflow-x-auto">
+          <table className="w-full text-sm">
+            <thead className="border-b border-line text-left text-xs uppercase tracking-wide text-muted">
+              <tr>
+                <th className="py-1.5 pr-4">Version</th>
+                <th className="py-1.5 pr-4">Saved</th>
+                <th className="py-1.5 pr-4">Author</th>
+                <th className="py-1.5 pr-4">Change note</th>
+                <th className="py-1.5 pr-4">Content hash (SHA-256)</th>
               </tr>
-            ))}
-          </tbody>
-        </table>
+            </thead>
+            <tbody>
+              {versions.map((v) => (
+                <tr key={v.number} className="border-b border-line">
+                  <td className="py-1.5 pr-4">
+                    <Link to={`${base}?v=${v.number}`} className="text-accent-strong hover:underline">
+                      v{v.number}
+                    </Link>
+                  </td>
+                  <td className="py-1.5 pr-4 whitespace-nowrap">{formatDateTime(v.createdAt)}</td>
+                  <td className="py-1.5 pr-4">{v.author ?? "former member"}</td>
+                  <td className="py-1.5 pr-4">{v.changeNote}</td>
+                  <td className="py-1.5 pr-4 font-mono text-xs text-muted">{v.contentHash.slice(0, 16)}…</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
       </section>
     </div>
   );

@@ -5,6 +5,7 @@ import { networkTableRows } from "~/networks/pages.server";
 import { NetworkTable } from "~/networks/ui/network-table";
 import { requireLabRole } from "~/permissions/permissions.server";
 import { hasRole } from "~/permissions/roles";
+import { GuestNotice } from "~/labs/guest-notice";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `Networks · ${data?.lab.name ?? "Lab"} · Stillpoint` }];
 
@@ -12,11 +13,11 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const access = await requireLabRole(request, params.labSlug, "viewer");
   const includeArchived = new URL(request.url).searchParams.get("archived") === "1";
   const rows = await networkTableRows(db(), access, includeArchived);
-  return { lab: access.lab, canEdit: hasRole(access.role, "editor"), includeArchived, rows };
+  return { lab: access.lab, guest: access.guest, canEdit: hasRole(access.role, "editor"), includeArchived, rows };
 }
 
 export default function NetworksPage({ loaderData }: Route.ComponentProps) {
-  const { lab, canEdit, includeArchived, rows } = loaderData;
+  const { lab, guest, canEdit, includeArchived, rows } = loaderData;
   return (
     <div className="space-y-6">
       <header className="flex flex-wrap items-end justify-between gap-4">
@@ -42,6 +43,7 @@ export default function NetworksPage({ loaderData }: Route.ComponentProps) {
           )}
         </div>
       </header>
+      {guest && <GuestNotice slug={lab.slug} />}
       {rows.length === 0 ? (
         <p className="card text-sm text-muted">
           No networks yet.{canEdit ? " Start one with “New network”: upload a CSV file or type the reactions." : " Editors of the lab can add them."}

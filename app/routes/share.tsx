@@ -1,19 +1,19 @@
 import type { Route } from "./+types/share";
 import { db } from "~/db.server";
 import { analysisPageData } from "~/analyses/page.server";
-import { asAnalysesDb } from "~/analyses/schema";
 import { findSharedAnalysis } from "~/analyses/share.server";
 import { AnalysisBody } from "~/analyses/ui/analysis-body";
 import { isUnfinished } from "~/analyses/ui/status";
 import { usePolling } from "~/analyses/ui/use-polling";
+import { notFound } from "~/shared/responses";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `Shared analysis of ${data?.page.job.network.name ?? "a network"} · Stillpoint` }, { name: "robots", content: "noindex" }];
 
 /** /share/:token — read-only, no sign-in; an unknown, expired or revoked token is a plain 404. */
 export async function loader({ params }: Route.LoaderArgs) {
-  const adb = asAnalysesDb(db());
+  const adb = db();
   const job = await findSharedAnalysis(adb, params.token);
-  if (!job || job.parent_id) throw new Response("This share link does not exist, has expired or was revoked.", { status: 404, statusText: "Not Found" });
+  if (!job || job.parent_id) throw notFound("This share link does not exist, has expired or was revoked.");
   return { page: await analysisPageData(adb, job, { sharedView: true }), token: params.token };
 }
 

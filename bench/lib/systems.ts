@@ -158,6 +158,30 @@ export function phosphorylationTwoSiteSymbolic(): PolySystem {
   return phosphorylationIdeal(TWO_SITE_SPECIES, twoSiteReactions(rates), totals, [...rates, ...Object.values(totals)]);
 }
 
+/**
+ * The n-site distributive cycle (Wang and Sontag 2008) with a few constants symbolic: the
+ * modeller's everyday block-order case. Rates k1..k(6n) in the order of the reactions (kinase
+ * steps S0→S1…, then phosphatase steps Sn→Sn-1…, each binding, unbinding, catalysis); the
+ * constants named in `symbolic` (e.g. ["k1", "k4"]) and, with `symbolicTotals`, Etot, Ftot, Stot
+ * stay parameters, listed after the species. Numeric constants and totals are invented round values.
+ */
+export function phosphorylationNSiteParametric(n: number, symbolic: readonly string[], symbolicTotals: boolean): PolySystem {
+  const values = ["2", "1", "3", "5/2", "1/2", "4", "3/2", "1", "2", "1", "1/3", "5/4"];
+  const rates = Array.from({ length: 6 * n }, (_, i) => (symbolic.includes(`k${i + 1}`) ? `k${i + 1}` : values[i % values.length]));
+  const reactions: Reaction[] = [];
+  for (let i = 0; i < n; i++) reactions.push(...enzymeStep(`S${i}`, "E", `S${i + 1}`, rates.slice(3 * i, 3 * i + 3)));
+  for (let i = n - 1, r = 3 * n; i >= 0; i--, r += 3) reactions.push(...enzymeStep(`S${i + 1}`, "F", `S${i}`, rates.slice(r, r + 3)));
+  const species = [
+    ...Array.from({ length: n }, (_, i) => `ES${i}`),
+    ...Array.from({ length: n }, (_, i) => `FS${n - i}`),
+    "E", "F", "S0",
+    ...Array.from({ length: n }, (_, i) => `S${n - i}`),
+  ];
+  const totals = symbolicTotals ? { E: "Etot", F: "Ftot", S: "Stot" } : { E: "1/2", F: "1/3", S: "3" };
+  const parameters = [...symbolic, ...(symbolicTotals ? Object.values(totals) : [])];
+  return phosphorylationIdeal(species, reactions, totals, parameters);
+}
+
 /** The symbolic two-site cycle as a reaction network, for `analyse` (see network-csv.ts). */
 export interface BenchNetwork {
   readonly name: string;
@@ -223,6 +247,22 @@ export function standardSystems(): BenchSystem[] {
     "species eliminated in lex, parameters k1..k12, Etot, Ftot, Stot below them in grevlex: the brute-force block order of issue 4",
   ];
   out.push({ name: "phospho-2site-symbolic", quick: false, extra: true, file: toFile(symbolic, "lex(9), grevlex(15)", [...symbolicText, ssText, generated]) });
+  // The issue-11 block-order targets: species in lex above a few symbolic constants in grevlex.
+  const parametric: { name: string; n: number; symbolic: string[]; totals: boolean; extra: boolean }[] = [
+    { name: "phospho-2site-k3k6", n: 2, symbolic: ["k3", "k6"], totals: false, extra: false },
+    { name: "phospho-2site-k2k5", n: 2, symbolic: ["k2", "k5"], totals: false, extra: false },
+    { name: "phospho-2site-k1k4", n: 2, symbolic: ["k1", "k4"], totals: false, extra: false },
+    { name: "phospho-2site-totals", n: 2, symbolic: [], totals: true, extra: false },
+    { name: "phospho-3site-k3k6", n: 3, symbolic: ["k3", "k6"], totals: false, extra: true },
+    { name: "phospho-3site-k3k6k9", n: 3, symbolic: ["k3", "k6", "k9"], totals: false, extra: true },
+    { name: "phospho-4site-k3k6", n: 4, symbolic: ["k3", "k6"], totals: false, extra: true },
+  ];
+  for (const p of parametric) {
+    const sys = phosphorylationNSiteParametric(p.n, p.symbolic, p.totals);
+    const nspecies = 3 * p.n + 3;
+    const text = `${p.n}-site distributive phosphorylation cycle (Wang and Sontag, J. Math. Biol. 2008), mass action, invented constants, symbolic: ${[...p.symbolic, ...(p.totals ? ["Etot", "Ftot", "Stot"] : [])].join(", ")}`;
+    out.push({ name: p.name, quick: false, extra: p.extra, file: toFile(sys, `lex(${nspecies}), grevlex(${sys.vars.length - nspecies})`, [text, "species eliminated in lex above the symbolic constants in grevlex", ssText, generated]) });
+  }
   return out;
 }
 

@@ -35,6 +35,14 @@ export interface Field<C> {
   format(a: C): string;
 }
 
+/**
+ * Is this the field of rationals? The engine picks its coefficient strategy (fraction-free over
+ * Z, modular images, rational reconstruction) from this property of the field, not from identity.
+ */
+export function isRationalField(F: Field<unknown>): F is Field<Rational> {
+  return F.characteristic === 0n;
+}
+
 /** The rationals with normalised bigint numerator/denominator (see rational.ts). */
 export const QQ: Field<Rational> = {
   name: "QQ",

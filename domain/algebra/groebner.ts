@@ -1,5 +1,5 @@
 import { AlgebraError } from "./errors";
-import { isPrimeField, QQ } from "./field";
+import { isPrimeField, isRationalField } from "./field";
 import { multiModularGroebnerQQ } from "./f4/multimodular";
 import { f4GroebnerModP, f4SupportsPrime } from "./f4/prime-field";
 import type { SelectionStrategy } from "./groebner/buchberger";
@@ -67,15 +67,22 @@ export function groebnerBasis<C>(polys: readonly Polynomial<C>[], options: Groeb
     options = { ...options, timeoutMs: undefined, deadline };
   }
   const limits = new Limits(options);
+  let grevlex: Polynomial<C>[] | null = null;
   if (options.fglm !== false && !isDegreeCompatible(ring)) {
     const viaFglm = tryFglm(polys, ring, options);
-    if (viaFglm) return viaFglm;
+    if (viaFglm.basis) return viaFglm.basis;
+    grevlex = viaFglm.grevlex;
   }
   const strategy = options.strategy ?? defaultStrategy(ring.order);
-  if (ring.field === (QQ as unknown)) {
+  if (isRationalField(ring.field)) {
     const qpolys = (polys as unknown as Polynomial<Rational>[]).filter((p) => p.coeffs.length > 0);
     if (qpolys.length === 0) return [];
     const method = options.method ?? "auto";
+    if (grevlex !== null && grevlex.length > 0 && (method === "auto" || method === "f4")) {
+      // Positive-dimensional ideal in a lex or block order (parameters in a lower block).
+      const viaBlock = blockOrderQQ(qpolys, grevlex as unknown as Polynomial<Rational>[], strategy, options, limits, method);
+      if (viaBlock) return viaBlock as unknown as Polynomial<C>[];
+    }
     const viaF4 = method === "f4" && isDegreeCompatible(ring) ? multiModularGroebnerQQ(qpolys, limits) : null;
     const result = viaF4 ?? (method === "buchberger"
       ? plainFractionFree(qpolys.map((p) => clearDenominators(toEngine(p))), qpolys[0].ring, strategy, limits)
@@ -91,6 +98,47 @@ export function groebnerBasis<C>(polys: readonly Polynomial<C>[], options: Groeb
   return basis.map((p) => fromEngine(ring, p));
 }
 
+/**
+ * Reduction steps the traced Buchberger run modulo p may take in a lex or block order before the
+ * multi-modular F4 path takes over. Buchberger's algorithm in these orders sometimes wanders
+ * through high-degree pairs even modulo p (two-site cycle with k3, k6 symbolic: no end after
+ * 15000 steps, > 60 s), where F4 with sugar needs a few matrices; when it does finish it is
+ * usually the faster route (its exact replay skips the zero reductions). Measured here (steps
+ * and highest pair degree of the sugar run modulo 2^26 − 5 on bench/systems): k1k4 683 / 9,
+ * k2k5 1278 / 7, totals 1273 / 8; k3k6 passes degree 30 under the normal strategy, while its
+ * reduced basis has degree 11. Hence also a degree budget (3 × the grevlex basis' top degree, at
+ * least 12) and a size budget (3 × its longest element, at least 100 terms): under sugar, k3k6's
+ * run passes 150 terms after 375 steps, where the grevlex basis' longest element has 59; the
+ * three that finish stay below 150.
+ */
+const TRACE_BUDGET = 3000;
+const TRIAL = "Gröbner basis (trial of the traced run)";
+
+/**
+ * A lex or block order on a positive-dimensional ideal over Q: the traced Buchberger run within
+ * a step budget, then F4 modulo primes in the target order, lifted and proven against the
+ * grevlex basis (f4/multimodular.ts); null when neither completes (the caller goes on).
+ */
+function blockOrderQQ(
+  qpolys: Polynomial<Rational>[],
+  grevlex: Polynomial<Rational>[],
+  strategy: SelectionStrategy,
+  options: GroebnerOptions,
+  limits: Limits,
+  method: "auto" | "f4",
+): Polynomial<Rational>[] | null {
+  if (method === "auto") {
+    try {
+      const maxPairDegree = Math.max(12, 3 * Math.max(...grevlex.map((g) => g.exps[0])));
+      const maxTerms = Math.min(options.maxTerms ?? Infinity, Math.max(100, 3 * Math.max(...grevlex.map((g) => g.coeffs.length))));
+      return modularGroebnerQQ(qpolys, strategy, new Limits({ ...options, maxReductions: TRACE_BUDGET, maxPairDegree, maxTerms }, TRIAL));
+    } catch (e) {
+      if (!(e instanceof AlgebraError) || e.code !== "budget" || !e.message.startsWith(TRIAL)) throw e;
+    }
+  }
+  return multiModularGroebnerQQ(qpolys, limits, { reference: grevlex });
+}
+
 function useF4ModP<C>(ring: PolynomialRing<C>, method: NonNullable<GroebnerOptions["method"]>): boolean {
   if (!isPrimeField(ring.field) || !f4SupportsPrime(ring.field.p)) return false;
   return method === "f4" || (method === "auto" && isDegreeCompatible(ring));
@@ -100,23 +148,26 @@ function isDegreeCompatible<C>(ring: PolynomialRing<C>): boolean {
   return ring.order.length === 1 && (ring.order[0].kind === "grlex" || ring.order[0].kind === "grevlex");
 }
 
-/** Grevlex basis, then FGLM into the ring's order when the ideal is zero-dimensional; null otherwise. */
-function tryFglm<C>(polys: readonly Polynomial<C>[], ring: PolynomialRing<C>, options: GroebnerOptions): Polynomial<C>[] | null {
+/**
+ * Grevlex basis, then FGLM into the ring's order when the ideal is zero-dimensional; otherwise
+ * no basis, but the grevlex one (which the caller can use to prove a basis in its own order).
+ */
+function tryFglm<C>(polys: readonly Polynomial<C>[], ring: PolynomialRing<C>, options: GroebnerOptions): { basis: Polynomial<C>[] | null; grevlex: Polynomial<C>[] | null } {
   const graded = ring.withOrder("grevlex");
   const moved = polys.map((p) => normalizeTerms(graded, p.coeffs, p.exps.slice()));
   const G = groebnerBasis(moved, { ...options, fglm: false });
-  if (G.length === 0) return null;
-  if (G.length === 1 && G[0].exps[0] === 0) return [ring.one()];
+  if (G.length === 0) return { basis: null, grevlex: null };
+  if (G.length === 1 && G[0].exps[0] === 0) return { basis: [ring.one()], grevlex: G };
   const n = ring.n;
   for (let k = 1; k <= n; k++) {
-    if (!G.some((g) => g.exps[k] > 0 && g.exps[k] === g.exps[0])) return null; // not zero-dimensional
+    if (!G.some((g) => g.exps[k] > 0 && g.exps[k] === g.exps[0])) return { basis: null, grevlex: G }; // not zero-dimensional
   }
-  if (ring.field === (QQ as unknown) && options.method !== "buchberger") {
+  if (isRationalField(ring.field) && options.method !== "buchberger") {
     // Images modulo primes, lifted and proven exactly (fglm-modular.ts); FGLM over Q if that fails.
     // Below ~24 solutions FGLM over Q is as fast (katsura-4, 16: 0.08 s either way; katsura-5, 32:
     // 2.4 s over Q, 0.9 s modular — CPU time measured here).
     const lifted = fglmModularQQ(G as unknown as Polynomial<Rational>[], ring as unknown as PolynomialRing<Rational>, { ...options, minDimension: 24 });
-    if (lifted) return lifted as unknown as Polynomial<C>[];
+    if (lifted) return { basis: lifted as unknown as Polynomial<C>[], grevlex: G };
   }
-  return fglm(G, ring, options);
+  return { basis: fglm(G, ring, options), grevlex: G };
 }

@@ -2,6 +2,7 @@ import { AlgebraError } from "../algebra/index";
 import { parseRational, sign, type Rational } from "../algebra/rational";
 import { NetworkFileError } from "../network/index";
 import { analyseNetwork, SteadyStateInputError, type SteadyStateAnalysis } from "../steady-state/index";
+import { analysisResultJson } from "../steady-state/result";
 import type { CliIO, CommandModule } from "./io";
 import { CliError, parseArgs } from "./io";
 import { formatInitial, readNetworkFile } from "./network-input";
@@ -23,56 +24,6 @@ export function parseInitial(text: string): Map<string, Rational> {
   });
   if (problems.length > 0) throw new CliError(`--initial: ${problems.join("; ")}`);
   return out;
-}
-
-/** The CLI contract's JSON object (structure keys from the network layer's analyseStructure). */
-export function toJson(r: SteadyStateAnalysis): Record<string, unknown> {
-  const s = r.structure;
-  return {
-    species: s.species,
-    // Added key: species held constant (the complexes and matrices are formed without them).
-    constants: s.constants,
-    complexes: s.complexes,
-    reactions: s.reactions,
-    rank: s.rank,
-    linkageClasses: s.linkageClasses,
-    deficiency: s.deficiency,
-    weaklyReversible: s.weaklyReversible,
-    conservationLaws: s.conservationLaws,
-    groebnerBasis: r.groebnerBasis ?? [],
-    parametrisation: r.parametrisation,
-    acr: r.acr,
-    steadyStates: r.steadyStates?.map((x) => ({
-      concentrations: x.concentrations,
-      stable: x.stable,
-      verdict: x.verdict,
-      eigenvalues: x.eigenvalues.map((e) => ({ re: e.re, im: e.im })),
-      residual: x.residual,
-    })) ?? null,
-    steadyStatesReason: r.steadyStatesReason,
-    warnings: r.warnings,
-    order: r.order,
-    ordering: r.ordering,
-    groebnerBasisComplete: r.groebnerBasis !== null,
-    groebnerBasisStatus: r.groebnerBasisStatus,
-    genericConditions: r.genericConditions,
-    triangularForm: r.triangularForm,
-    rootsNeeded: r.rootsNeeded,
-    nonVanishing: r.nonVanishing,
-    relations: r.relations,
-    eliminant: r.eliminant,
-    steadyStateSet: r.steadyStateSet,
-    positiveSteadyStatesExist: r.positiveSteadyStatesExist,
-    positiveSteadyStatesReason: r.positiveSteadyStatesReason,
-    unfinished: r.unfinished,
-    contradictions: r.contradictions,
-    odes: r.odes,
-    steadyStateSystem: r.steadyStateSystem,
-    parameters: r.parameters,
-    minimalSemiPositiveConservationLaws: s.minimalSemiPositiveConservationLaws,
-    deficiencyZeroTheorem: s.deficiencyZeroTheorem,
-    deficiencyOneTheorem: s.deficiencyOneTheorem,
-  };
 }
 
 const law = (l: Record<string, number>) =>
@@ -165,8 +116,8 @@ export function run(args: readonly string[], io: CliIO): number {
   const relations = flags.has("relation") ? flags.get("relation")!.split(";").map((s) => s.trim()).filter((s) => s !== "") : [];
   let result: SteadyStateAnalysis;
   try {
-    // `.xml`/`.sbml` files are read as SBML, `.txt` as a reaction list; an SBML file's initial
-    // concentrations stand in for a missing --initial, and say so.
+    // `.xml`/`.sbml` files are read as SBML, `.txt` as a reaction list; the file's initial values
+    // (SBML initial concentrations, a `# initial:` line) stand in for a missing --initial, and say so.
     const doc = readNetworkFile(io, positionals[0]);
     for (const n of doc.notes) io.stderr(`note: ${n}\n`);
     const start = initial ?? (doc.initial.size > 0 ? new Map(doc.initial) : undefined);
@@ -176,7 +127,7 @@ export function run(args: readonly string[], io: CliIO): number {
     if (e instanceof NetworkFileError || e instanceof SteadyStateInputError || e instanceof AlgebraError) throw new CliError(e.message);
     throw e;
   }
-  io.stdout(json ? JSON.stringify(toJson(result), null, 2) + "\n" : toReport(result));
+  io.stdout(json ? JSON.stringify(analysisResultJson(result), null, 2) + "\n" : toReport(result));
   return 0;
 }
 

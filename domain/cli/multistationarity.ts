@@ -2,22 +2,11 @@ import { AlgebraError } from "../algebra/index";
 import { NetworkFileError, parseNetworkCsv } from "../network/index";
 import { multistationarity, type MultistationarityResult } from "../steady-state/multistationarity";
 import { SteadyStateInputError } from "../steady-state/index";
+import { multistationarityJson } from "../steady-state/result";
 import type { CliIO, CommandModule } from "./io";
 import { CliError, parseArgs, readInput } from "./io";
 
 const USAGE = "usage: multistationarity NETWORK.csv [--timeout SECONDS] [--json]";
-
-/** The CLI contract's JSON object: verdict, method, reason, witness? (plus assumptions and sources). */
-export function multistationarityToJson(r: MultistationarityResult): Record<string, unknown> {
-  return {
-    verdict: r.verdict,
-    method: r.method,
-    reason: r.reason,
-    ...(r.witness ? { witness: r.witness } : {}),
-    assumptions: r.assumptions,
-    sources: r.sources,
-  };
-}
 
 function report(r: MultistationarityResult): string {
   const lines = [`Verdict: ${r.verdict} (${r.method})`, r.reason];
@@ -46,7 +35,7 @@ export function run(args: readonly string[], io: CliIO): number {
     if (e instanceof NetworkFileError || e instanceof SteadyStateInputError || e instanceof AlgebraError) throw new CliError(e.message);
     throw e;
   }
-  io.stdout(json ? JSON.stringify(multistationarityToJson(result), null, 2) + "\n" : report(result));
+  io.stdout(json ? JSON.stringify(multistationarityJson(result), null, 2) + "\n" : report(result));
   return 0;
 }
 

@@ -1,7 +1,9 @@
 import { formatRational, parseRational, type Rational } from "../algebra/rational";
-import { SPECIES_NAME, makeComplex, type Complex } from "./complex";
+import { makeComplex, type Complex } from "./complex";
 import type { NetworkFileProblem } from "./errors";
 import type { ConstantSpecies } from "./model";
+import { readDirectiveEntries } from "./directive";
+import { rateValueWithinLimits as withinLimits } from "./limits";
 
 /**
  * The declaration of constant species in a network file: a comment line
@@ -41,59 +43,32 @@ export function readConstantDeclarations(comments: readonly { readonly line: num
   declared: DeclaredConstant[];
   problems: NetworkFileProblem[];
 } {
+  const { entries, problems } = readDirectiveEntries(comments, CONSTANT_DIRECTIVE, {
+    key: "constant",
+    expected: EXPECTED_ENTRY,
+    twice: "declared constant twice",
+    once: "each constant species declared once",
+  });
   const declared: DeclaredConstant[] = [];
-  const problems: NetworkFileProblem[] = [];
-  for (const c of comments) {
-    const head = CONSTANT_DIRECTIVE.exec(c.text);
-    if (!head) continue;
-    let offset = head[0].length;
-    const body = c.text.slice(offset);
-    if (body.trim() === "") {
-      problems.push({ row: c.line, column: "constant", columnIndex: offset + 1, message: "the `# constant:` line names no species", expected: EXPECTED_ENTRY });
-      continue;
-    }
-    for (const part of body.split(",")) {
-      const lead = part.length - part.trimStart().length;
-      const column = offset + lead + 1;
-      offset += part.length + 1;
-      const entry = part.trim();
-      const at = { row: c.line, column: "constant", columnIndex: column };
-      if (entry === "") {
-        problems.push({ ...at, message: "empty entry in the `# constant:` line", expected: EXPECTED_ENTRY });
-        continue;
-      }
-      const m = /^([^=\s]+)\s*(?:=\s*(.*))?$/.exec(entry);
-      const name = m?.[1] ?? entry;
-      if (!m || !SPECIES_NAME.test(name)) {
-        problems.push({ ...at, message: `\`${entry}\` is not a species declaration`, expected: EXPECTED_ENTRY });
-        continue;
-      }
-      let value: Rational | undefined;
-      if (m[2] !== undefined) {
-        const v = parseRational(m[2]);
-        if (v === null || v.num <= 0n) {
-          problems.push({
-            ...at,
-            message: m[2].trim() === "" ? `no value after \`${name} =\`` : `the concentration \`${m[2].trim()}\` of \`${name}\` is not a positive number`,
-            expected: "a positive decimal such as 2 or 0.5, or a fraction such as 3/2 (or leave out `= …` for a symbolic concentration)",
-          });
-          continue;
-        }
-        value = v;
-      }
-      const before = declared.find((d) => d.name === name);
-      if (before) {
+  for (const e of entries) {
+    let value: Rational | undefined;
+    if (e.valueText !== undefined) {
+      const v = withinLimits(e.valueText) ? parseRational(e.valueText) : null;
+      if (v === null || v.num <= 0n) {
         problems.push({
-          ...at,
-          message: `\`${name}\` is declared constant twice (first on line ${before.line}, column ${before.column})`,
-          expected: "each constant species declared once",
+          row: e.line,
+          column: "constant",
+          columnIndex: e.column,
+          message: e.valueText === "" ? `no value after \`${e.name} =\`` : `the concentration \`${e.valueText}\` of \`${e.name}\` is not a positive number`,
+          expected: "a positive decimal such as 2 or 0.5, or a fraction such as 3/2 (or leave out `= …` for a symbolic concentration)",
         });
         continue;
       }
-      declared.push({ name, ...(value !== undefined ? { value } : {}), line: c.line, column });
+      value = v;
     }
+    declared.push({ name: e.name, ...(value !== undefined ? { value } : {}), line: e.line, column: e.column });
   }
-  return { declared, problems };
+  return { declared, problems: problems.sort((a, b) => a.row - b.row || (a.columnIndex ?? 0) - (b.columnIndex ?? 0)) };
 }
 
 /** The declaration line the CSV writer puts before the header. Example: `# constant: A = 2, B`. */

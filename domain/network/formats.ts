@@ -1,3 +1,4 @@
+import { textFileProblem } from "./text-file";
 import type { Rational } from "../algebra/rational";
 import type { NetworkFileProblem } from "./errors";
 import type { Network } from "./model";
@@ -5,6 +6,7 @@ import { tryParseNetworkCsv } from "./parse-csv";
 import { parseReactionList } from "./reaction-list";
 import { readSbml } from "./sbml/read-sbml";
 import { formatNetworkCsv } from "./format-csv";
+import { initialMapOf } from "./initial-values";
 
 /** The file kinds a network can be read from and written to. */
 export const NETWORK_FORMATS = ["csv", "sbml", "text"] as const;
@@ -16,7 +18,7 @@ export interface NetworkDocument {
   readonly network: Network;
   /** The network as our CSV, the stored form of a version. */
   readonly csv: string;
-  /** Initial concentrations (SBML only). */
+  /** Initial concentrations: the network's `# initial:` values (from SBML: its initial concentrations or amounts). */
   readonly initial: ReadonlyMap<string, Rational>;
   /** Remarks on the reading (SBML: renamed local parameters, unused species, …). */
   readonly notes: readonly string[];
@@ -56,14 +58,17 @@ export function readNetworkDocument(
   text: string,
   format: NetworkFormat,
 ): { ok: true; document: NetworkDocument } | { ok: false; format: NetworkFormat; problems: readonly NetworkFileProblem[]; notes: readonly string[] } {
+  // Binary or mis-decoded text gets one problem, whatever the format (the CSV parser checks it itself).
+  const notText = format === "csv" ? null : textFileProblem(text);
+  if (notText) return { ok: false, format, problems: [notText], notes: [] };
   switch (format) {
     case "csv": {
       const r = tryParseNetworkCsv(text);
-      return r.ok ? { ok: true, document: { format, network: r.network, csv: text, initial: new Map(), notes: [] } } : { ok: false, format, problems: r.problems, notes: [] };
+      return r.ok ? { ok: true, document: { format, network: r.network, csv: text, initial: initialMapOf(r.network), notes: [] } } : { ok: false, format, problems: r.problems, notes: [] };
     }
     case "text": {
       const r = parseReactionList(text);
-      return r.ok ? { ok: true, document: { format, network: r.network, csv: formatNetworkCsv(r.network), initial: new Map(), notes: [] } } : { ok: false, format, problems: r.problems, notes: [] };
+      return r.ok ? { ok: true, document: { format, network: r.network, csv: formatNetworkCsv(r.network), initial: initialMapOf(r.network), notes: [] } } : { ok: false, format, problems: r.problems, notes: [] };
     }
     case "sbml": {
       const r = readSbml(text);

@@ -6,6 +6,7 @@
  * - analyseStructure(network) → NetworkStructure, plain JSON-friendly data (rationals as strings).
  * - Constant species (`# constant: A = 2, B`): network.constants, each reaction's `held` part;
  *   importers (e.g. SBML boundary species) fill `constants` and strip them from the complexes.
+ * - Initial values (`# initial: X = 1`): network.initial, the default start of analyses.
  * - The exact pieces (complexes, Y, incidence and stoichiometric matrices, conservation laws) for
  *   the steady-state layer.
  *
@@ -15,8 +16,9 @@
  */
 export type { Complex } from "./complex";
 export { SPECIES_NAME, makeComplex, formatComplex, sameComplex, compareNames } from "./complex";
-export type { Arrow, ConstantSpecies, DirectedReaction, Network, NetworkRow } from "./model";
+export type { Arrow, ConstantSpecies, DirectedReaction, InitialValue, Network, NetworkRow } from "./model";
 export { CONSTANT_DIRECTIVE, formatConstantDeclaration, readConstantDeclarations, splitComplex } from "./constant-species";
+export { INITIAL_DIRECTIVE, formatInitialDeclaration, readInitialDeclarations, initialMapOf } from "./initial-values";
 export { type NetworkFileProblem, NetworkFileError, formatProblem } from "./errors";
 export { NETWORK_COLUMNS, type NetworkColumn, parseNetworkCsv, tryParseNetworkCsv } from "./parse-csv";
 export { parseReactionText, type ParsedReaction, type ReactionTextResult } from "./reaction-text";
@@ -33,7 +35,8 @@ export { type ConservationAnalysis, type ConservationOptions, analyseConservatio
 export { type DirectedGraph, connectedComponents, stronglyConnectedComponents, terminalComponents } from "./graph";
 export { type TheoremVerdict, deficiencyZeroVerdict, deficiencyOneVerdict } from "./deficiency-theorems";
 export { type NetworkStructure, type ReactionSummary, analyseStructure } from "./structure";
+export { type StructuralCapabilities, type StructuralCount, type StructurallyRobust, structuralCapabilities, shinarFeinbergRobust } from "./capabilities";
 export { parseReactionList, formatReactionList } from "./reaction-list";
 export { NETWORK_FORMATS, type NetworkFormat, type NetworkDocument, formatFromName, sniffFormat, readNetworkDocument } from "./formats";
-export { odePython, odeJulia, massActionTerms, type OdeCodeOptions } from "./ode-code";
+export { decodeNetworkFile, textFileProblem, type DecodedFile } from "./text-file";
 export { NETWORK_LIMITS, networkLimitProblems, rateValueWithinLimits } from "./limits";

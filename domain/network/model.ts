@@ -59,6 +59,18 @@ export interface ConstantSpecies {
   readonly line: number;
 }
 
+/**
+ * A species' initial concentration stored with the version, declared on a `# initial: X = 1`
+ * line. The default starting point of analyses and time courses; the structure does not use it.
+ */
+export interface InitialValue {
+  readonly name: string;
+  /** ≥ 0, exact. */
+  readonly value: Rational;
+  /** 1-based line of the declaration. */
+  readonly line: number;
+}
+
 export interface Network {
   /**
    * In order of first appearance in the file (left to right, top to bottom), without the
@@ -70,4 +82,6 @@ export interface Network {
   readonly rows: readonly NetworkRow[];
   /** Species held constant, in declaration order; absent or empty when none. */
   readonly constants?: readonly ConstantSpecies[];
+  /** Initial concentrations of (non-constant) species, in declaration order; absent or empty when none. */
+  readonly initial?: readonly InitialValue[];
 }

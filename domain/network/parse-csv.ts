@@ -3,9 +3,11 @@ import { SPECIES_NAME, formatComplex, type Complex } from "./complex";
 import { NETWORK_LIMITS, rateValueWithinLimits } from "./limits";
 import { readCsvTable, type CsvLine } from "./csv-table";
 import { NetworkFileError, type NetworkFileProblem } from "./errors";
-import type { Arrow, ConstantSpecies, DirectedReaction, Network, NetworkRow } from "./model";
+import type { Arrow, ConstantSpecies, DirectedReaction, InitialValue, Network, NetworkRow } from "./model";
 import { readConstantDeclarations, splitComplex, type DeclaredConstant } from "./constant-species";
+import { readInitialDeclarations, type DeclaredInitial } from "./initial-values";
 import { parseReactionText } from "./reaction-text";
+import { textFileProblem } from "./text-file";
 import { defaultRateName } from "./rate-names";
 
 export const NETWORK_COLUMNS = ["reaction", "label", "rate", "reverse_rate", "rate_value", "reverse_rate_value"] as const;
@@ -50,7 +52,8 @@ interface CellRef {
  * on several reactions means one shared rate constant; its values must agree.
  * A comment line `# constant: A = 2, B` holds species at a given or symbolic concentration (see
  * constant-species.ts): they leave the species list and the reactions' complexes, and stay in
- * `network.constants` and each reaction's `held` part. Other `#` lines are comments.
+ * `network.constants` and each reaction's `held` part. A comment line `# initial: X = 1, Y = 1/2`
+ * stores initial concentrations (initial-values.ts) in `network.initial`. Other `#` lines are comments.
  * Format and checks are common practice for CSV input (RFC 4180 quoting).
  *
  * Example: parseNetworkCsv("reaction\nA <-> B\n") has species [A, B] and reactions
@@ -69,6 +72,9 @@ export function parseNetworkCsv(text: string): Network {
 export function tryParseNetworkCsv(
   text: string,
 ): { ok: true; network: Network } | { ok: false; problems: readonly NetworkFileProblem[] } {
+  // A binary file or mis-decoded text: one clear problem, not a complaint per stray byte.
+  const notText = textFileProblem(text);
+  if (notText) return { ok: false, problems: [notText] };
   const table = readCsvTable(text);
   const problems: NetworkFileProblem[] = [...table.problems];
   if (!table.header) {
@@ -94,7 +100,9 @@ export function tryParseNetworkCsv(
   }
   const constants = readConstantDeclarations(table.comments);
   problems.push(...constants.problems);
-  const network = assemble(drafts, columns, problems, constants.declared);
+  const initial = readInitialDeclarations(table.comments);
+  problems.push(...initial.problems);
+  const network = assemble(drafts, columns, problems, constants.declared, initial.declared);
   if (problems.length > 0) return { ok: false, problems: sortProblems(problems) };
   return { ok: true, network };
 }
@@ -206,7 +214,13 @@ function readRow(row: CsvLine, columns: ColumnMap, width: number, problems: Netw
   };
 }
 
-function assemble(drafts: RowDraft[], columns: ColumnMap, problems: NetworkFileProblem[], declared: readonly DeclaredConstant[]): Network {
+function assemble(
+  drafts: RowDraft[],
+  columns: ColumnMap,
+  problems: NetworkFileProblem[],
+  declared: readonly DeclaredConstant[],
+  declaredInitial: readonly DeclaredInitial[],
+): Network {
   const written: string[] = [];
   for (const d of drafts) {
     for (const s of d.speciesInOrder) if (!written.includes(s)) written.push(s);
@@ -226,6 +240,19 @@ function assemble(drafts: RowDraft[], columns: ColumnMap, problems: NetworkFileP
   }
   const species = written.filter((s) => !constantSet.has(s));
   const constants: ConstantSpecies[] = declared.map((c) => ({ name: c.name, ...(c.value ? { value: c.value } : {}), line: c.line }));
+  for (const c of declaredInitial) {
+    const at = { row: c.line, column: "initial", columnIndex: c.column };
+    if (constantSet.has(c.name)) {
+      problems.push({ ...at, message: `\`${c.name}\` is held constant, so it has no initial value of its own`, expected: "its concentration on the `# constant:` line, and initial values for the other species" });
+    } else if (!speciesSet.has(c.name) && drafts.every((d) => d.valid)) {
+      problems.push({
+        ...at,
+        message: `\`${c.name}\` has an initial value but is not a species of any reaction`,
+        expected: species.length > 0 ? `one of the species ${species.join(", ")}` : "a species that appears in a reaction",
+      });
+    }
+  }
+  const initial: InitialValue[] = declaredInitial.filter((c) => speciesSet.has(c.name) && !constantSet.has(c.name)).map((c) => ({ name: c.name, value: c.value, line: c.line }));
 
   const ref = (line: number, column: NetworkColumn): CellRef => ({ line, column, columnIndex: columns[column]! + 1 });
   const values = new Map<string, { value: Rational; at: CellRef }>();
@@ -324,5 +351,5 @@ function assemble(drafts: RowDraft[], columns: ColumnMap, problems: NetworkFileP
       ...(d.reverseRateValue !== undefined ? { reverseRateValue: d.reverseRateValue } : {}),
     });
   }
-  return { species, reactions, rows, ...(constants.length > 0 ? { constants } : {}) };
+  return { species, reactions, rows, ...(constants.length > 0 ? { constants } : {}), ...(initial.length > 0 ? { initial } : {}) };
 }

@@ -4,6 +4,8 @@ import { formatComplex } from "./complex";
 import type { NetworkFileProblem } from "./errors";
 import type { Network } from "./model";
 import { tryParseNetworkCsv } from "./parse-csv";
+import { CONSTANT_DIRECTIVE, formatConstantDeclaration } from "./constant-species";
+import { INITIAL_DIRECTIVE, formatInitialDeclaration } from "./initial-values";
 
 /**
  * Reaction lists as plain text, one reaction per line, read with exactly the CSV file's rules
@@ -14,6 +16,8 @@ import { tryParseNetworkCsv } from "./parse-csv";
  *   C -> E + P, kcat = 3
  *   0 -> S, 1/2          (a value alone: the rate gets its default name)
  *   A -> B               (no rate: default name, no value)
+ *   # constant: A = 2, B (species held constant, as in the CSV file)
+ *   # initial: S = 10    (initial concentrations, as in the CSV file)
  *
  * A line is `[label:] REACTION [, RATE] [, REVERSE_RATE]` where each rate is `NAME`, `NAME = VALUE`
  * or `VALUE`. A label with `:`, `,` or `#` is written in double quotes (`""` for a quote).
@@ -28,8 +32,13 @@ export function parseReactionList(
   const problems: NetworkFileProblem[] = [];
   const rows: string[][] = [];
   const lines: number[] = [];
+  const directives: { line: number; text: string }[] = [];
   text.split(/\r\n|\n|\r/).forEach((raw, i) => {
     const line = i + 1;
+    if (CONSTANT_DIRECTIVE.test(raw) || INITIAL_DIRECTIVE.test(raw)) {
+      directives.push({ line, text: raw });
+      return;
+    }
     const body = stripComment(raw).trim();
     if (body === "") return;
     let label = "";
@@ -68,15 +77,19 @@ export function parseReactionList(
   }
   if (problems.length > 0) return { ok: false, problems };
   const fields = ["reaction", "label", "rate", "reverse_rate", "rate_value", "reverse_rate_value"];
-  const csv = Papa.unparse({ fields, data: rows }, { newline: "\n" }) + "\n";
+  // The directive lines go after the rows, as written, so their character columns still hold.
+  const csv = Papa.unparse({ fields, data: rows }, { newline: "\n" }) + "\n" + directives.map((d) => d.text + "\n").join("");
   const parsed = tryParseNetworkCsv(csv);
   if (!parsed.ok) {
-    // CSV line n is text line lines[n - 2]; the column name says which part of the line.
+    // CSV line n is text line lines[n - 2] (a reaction) or a directive line; the column name says
+    // which part of the line. Only a directive's character column is the text's own.
     return {
       ok: false,
       problems: parsed.problems.map((p) => {
+        const directive = directives[p.row - 2 - rows.length];
+        if (directive && (p.column === "constant" || p.column === "initial")) return { ...p, row: directive.line };
         const { columnIndex: _drop, ...rest } = p;
-        return { ...rest, row: p.row >= 2 ? lines[p.row - 2] : 1 };
+        return { ...rest, row: p.row >= 2 && p.row - 2 < lines.length ? lines[p.row - 2] : 1 };
       }),
     };
   }
@@ -85,12 +98,18 @@ export function parseReactionList(
 
 /**
  * Writes a network as a reaction list that parseReactionList reads back to the same network:
- * every rate symbol named, values where known, labels quoted when they need it.
+ * every rate symbol named, values where known, labels quoted when they need it, the constant
+ * species and initial values as the CSV file's `# constant:` and `# initial:` lines, first.
  *
  * Example: the network of "reaction,label,rate,rate_value\nA -> B,decay,k,2\n" is `decay: A -> B, k = 2`.
  */
 export function formatReactionList(network: Network): string {
+  const directives = [
+    ...(network.constants && network.constants.length > 0 ? [formatConstantDeclaration(network.constants)] : []),
+    ...(network.initial && network.initial.length > 0 ? [formatInitialDeclaration(network.initial)] : []),
+  ];
   return (
+    directives.map((d) => d + "\n").join("") +
     network.rows
       .map((r) => {
         const rate = (name: string | undefined, value: typeof r.rateValue) =>

@@ -36,6 +36,8 @@ export interface NetworkStructure {
   readonly species: string[];
   /** Species held constant, in declaration order: value as exact text, or absent when symbolic. */
   readonly constants: { readonly name: string; readonly value?: string }[];
+  /** Initial concentrations stored with the version (`# initial:`), exact text; absent when none. */
+  readonly initial?: { readonly name: string; readonly value: string }[];
   /** Canonical texts, order of first appearance. */
   readonly complexes: string[];
   /** Number of directed reactions. */
@@ -132,6 +134,7 @@ export function analyseStructure(network: Network, options: ConservationOptions 
   return {
     species: [...network.species],
     constants: (network.constants ?? []).map((c) => ({ name: c.name, ...(c.value ? { value: formatRational(c.value) } : {}) })),
+    ...(network.initial && network.initial.length > 0 ? { initial: network.initial.map((i) => ({ name: i.name, value: formatRational(i.value) })) } : {}),
     complexes: names,
     reactions: network.reactions.length,
     reactionList: network.reactions.map((r) => ({

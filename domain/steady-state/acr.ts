@@ -2,7 +2,7 @@ import { type GroebnerOptions, PolynomialRing, QQ, neg } from "../algebra/index"
 import { mapToRing, monomialOf, saturate } from "./ideal";
 import type { KineticsRing, QPoly } from "./kinetics";
 import type { ParametrisationResult } from "./parametrisation";
-import { coefficientsIn, degreeIn, variablesOf } from "./poly-tools";
+import { coefficientsIn, degreeIn, variablesOf } from "../algebra/poly-tools";
 import { formatExpression, simplifyFraction } from "./rational-expression";
 
 export interface AcrSpecies {

@@ -14,7 +14,7 @@ import { formatExpression } from "./rational-expression";
 import { testRelation, type RelationResult } from "./relation";
 import { steadyStateSystem, totalsFromInitial } from "./system";
 import { genericConditions, leadingSpecies, triangularForm } from "./triangular";
-import { primitive, signPattern } from "./poly-tools";
+import { primitive, signPattern, isNonZeroConstant } from "../algebra/poly-tools";
 
 export interface AnalyseOptions extends BudgetOptions {
   /** Elimination order: species eliminated first … species kept free last (partial lists allowed). */
@@ -179,7 +179,7 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
   const nonVanishing = param
     ? [...new Set(param.pivots.filter((p) => signPattern(p) === "mixed").map((p) => formatExpression({ num: primitive(p), den: kin.ring.one() }, param!.pivots)))]
     : [];
-  const wholeRing = basis !== null && basis.length === 1 && basis[0].coeffs.length === 1 && basis[0].exps.every((e) => e === 0);
+  const wholeRing = basis !== null && basis.length === 1 && isNonZeroConstant(basis[0]);
   const parameterOnly = basis && !wholeRing ? basis.filter((g) => leadingSpecies(g, kinT) === null) : [];
   if (wholeRing) warnings.push("The saturated steady-state ideal is the whole ring (its basis is [1]): there is no positive steady state.");
   if (parameterOnly.length > 0)

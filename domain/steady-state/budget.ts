@@ -1,5 +1,5 @@
 import { AlgebraError } from "../algebra/index";
-import type { GroebnerOptions } from "../algebra/index";
+import type { GroebnerOptions, LimitOptions } from "../algebra/index";
 
 /** What analyseNetwork reports while it works. */
 export interface AnalysisProgress {
@@ -8,15 +8,10 @@ export interface AnalysisProgress {
   readonly message: string;
 }
 
-export interface BudgetOptions {
-  /** Absolute deadline (ms since the epoch). */
-  readonly deadline?: number;
+/** The engine's limits (groebner/limits.ts) for a whole analysis, with progress reported by phase. */
+export interface BudgetOptions extends Pick<LimitOptions, "deadline" | "maxBasisSize" | "maxTerms" | "signal"> {
   /** Relative time limit in ms (default 30 000). */
   readonly timeoutMs?: number;
-  /** Size budget handed to every Gröbner basis: largest basis and largest polynomial (terms). */
-  readonly maxBasisSize?: number;
-  readonly maxTerms?: number;
-  readonly signal?: AbortSignal;
   readonly onProgress?: (p: AnalysisProgress) => void;
 }
 

@@ -20,7 +20,7 @@ import { mapToRing, monomialOf, saturate } from "./ideal";
 import { kineticsRing, massActionOdes, rateTable, type KineticsRing, type QPoly, type QRing } from "./kinetics";
 import { computeParametrisation } from "./parametrisation";
 import { defaultOrder, SteadyStateInputError } from "./order";
-import { degreeIn, exactQuotient, mayVanishAtPositivePoints, normaliseEquation, substituteFraction, variablesOf } from "./poly-tools";
+import { degreeIn, exactQuotient, mayVanishAtPositivePoints, normaliseEquation, substituteFraction, variablesOf, isNonZeroConstant } from "../algebra/poly-tools";
 import { independentRows, stoichiometricRows, totalsFromInitial } from "./system";
 import { positiveSolutions } from "./zero-dimensional";
 
@@ -297,7 +297,7 @@ type Critical =
 /** The univariate polynomials in p whose roots hold every value where the count of positive steady states may change. */
 function criticalPolynomials(G: QPoly[], ring: QRing, ns: number, budget: Budget, boundary: readonly QPoly[] = []): Critical {
   const pIdx = ns;
-  const isConst = (g: QPoly) => g.coeffs.length === 1 && g.exps.every((e) => e === 0);
+  const isConst = (g: QPoly) => isNonZeroConstant(g);
   if (G.length === 1 && isConst(G[0])) return { kind: "none", note: "no positive steady state for any positive value of the parameter (the saturated ideal is the whole ring)" };
   const pOnly = G.filter((g) => leadingMonomial(g).slice(0, ns).every((e) => e === 0));
   if (pOnly.length > 0) return { kind: "none", note: `positive steady states exist only at isolated parameter values (roots of ${ring.format(pOnly[0])})` };

@@ -8,6 +8,8 @@ export { analyseNetwork, type AnalyseOptions, type SteadyStateAnalysis } from ".
 export { type AnalysisProgress, type BudgetOptions } from "./budget";
 export { SteadyStateInputError, defaultOrder, resolveOrder, nonInteractingSpecies } from "./order";
 export { kineticsRing, massActionOdes, type KineticsRing, type QPoly, type QRing } from "./kinetics";
+export { massActionTerms, type OdeTerm, type SpeciesOde } from "./ode-terms";
+export { odeJulia, odePython, type OdeCodeOptions } from "./ode-code";
 export { steadyStateSystem, totalsFromInitial, type SteadyStateSystem } from "./system";
 export { linearElimination, type LinearEliminationResult, type EliminatedSpecies } from "./linear-elimination";
 export { computeParametrisation, type Parametrisation, type ParametrisationResult } from "./parametrisation";

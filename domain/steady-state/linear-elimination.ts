@@ -1,6 +1,6 @@
 import { isZeroPoly, neg } from "../algebra/index";
 import type { KineticsRing, QPoly } from "./kinetics";
-import { coefficientsIn, degreeIn, divideOut, normaliseEquation, signPattern, substituteFraction, variablesOf } from "./poly-tools";
+import { coefficientsIn, degreeIn, divideOut, normaliseEquation, signPattern, substituteFraction, variablesOf } from "../algebra/poly-tools";
 import { type RationalExpression, composeExpression, simplifyFraction } from "./rational-expression";
 
 /** One species solved from one equation in which it occurs linearly. */

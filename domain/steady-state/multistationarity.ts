@@ -7,7 +7,7 @@ import { seededRandom } from "../numeric/multistart";
 import { analyseNetwork } from "./analyse";
 import { Budget, type BudgetOptions, isOutOfBudget } from "./budget";
 import { kineticsRing, massActionOdes, rateTable, type QPoly } from "./kinetics";
-import { signPattern } from "./poly-tools";
+import { signPattern } from "../algebra/poly-tools";
 
 export type MultistationarityVerdict = "monostationary" | "multistationary" | "undecided";
 

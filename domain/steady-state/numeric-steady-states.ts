@@ -11,7 +11,7 @@ import { floatSystem, evaluateFloat } from "./float-eval";
 import { mapToRing } from "./ideal";
 import type { QPoly } from "./kinetics";
 import type { ParametrisationResult } from "./parametrisation";
-import { divideOut, mayVanishAtPositivePoints, normaliseEquation, substituteFraction, variablesOf } from "./poly-tools";
+import { divideOut, mayVanishAtPositivePoints, normaliseEquation, substituteFraction, variablesOf, isNonZeroConstant } from "../algebra/poly-tools";
 import { stoichiometricRows, type SteadyStateSystem } from "./system";
 import { isZeroDimensional, positiveSolutions } from "./zero-dimensional";
 import type { Network } from "../network/index";
@@ -143,7 +143,7 @@ const CONTINUUM_WARNING =
 export function steadyStatesFromBasis(network: Network, sys: SteadyStateSystem, basis: readonly QPoly[], budget: Budget): NumericSteadyStatesResult {
   const { kin } = sys;
   if (basis.length === 0) return { states: [], status: "positive-dimensional", eliminant: null, warnings: [CONTINUUM_WARNING] };
-  if (basis.length === 1 && basis[0].coeffs.length === 1 && basis[0].exps.every((e) => e === 0))
+  if (basis.length === 1 && isNonZeroConstant(basis[0]))
     return { states: [], status: "finite", eliminant: null, warnings: [] };
   const speciesRing = new PolynomialRing(kin.species, QQ, "lex");
   const inSpecies = basis.map((p) => mapToRing(p, speciesRing));

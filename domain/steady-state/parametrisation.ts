@@ -3,7 +3,7 @@ import { type Budget, isOutOfBudget } from "./budget";
 import { monomialOf, saturate } from "./ideal";
 import type { KineticsRing, QPoly } from "./kinetics";
 import { type EliminatedSpecies, linearElimination } from "./linear-elimination";
-import { degreeIn, mayVanishAtPositivePoints, variablesOf } from "./poly-tools";
+import { degreeIn, mayVanishAtPositivePoints, variablesOf, isNonZeroConstant } from "../algebra/poly-tools";
 import { type RationalExpression, composeExpression, isPositiveExpression } from "./rational-expression";
 
 export interface Parametrisation {
@@ -104,7 +104,7 @@ export function computeParametrisation(
       unknowns = second.remainingSpecies.filter((s) => first.remainingSpecies.includes(s));
       remaining = second.remaining;
     }
-    if (basis.length === 1 && basis[0].coeffs.length === 1 && basis[0].exps.every((e) => e === 0))
+    if (basis.length === 1 && isNonZeroConstant(basis[0]))
       infeasible = "the saturated steady-state ideal is the whole ring: no positive steady state (for generic parameter values)";
   }
   const rootsNeeded = remaining

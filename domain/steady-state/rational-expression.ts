@@ -1,7 +1,7 @@
 import { equals as equalsPoly, fromTerms, isZeroPoly, mul, scale, terms } from "../algebra/index";
 import { div } from "../algebra/rational";
 import type { QPoly } from "./kinetics";
-import { exactQuotient, primitive, signPattern, substituteFraction } from "./poly-tools";
+import { exactQuotient, primitive, signPattern, substituteFraction } from "../algebra/poly-tools";
 
 /** A quotient of polynomials of the kinetics ring; den ≠ 0, den primitive with positive leading coefficient. */
 export interface RationalExpression {

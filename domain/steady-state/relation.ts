@@ -8,7 +8,7 @@ import { fromInt } from "../algebra/rational";
 import { mapToRing, monomialOf, saturate } from "./ideal";
 import { analyseStructure, type Network } from "../network/index";
 import { kineticsRing, rateTable, type KineticsRing, type QPoly } from "./kinetics";
-import { variablesOf } from "./poly-tools";
+import { variablesOf, isNonZeroConstant } from "../algebra/poly-tools";
 import { steadyStateSystem, totalsFromInitial } from "./system";
 
 export interface RelationResult {
@@ -83,7 +83,7 @@ export function testRelation(text: string, kin: KineticsRing, odeRows: readonly 
     const big = new PolynomialRing([...ring.vars, y], QQ, "grevlex");
     const lift = (p: QPoly) => fromTerms(big, terms(p).map((t) => ({ coeff: t.coeff, exponents: [...t.exponents, 0] })));
     const probe = groebnerBasis([...basis.map(lift), sub(big.one(), mul(big.variable(y), lift(g)))], options);
-    vanishes = probe.length === 1 && probe[0].coeffs.length === 1 && probe[0].exps.every((e) => e === 0);
+    vanishes = probe.length === 1 && isNonZeroConstant(probe[0]);
   }
   return { expression: ring.format(g), inIdeal, vanishes, remainder: ring.format(remainder) };
 }

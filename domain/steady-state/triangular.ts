@@ -1,4 +1,5 @@
 import { fromTerms, leadingMonomial, terms } from "../algebra/index";
+import { isNonZeroConstant } from "../algebra/poly-tools";
 import type { KineticsRing, QPoly } from "./kinetics";
 
 /** The highest species (ring order) in the leading monomial; null for an element in the parameters only. */
@@ -52,7 +53,7 @@ export function genericConditions(basis: readonly QPoly[], kin: KineticsRing): s
   const out = new Set<string>();
   for (const g of basis) {
     const lc = leadingCoefficientInSpecies(g, kin);
-    const isConstant = lc.coeffs.length === 1 && lc.exps.every((e) => e === 0);
+    const isConstant = isNonZeroConstant(lc);
     if (!isConstant) out.add(kin.ring.format(lc));
   }
   return [...out];

@@ -73,6 +73,27 @@ export function nulLocation(contentType: string, body: Buffer): string | undefin
   return `byte ${at + 1} of the body`;
 }
 
+/**
+ * When the first NUL of a multipart body lies in an uploaded file (a part with a `filename`), where
+ * it sits in that file: a NUL there means a binary file, which deserves that name rather than
+ * "remove the character". Byte and line are 1-based within the file.
+ *
+ *   binaryFilePart("multipart/form-data; boundary=X", body) // { filename: "a.csv", byte: 12, line: 2 }
+ */
+export function binaryFilePart(contentType: string, body: Buffer): { filename: string; byte: number; line: number } | undefined {
+  if (contentType.split(";")[0]!.trim().toLowerCase() !== "multipart/form-data") return undefined;
+  const at = body.indexOf(0);
+  if (at < 0) return undefined;
+  const before = body.subarray(0, at).toString("latin1");
+  const headerEnd = before.lastIndexOf("\r\n\r\n");
+  if (headerEnd < 0) return undefined;
+  const headers = before.slice(before.lastIndexOf("\r\n--", headerEnd) + 2, headerEnd);
+  const filename = /filename="([^"]*)"/i.exec(headers)?.[1];
+  if (filename === undefined) return undefined;
+  const inFile = before.slice(headerEnd + 4);
+  return { filename, byte: inFile.length + 1, line: inFile.split(/\r\n|\n|\r/).length };
+}
+
 function nulPath(value: unknown, path: string): string | undefined {
   if (typeof value === "string") return value.includes("\0") ? path : undefined;
   if (Array.isArray(value)) {

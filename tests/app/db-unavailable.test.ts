@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { allowConsoleError } from "../support/console-errors";
 import { makeRequest, run } from "./auth/fixtures";
 
 /**
@@ -20,6 +21,7 @@ describe("the database is unreachable", () => {
   });
 
   it("an API request answers 503 with Retry-After and the error shape", async () => {
+    allowConsoleError(/^\[db\] cannot connect/);
     const labs = await import("~/routes/api/labs");
     const out = await run(labs.loader, makeRequest("/api/labs", { bearer: "stp_" + "a".repeat(40) }));
     expect(out.status).toBe(503);
@@ -28,6 +30,7 @@ describe("the database is unreachable", () => {
   });
 
   it("a form post (sign-in) answers 503 too, and health still reports instead of throwing", async () => {
+    allowConsoleError(/^\[db\] cannot connect/);
     const signIn = await import("~/routes/sign-in");
     const out = await run(signIn.action, makeRequest("/sign-in", { form: { email: "ada@example.org" } }));
     expect(out.status).toBe(503);

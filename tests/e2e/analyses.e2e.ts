@@ -57,7 +57,7 @@ describe.skipIf(!hasApp)("analyses in headless chromium", () => {
     const { page } = await editor.page(`${LAB}/networks`);
     await page.getByRole("link", { name: "Kinase–phosphatase cycle" }).click();
     await page.getByTestId("start-analysis").click();
-    await page.waitForURL(/\/analyse/);
+    await page.getByRole("button", { name: "Start analysis", exact: true }).waitFor();
     await expect.poll(() => page.getByTestId("order-item").count()).toBe(6);
     // Reorder with the buttons: move the second species up.
     const nameAt = async (i: number) => (await page.getByTestId("order-item").nth(i).innerText()).split("\n")[1];
@@ -70,8 +70,10 @@ describe.skipIf(!hasApp)("analyses in headless chromium", () => {
     await page.getByLabel("Initial concentration of F", { exact: true }).fill("1/10");
     await shot(page, "01-new-analysis");
     await page.getByRole("button", { name: "Start analysis" }).click();
-    await page.waitForURL(/\/analyses\/[0-9a-f-]{36}$/);
+    // The analysis page by its content (client navigation changes the URL before it renders).
+    await page.getByTestId("settings").waitFor();
     analysisUrl = new URL(page.url()).pathname;
+    expect(analysisUrl).toMatch(/\/analyses\/[0-9a-f-]{36}$/);
     await expect.poll(() => page.getByTestId("status").first().innerText(), { timeout: 90_000, interval: 500 }).toBe("succeeded");
     await page.getByTestId("steady-states").waitFor();
     await shot(page, "02-finished");
@@ -117,17 +119,17 @@ describe.skipIf(!hasApp)("analyses in headless chromium", () => {
     const chart = page.getByTestId("scan-chart");
     await chart.waitFor({ timeout: 90_000 });
     await expect.poll(() => chart.locator("path.recharts-curve").count()).toBeGreaterThan(0);
-    const csvHref = await chart.getByRole("link", { name: "Plot data (CSV)" }).getAttribute("href");
+    const csvHref = await chart.getByRole("link", { name: "All steady states, every species (CSV)" }).getAttribute("href");
     expect(csvHref).toMatch(/\/export\/scan-[0-9a-f-]{36}\.csv$/);
     const csv = await (await page.request.get(csvHref!)).text();
     expect(csv.split("\n")[0]).toBe("c1,state,count,verdict,S0,K,S0K,S1,F,S1F");
     expect(csv.trim().split("\n")).toHaveLength(9);
-    const [download] = await Promise.all([page.waitForEvent("download"), chart.getByRole("button", { name: "Chart (SVG)" }).click()]);
+    const [download] = await Promise.all([page.waitForEvent("download"), chart.getByTestId("scan-branches-figure").getByRole("button", { name: "Chart (SVG)" }).click()]);
     expect(download.suggestedFilename()).toBe("scan-c1-S0.svg");
     const svg = readFileSync((await download.path())!, "utf8");
     expect(svg).toMatch(/^<svg[^>]*xmlns="http:\/\/www.w3.org\/2000\/svg"/);
     expect(svg).toContain("recharts-curve");
-    const [png] = await Promise.all([page.waitForEvent("download"), chart.getByRole("button", { name: "Chart (PNG)" }).click()]);
+    const [png] = await Promise.all([page.waitForEvent("download"), chart.getByTestId("scan-branches-figure").getByRole("button", { name: "Chart (PNG)" }).click()]);
     expect(png.suggestedFilename()).toBe("scan-c1-S0.png");
     const pngBytes = readFileSync((await png.path())!);
     // PNG signature (ISO/IEC 15948, §5.2) and a non-trivial image.
@@ -164,19 +166,20 @@ describe.skipIf(!hasApp)("analyses in headless chromium", () => {
   it("compares a symbolic analysis of the same version side by side with the numeric one", async () => {
     const { page } = await editor.page(analysisUrl);
     await page.getByRole("link", { name: "new analysis of this version" }).click();
-    await page.waitForURL(/\/analyse/);
+    await page.getByRole("button", { name: "Start analysis", exact: true }).waitFor();
     await page.getByLabel("all symbolic").check();
     await page.getByRole("button", { name: "Start analysis" }).click();
-    await page.waitForURL(/\/analyses\/[0-9a-f-]{36}$/);
+    await page.getByTestId("settings").waitFor();
+    expect(page.url()).toMatch(/\/analyses\/[0-9a-f-]{36}$/);
     await expect.poll(() => page.getByTestId("status").first().innerText(), { timeout: 90_000, interval: 500 }).toBe("succeeded");
     expect(await page.getByTestId("settings").innerText()).toMatch(/Rate constants: symbolic/);
     const first = analysisUrl.split("/").pop()!;
     await page.locator("select[name=b]").selectOption(first);
     await page.getByRole("button", { name: "Compare" }).click();
-    await page.waitForURL(/\/analyses\/compare\?/);
     const columns = page.getByTestId("compare-column");
     // The URL changes before the comparison renders: wait for its columns.
     await expect.poll(() => columns.count()).toBe(2);
+    expect(page.url()).toMatch(/\/analyses\/compare\?/);
     expect(await columns.nth(0).innerText()).toMatch(/symbolic rates/);
     expect(await columns.nth(1).innerText()).toMatch(/numeric rates/);
     await shot(page, "05b-compare");
@@ -200,6 +203,9 @@ describe.skipIf(!hasApp)("analyses in headless chromium", () => {
     expect(await shared.getByTestId("steady-state-row").count()).toBe(1);
     expect(await shared.getByTestId("relation-form").count()).toBe(0);
     expect(await shared.getByTestId("scan-chart").count()).toBe(1);
+    // The reactions and rate values analysed are part of the shared copy.
+    expect(await shared.getByTestId("analysed-reaction").count()).toBe(6);
+    expect(await shared.getByTestId("rate-value-r3").innerText()).toBe("2");
     // No member names leave the lab through a share link.
     expect(await shared.locator("main").innerText()).not.toContain(starter!);
     await shot(shared, "06-shared-signed-out");

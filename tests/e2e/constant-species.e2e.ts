@@ -44,8 +44,9 @@ describe.skipIf(!hasApp)("constant species in headless chromium", () => {
     await expect.poll(() => page.getByTestId("grid-status").innerText()).toMatch(/Looks valid/);
     await page.getByLabel(/^Change note/).fill("Fed reactor, feed and waste held.");
     await page.getByRole("button", { name: "Save network" }).click();
-    await page.waitForURL(/\/networks\/[0-9a-f-]{36}$/);
+    await page.getByTestId("stat-species").waitFor();
     networkPath = new URL(page.url()).pathname;
+    expect(networkPath).toMatch(/\/networks\/[0-9a-f-]{36}$/);
     expect(await page.getByTestId("stat-species").innerText()).toBe("1");
     expect(await page.getByTestId("constant-species").innerText()).toMatch(/A\s*= 2, B\s*= 3/);
     expect(await page.getByTestId("ode-text").allTextContents()).toContain("dX/dt = k1·X^2·A - k2·X^3 - k3·X + k4·B");
@@ -60,7 +61,8 @@ describe.skipIf(!hasApp)("constant species in headless chromium", () => {
     await expect.poll(() => page.getByTestId("grid-status").innerText()).toMatch(/Looks valid/);
     await page.getByLabel(/^Change note/).fill("Stronger feed.");
     await page.getByRole("button", { name: "Save as new version" }).click();
-    await page.waitForURL(/\/versions\?from=1&to=2$/);
+    await page.getByTestId("constants-changed").waitFor();
+    expect(page.url()).toMatch(/\/versions\?from=1&to=2$/);
     expect(await page.getByTestId("constants-changed").innerText()).toContain("A: 2 → 5/2");
     await page.screenshot({ path: `${SHOTS}/03-version-diff.png`, fullPage: true });
   });

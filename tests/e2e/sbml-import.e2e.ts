@@ -48,7 +48,9 @@ describe.skipIf(!hasApp)("SBML import and export in headless chromium", () => {
 
     await page.getByTestId("file-input").setInputFiles({ name: "tank.xml", mimeType: "application/xml", buffer: Buffer.from(HATCHERY) });
     await expect.poll(() => page.getByTestId("grid-row").count()).toBe(2);
-    expect(await page.getByTestId("editor-notices").innerText()).toMatch(/read as SBML[\s\S]*initial concentrations in the file are not part of a network version: Egg = 2/);
+    expect(await page.getByTestId("editor-notices").innerText()).toMatch(/read as SBML/);
+    // The file's initial concentrations are kept with the version, in their own field.
+    expect(await page.getByTestId("initial-input").inputValue()).toBe("Egg = 2, Fry = 0, Feed = 1, Fingerling = 0");
     expect(await page.getByLabel("Reaction, row 2").inputValue()).toBe("Fry + Feed <-> Fingerling");
     expect(await page.getByLabel("Rate value, row 2").inputValue()).toBe("1/2");
     await expect.poll(() => page.getByTestId("grid-status").innerText()).toMatch(/Looks valid/);

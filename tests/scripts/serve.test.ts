@@ -164,6 +164,9 @@ describe("request guards: body limits, NUL characters, security headers", () => 
     });
     expect(multipart.status).toBe(400);
     expect(JSON.parse(multipart.body).error.details.where).toBe("part `file`");
+    // A NUL inside an uploaded file means a binary file: said in one line, located in the file.
+    expect(JSON.parse(multipart.body).error.message).toBe("a.csv: this is not a text file: binary content at byte 11 (0x00, line 2); nothing was saved.");
+    expect(JSON.parse(multipart.body).error.details.problems).toEqual([expect.objectContaining({ row: 2 })]);
     expect((await server.send("/labs/alpha", { method: "POST", headers: { "Content-Type": "application/x-www-form-urlencoded" }, body: "name=fine" })).status).toBe(200);
   });
 

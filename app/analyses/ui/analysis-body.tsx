@@ -1,6 +1,7 @@
 import type { AnalysisPageData } from "~/analyses/page.server";
 import { Assumptions, ResultsView } from "./results-view";
 import { RelationPanel, ScanPanel, TimeCoursePanel } from "./follow-ups";
+import { AnalysedNetworkView } from "./analysed-network-view";
 import { ProgressPanel } from "./progress-panel";
 import { StatusBadge } from "./status";
 
@@ -27,7 +28,7 @@ export function AnalysisBody({ d, canEdit, exportBase, scanCsvBase }: { d: Analy
           {d.job.network.name}, version {d.job.network.version} · engine {d.job.engineVersion}
         </span>
       </div>
-      <dl className="grid gap-x-6 gap-y-1 text-sm sm:grid-cols-2" data-testid="settings">
+      <dl className="grid grid-cols-1 gap-x-6 gap-y-1 text-sm sm:grid-cols-2" data-testid="settings">
         <div>
           <dt className="inline text-muted">Order: </dt>
           <dd className="inline font-mono">{p.order ? p.order.join(" > ") : "suggested"}{p.free.length > 0 ? `; free: ${p.free.join(", ")}` : ""}</dd>
@@ -61,12 +62,20 @@ export function AnalysisBody({ d, canEdit, exportBase, scanCsvBase }: { d: Analy
               </a>
             ))}
           </div>
-          <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_18rem]">
+          <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,1fr)_18rem]">
             <ResultsView view={d.view} result={d.result} />
             <div className="lg:sticky lg:top-4 lg:self-start">
               <Assumptions numeric={d.numeric} />
             </div>
           </div>
+          <details className="rounded-md border border-line bg-surface px-4 py-2 text-sm" data-testid="analysed-network" open={!canEdit}>
+            <summary className="cursor-pointer font-medium">
+              Reactions and rate values analysed ({d.network.reactions.length} reaction{d.network.reactions.length === 1 ? "" : "s"}, version {d.job.network.version})
+            </summary>
+            <div className="mt-2">
+              <AnalysedNetworkView network={d.network} />
+            </div>
+          </details>
           <Part id="relation" title="Relation test" help="Does an expression vanish at every positive steady state? Decided exactly by ideal membership in the saturated steady-state ideal; if not, the remainder is shown.">
             <RelationPanel jobs={d.relations} canEdit={canEdit} />
           </Part>
@@ -74,7 +83,7 @@ export function AnalysisBody({ d, canEdit, exportBase, scanCsvBase }: { d: Analy
             <ScanPanel jobs={d.scans} canEdit={canEdit} rates={d.rates} species={d.species} csvHref={(id) => `${scanCsvBase}/scan-${id}.csv`} available={d.numeric} />
           </Part>
           <Part id="time-course" title="Time course" help="Simulate the mass-action ODEs from the initial concentrations with a stiff integrator and see whether the trajectory settles on a computed steady state.">
-            <TimeCoursePanel jobs={d.timeCourses} canEdit={canEdit} steadyStates={d.result.steadyStates ?? []} available={d.numeric} />
+            <TimeCoursePanel jobs={d.timeCourses} canEdit={canEdit} steadyStates={d.result.steadyStates ?? []} available={d.numeric} start={d.params.initial} />
           </Part>
         </>
       )}

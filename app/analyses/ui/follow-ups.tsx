@@ -5,6 +5,7 @@ import { Problems } from "./problems";
 import { ScanChart } from "./scan-chart";
 import { StatusBadge, isUnfinished } from "./status";
 import { TimeCourseChart } from "./time-course-chart";
+import { formatDateTime } from "~/shared/dates";
 
 type Child = JobJson & { result?: unknown };
 const field = "rounded-md border border-line bg-surface px-2 py-1 text-sm";
@@ -16,7 +17,7 @@ function JobLine({ job, canEdit, children }: { job: Child; canEdit: boolean; chi
     <li className="space-y-2 rounded-md border border-line bg-surface px-4 py-3" data-testid={`${job.kind}-job`}>
       <div className="flex flex-wrap items-center gap-3 text-sm">
         <StatusBadge status={job.status} />
-        <span className="text-muted">{new Date(job.createdAt).toISOString().slice(0, 16).replace("T", " ")}
+        <span className="text-muted">{formatDateTime(job.createdAt)}
           {job.startedBy ? ` · ${job.startedBy}` : ""}</span>
         {isUnfinished(job.status) && <span className="text-muted">{String((job.progress as { message?: string }).message ?? "")}</span>}
         {isUnfinished(job.status) && canEdit && (
@@ -149,7 +150,20 @@ export function ScanPanel({ jobs, canEdit, rates, species, csvHref, available }:
   );
 }
 
-export function TimeCoursePanel({ jobs, canEdit, steadyStates, available }: { jobs: Child[]; canEdit: boolean; steadyStates: StoredSteadyState[]; available: boolean }) {
+export function TimeCoursePanel({
+  jobs,
+  canEdit,
+  steadyStates,
+  available,
+  start = null,
+}: {
+  jobs: Child[];
+  canEdit: boolean;
+  steadyStates: StoredSteadyState[];
+  available: boolean;
+  /** The analysis' initial concentrations (the version's stored ones unless changed), filled in as the default start. */
+  start?: Record<string, string> | null;
+}) {
   return (
     <div className="space-y-3">
       {canEdit && available && (
@@ -159,8 +173,8 @@ export function TimeCoursePanel({ jobs, canEdit, steadyStates, available }: { jo
             <input name="endTime" className={`${field} w-28`} defaultValue="50" />
           </label>
           <label className="flex-1 space-y-0.5 text-sm">
-            <span className="block">Initial concentrations (empty: the analysis' own)</span>
-            <input name="initial" className={`${field} w-full font-mono`} placeholder="e.g. X=2.5" />
+            <span className="block">Initial concentrations (filled in: the analysis' own; empty: the same)</span>
+            <input name="initial" className={`${field} w-full font-mono`} placeholder="e.g. X=2.5" defaultValue={start ? Object.entries(start).map(([k, v]) => `${k}=${v}`).join(", ") : ""} />
           </label>
         </StartForm>
       )}

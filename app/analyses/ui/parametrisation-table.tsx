@@ -107,7 +107,7 @@ export function ParametrisationTable({ rows }: { rows: ParametrisationRow[] }) {
             {visible.map((row) => (
               <tr key={row.id} className="border-b border-line align-top last:border-0" data-testid="parametrisation-row">
                 {row.getAllCells().map((cell) => (
-                  <td key={cell.id} className="px-3 py-2">
+                  <td key={cell.id} className="px-3 py-2 [&_.katex]:whitespace-nowrap">
                     <table.FlexRender cell={cell} />
                   </td>
                 ))}

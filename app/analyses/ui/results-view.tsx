@@ -1,5 +1,6 @@
 import type { ResultView } from "~/analyses/present";
-import type { AnalysisResult, MultistationarityView } from "~/analyses/result-types";
+import type { MultistationarityJson } from "@domain/steady-state/result";
+import type { AnalysisResult } from "~/analyses/result-types";
 import { answerOf, type Answer } from "~/analyses/answer";
 import { ParametrisationTable } from "./parametrisation-table";
 import { Tex } from "./tex";
@@ -197,14 +198,14 @@ export function ResultsView({ view, result }: { view: ResultView; result: Analys
   );
 }
 
-const VERDICT_TEXT: Record<MultistationarityView["verdict"], string> = {
+const VERDICT_TEXT: Record<MultistationarityJson["verdict"], string> = {
   multistationary: "Yes: for some positive rate constants and totals there are two or more positive steady states in one class.",
   monostationary: "No: for every choice of positive rate constants and totals each class holds at most one positive steady state.",
   undecided: "Undecided: no criterion applied and no witness was found.",
 };
 
 /** The verdict for "some constants" (not the constants of this run), with its method, witness and assumptions. */
-function Multistationarity({ m }: { m: MultistationarityView }) {
+function Multistationarity({ m }: { m: MultistationarityJson }) {
   return (
     <div className="space-y-2 text-sm" data-testid="multistationarity">
       <p>

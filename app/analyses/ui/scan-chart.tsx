@@ -1,11 +1,44 @@
-import { useRef, useState } from "react";
+import { useState } from "react";
 import { CartesianGrid, Line, LineChart, ReferenceArea, ReferenceDot, ReferenceLine, Tooltip, XAxis, YAxis } from "recharts";
+import { ChartFigure, type LegendEntry } from "~/charts/chart-figure";
+import { fileStem } from "~/charts/plot-table";
 import { exactBranches, scanBranches } from "~/analyses/scan-branches";
+import { exactBranchTable, exactCountTable, scanBranchTable, scanCountTable, scanParameterName } from "~/analyses/plot-tables";
 import type { ScanResult } from "~/analyses/result-types";
-import { downloadPng, downloadSvg } from "./download-svg";
 
 const COLOURS = ["#2c6b66", "#a86a12", "#6b4c9a", "#9e3a36", "#3a7045", "#1f4f4b"];
+const SHADE = "#f8ecd6";
+const FOLD = "#1b1b18";
 const fmt = (v: number) => (Math.abs(v) >= 1000 || (Math.abs(v) < 0.01 && v !== 0) ? v.toExponential(2) : Number(v.toPrecision(3)).toString());
+
+function branchLegend(multistable: boolean, folds: boolean): LegendEntry[] {
+  const legend: LegendEntry[] = [
+    { label: "stable", colour: COLOURS[0]!, kind: "line" },
+    { label: "unstable", colour: COLOURS[3]!, kind: "line", dash: "6 4" },
+  ];
+  if (folds) legend.push({ label: "fold point", colour: FOLD, kind: "dot" });
+  if (multistable) legend.push({ label: "several positive steady states", colour: SHADE, kind: "area" });
+  return legend;
+}
+const COUNT_LEGEND: LegendEntry[] = [{ label: "number of positive steady states", colour: COLOURS[2]!, kind: "line" }];
+
+function SpeciesPicker({ scan, species, setSpecies, csvHref }: { scan: ScanResult; species: string; setSpecies: (s: string) => void; csvHref: string }) {
+  return (
+    <div className="flex flex-wrap items-center gap-3 text-sm">
+      <label className="inline-flex items-center gap-2">
+        Species
+        <select className="rounded-md border border-line bg-surface px-2 py-1" value={species} onChange={(e) => setSpecies(e.target.value)}>
+          {scan.species.map((s) => (
+            <option key={s}>{s}</option>
+          ))}
+        </select>
+      </label>
+      <a href={csvHref} className="ml-auto text-accent-strong hover:underline" download>
+        All steady states, every species (CSV)
+      </a>
+    </div>
+  );
+}
 
 /**
  * A scan's positive steady states of one species against the parameter: stable branches solid,
@@ -13,63 +46,42 @@ const fmt = (v: number) => (Math.abs(v) >= 1000 || (Math.abs(v) < 0.01 && v !== 
  */
 export function ScanChart({ scan, csvHref }: { scan: ScanResult; csvHref: string }) {
   const [species, setSpecies] = useState(scan.species[0] ?? "");
-  const ref = useRef<HTMLDivElement>(null);
   if (scan.exact) return <ExactScanChart scan={scan} csvHref={csvHref} species={species} setSpecies={setSpecies} />;
   const chart = scanBranches(scan, species);
   const log = scan.spacing === "log";
-  const xAxis = <XAxis dataKey="x" type="number" scale={log ? "log" : "linear"} domain={["dataMin", "dataMax"]} tickFormatter={fmt} allowDataOverflow />;
-  const name = scan.parameter.kind === "rate" ? scan.parameter.name : `${scan.parameter.name}(0)`;
+  const name = scanParameterName(scan);
+  const xAxis = <XAxis dataKey="x" type="number" scale={log ? "log" : "linear"} domain={["dataMin", "dataMax"]} tickFormatter={fmt} allowDataOverflow label={{ value: name, position: "insideBottom", offset: -15 }} />;
   return (
     <div className="space-y-2" data-testid="scan-chart">
-      <div className="flex flex-wrap items-center gap-3 text-sm">
-        <label className="inline-flex items-center gap-2">
-          Species
-          <select className="rounded-md border border-line bg-surface px-2 py-1" value={species} onChange={(e) => setSpecies(e.target.value)}>
-            {scan.species.map((s) => (
-              <option key={s}>{s}</option>
-            ))}
-          </select>
-        </label>
-        <span className="text-muted">
-          <span className="mr-1 inline-block w-6 border-t-2 border-accent align-middle" /> stable
-          <span className="ml-3 mr-1 inline-block w-6 border-t-2 border-dashed border-danger align-middle" /> unstable
-        </span>
-        <a href={csvHref} className="ml-auto text-accent-strong hover:underline" download>
-          Plot data (CSV)
-        </a>
-        <button type="button" className="text-accent-strong hover:underline" onClick={() => downloadSvg(ref.current, `scan-${scan.parameter.name}-${species}.svg`)}>
-          Chart (SVG)
-        </button>
-        <button type="button" className="text-accent-strong hover:underline" onClick={() => downloadPng(ref.current, `scan-${scan.parameter.name}-${species}.png`)}>
-          Chart (PNG)
-        </button>
-      </div>
+      <SpeciesPicker scan={scan} species={species} setSpecies={setSpecies} csvHref={csvHref} />
       {chart.multistable.length > 0 && (
         <p className="text-sm font-medium text-signal" data-testid="multistable">
           {chart.multistable.map((m) => `${m.count} positive steady states for ${name} from ${fmt(m.from)} to ${fmt(m.to)}`).join("; ")}
         </p>
       )}
-      <div ref={ref} className="overflow-x-auto rounded-md border border-line bg-surface p-2">
-        <LineChart width={760} height={320} data={chart.rows} margin={{ top: 10, right: 20, bottom: 20, left: 10 }}>
+      <ChartFigure name={fileStem("scan", scan.parameter.name, species)} title={`Steady states of ${species} against ${name}`} legend={branchLegend(chart.multistable.length > 0, false)} table={scanBranchTable(scan, species, chart)} testId="scan-branches-figure">
+        <LineChart width={760} height={320} data={chart.rows} margin={{ top: 10, right: 20, bottom: 25, left: 15 }}>
           <CartesianGrid stroke="#eeede6" />
           {xAxis}
-          <YAxis tickFormatter={fmt} label={{ value: species, angle: -90, position: "insideLeft" }} />
+          <YAxis tickFormatter={fmt} label={{ value: species, angle: -90, position: "insideLeft", offset: -5 }} />
           <Tooltip formatter={(v) => (typeof v === "number" ? v.toPrecision(6) : String(v))} labelFormatter={(v) => `${name} = ${fmt(Number(v))}`} />
           {chart.multistable.map((m, i) => (
-            <ReferenceArea key={i} x1={m.from} x2={m.to} fill="#f8ecd6" fillOpacity={0.6} />
+            <ReferenceArea key={i} x1={m.from} x2={m.to} fill={SHADE} fillOpacity={0.6} />
           ))}
           {Array.from({ length: chart.branches }, (_, b) => [
             <Line key={`s${b}`} dataKey={`s${b}`} name={`branch ${b + 1} stable`} stroke={COLOURS[0]} strokeWidth={2} dot={{ r: 2 }} connectNulls={false} isAnimationActive={false} />,
             <Line key={`u${b}`} dataKey={`u${b}`} name={`branch ${b + 1} unstable`} stroke={COLOURS[3]} strokeWidth={2} strokeDasharray="6 4" dot={{ r: 2 }} connectNulls={false} isAnimationActive={false} />,
           ])}
         </LineChart>
-        <LineChart width={760} height={140} data={chart.counts.map((c) => ({ x: c.value, count: c.count }))} margin={{ top: 5, right: 20, bottom: 20, left: 10 }}>
+      </ChartFigure>
+      <ChartFigure name={fileStem("scan-count", scan.parameter.name)} title={`Number of positive steady states against ${name}`} legend={COUNT_LEGEND} table={scanCountTable(scan, chart)} testId="scan-count-figure">
+        <LineChart width={760} height={160} data={chart.counts.map((c) => ({ x: c.value, count: c.count }))} margin={{ top: 5, right: 20, bottom: 25, left: 15 }}>
           <CartesianGrid stroke="#eeede6" />
           {xAxis}
-          <YAxis allowDecimals={false} label={{ value: "count", angle: -90, position: "insideLeft" }} domain={[0, "dataMax"]} />
+          <YAxis allowDecimals={false} label={{ value: "count", angle: -90, position: "insideLeft", offset: -5 }} domain={[0, "dataMax"]} />
           <Line dataKey="count" type="stepAfter" stroke={COLOURS[2]} strokeWidth={2} dot={{ r: 2 }} isAnimationActive={false} />
         </LineChart>
-      </div>
+      </ChartFigure>
       {scan.exactNote && <p className="text-xs text-muted">{scan.exactNote}</p>}
       {scan.points.some((p) => p.states === null) && (
         <p className="text-xs text-muted">
@@ -88,54 +100,30 @@ const sig = (v: number) => Number(v.toPrecision(10)).toString();
  * steady states shaded; below it the exact count on each window.
  */
 function ExactScanChart({ scan, csvHref, species, setSpecies }: { scan: ScanResult; csvHref: string; species: string; setSpecies: (s: string) => void }) {
-  const ref = useRef<HTMLDivElement>(null);
   const exact = scan.exact!;
   const chart = exactBranches(exact, species);
   const log = scan.spacing === "log" && exact.curve.every((p) => p.value > 0);
   const xs = exact.curve.map((p) => p.value);
   const domain: [number, number] = [Math.min(...xs), Math.max(...xs)];
-  const xAxis = <XAxis dataKey="x" type="number" scale={log ? "log" : "linear"} domain={domain} tickFormatter={fmt} allowDataOverflow allowDuplicatedCategory={false} />;
-  const name = scan.parameter.kind === "rate" ? scan.parameter.name : `${scan.parameter.name}(0)`;
+  const name = scanParameterName(scan);
+  const xAxis = <XAxis dataKey="x" type="number" scale={log ? "log" : "linear"} domain={domain} tickFormatter={fmt} allowDataOverflow allowDuplicatedCategory={false} label={{ value: name, position: "insideBottom", offset: -15 }} />;
   const counts = exact.windows.flatMap((w) => [{ x: Math.max(w.from, domain[0]), count: w.count }, { x: Math.min(w.to, domain[1]), count: w.count }]);
   return (
     <div className="space-y-2" data-testid="scan-chart" data-exact="true">
-      <div className="flex flex-wrap items-center gap-3 text-sm">
-        <label className="inline-flex items-center gap-2">
-          Species
-          <select className="rounded-md border border-line bg-surface px-2 py-1" value={species} onChange={(e) => setSpecies(e.target.value)}>
-            {scan.species.map((s) => (
-              <option key={s}>{s}</option>
-            ))}
-          </select>
-        </label>
-        <span className="text-muted">
-          <span className="mr-1 inline-block w-6 border-t-2 border-accent align-middle" /> stable
-          <span className="ml-3 mr-1 inline-block w-6 border-t-2 border-dashed border-danger align-middle" /> unstable
-          <span className="ml-3 mr-1 inline-block h-2 w-2 rounded-full bg-ink align-middle" /> fold point
-        </span>
-        <a href={csvHref} className="ml-auto text-accent-strong hover:underline" download>
-          Plot data (CSV)
-        </a>
-        <button type="button" className="text-accent-strong hover:underline" onClick={() => downloadSvg(ref.current, `scan-${scan.parameter.name}-${species}.svg`)}>
-          Chart (SVG)
-        </button>
-        <button type="button" className="text-accent-strong hover:underline" onClick={() => downloadPng(ref.current, `scan-${scan.parameter.name}-${species}.png`)}>
-          Chart (PNG)
-        </button>
-      </div>
+      <SpeciesPicker scan={scan} species={species} setSpecies={setSpecies} csvHref={csvHref} />
       {chart.multistable.length > 0 && (
         <p className="text-sm font-medium text-signal" data-testid="multistable">
           {chart.multistable.map((m) => `${m.count} positive steady states for ${sig(m.from)} < ${name} < ${sig(m.to)}`).join("; ")} (exact window between fold points)
         </p>
       )}
-      <div ref={ref} className="overflow-x-auto rounded-md border border-line bg-surface p-2">
-        <LineChart width={760} height={320} margin={{ top: 10, right: 20, bottom: 20, left: 10 }}>
+      <ChartFigure name={fileStem("scan", scan.parameter.name, species)} title={`Steady states of ${species} against ${name}`} legend={branchLegend(chart.multistable.length > 0, chart.foldMarkers.length > 0)} table={exactBranchTable(scan, species, chart)} testId="scan-branches-figure">
+        <LineChart width={760} height={320} margin={{ top: 10, right: 20, bottom: 25, left: 15 }}>
           <CartesianGrid stroke="#eeede6" />
           {xAxis}
-          <YAxis dataKey="y" type="number" tickFormatter={fmt} label={{ value: species, angle: -90, position: "insideLeft" }} domain={["auto", "auto"]} />
+          <YAxis dataKey="y" type="number" tickFormatter={fmt} label={{ value: species, angle: -90, position: "insideLeft", offset: -5 }} domain={["auto", "auto"]} />
           <Tooltip formatter={(v) => (typeof v === "number" ? v.toPrecision(6) : String(v))} labelFormatter={(v) => `${name} = ${fmt(Number(v))}`} />
           {chart.multistable.map((m, i) => (
-            <ReferenceArea key={`w${i}`} x1={Math.max(m.from, domain[0])} x2={Math.min(m.to, domain[1])} fill="#f8ecd6" fillOpacity={0.6} />
+            <ReferenceArea key={`w${i}`} x1={Math.max(m.from, domain[0])} x2={Math.min(m.to, domain[1])} fill={SHADE} fillOpacity={0.6} />
           ))}
           {exact.folds.map((f, i) => (
             <ReferenceLine key={`f${i}`} x={f.value} stroke="#8a8778" strokeDasharray="2 3" />
@@ -160,17 +148,19 @@ function ExactScanChart({ scan, csvHref, species, setSpecies }: { scan: ScanResu
               x={m.x}
               y={m.y}
               r={4}
-              shape={(p: { cx?: number; cy?: number }) => <circle cx={p.cx} cy={p.cy} r={4.5} fill="#1b1b18" stroke="#ffffff" strokeWidth={1.5} data-testid="fold-marker" />}
+              shape={(p: { cx?: number; cy?: number }) => <circle cx={p.cx} cy={p.cy} r={4.5} fill={FOLD} stroke="#ffffff" strokeWidth={1.5} data-testid="fold-marker" />}
             />
           ))}
         </LineChart>
-        <LineChart width={760} height={140} data={counts} margin={{ top: 5, right: 20, bottom: 20, left: 10 }}>
+      </ChartFigure>
+      <ChartFigure name={fileStem("scan-count", scan.parameter.name)} title={`Number of positive steady states against ${name} (exact)`} legend={COUNT_LEGEND} table={exactCountTable(scan)} testId="scan-count-figure">
+        <LineChart width={760} height={160} data={counts} margin={{ top: 5, right: 20, bottom: 25, left: 15 }}>
           <CartesianGrid stroke="#eeede6" />
           {xAxis}
-          <YAxis allowDecimals={false} label={{ value: "count", angle: -90, position: "insideLeft" }} domain={[0, "dataMax"]} />
+          <YAxis allowDecimals={false} label={{ value: "count", angle: -90, position: "insideLeft", offset: -5 }} domain={[0, "dataMax"]} />
           <Line dataKey="count" type="linear" stroke={COLOURS[2]} strokeWidth={2} dot={false} isAnimationActive={false} />
         </LineChart>
-      </div>
+      </ChartFigure>
       <div className="text-sm" data-testid="fold-points">
         {exact.folds.length === 0 ? (
           <p className="text-muted">No fold point in this range: the number of positive steady states is the same throughout.</p>

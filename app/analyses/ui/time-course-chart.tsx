@@ -1,33 +1,28 @@
-import { useRef } from "react";
-import { CartesianGrid, Legend, Line, LineChart, ReferenceLine, Tooltip, XAxis, YAxis } from "recharts";
+import { CartesianGrid, Line, LineChart, ReferenceLine, Tooltip, XAxis, YAxis } from "recharts";
+import { ChartFigure, type LegendEntry } from "~/charts/chart-figure";
 import type { TimeCourseResult } from "~/analyses/result-types";
-import { downloadPng, downloadSvg } from "./download-svg";
+import { timeCourseTable } from "~/analyses/plot-tables";
 
 const COLOURS = ["#2c6b66", "#a86a12", "#6b4c9a", "#9e3a36", "#3a7045", "#1f4f4b", "#56646c", "#b05a8a"];
+const STEADY_STATE_GREY = "#56646c";
 
 /** Trajectories of every species, with the computed steady states of the class as thin dashed lines in the species' colour. */
 export function TimeCourseChart({ course, steadyStates }: { course: TimeCourseResult; steadyStates: { concentrations: Record<string, number>; verdict: string }[] }) {
-  const ref = useRef<HTMLDivElement>(null);
-  const rows = course.t.map((t, i) => Object.fromEntries([["t", t], ...course.species.map((s, j) => [s, course.y[i]![j]!])]));
+  const table = timeCourseTable(course);
+  const legend: LegendEntry[] = course.species.map((s, j) => ({ label: s, colour: COLOURS[j % COLOURS.length]!, kind: "line" }));
+  if (steadyStates.some((s) => s.verdict === "stable")) legend.push({ label: "stable steady state", colour: STEADY_STATE_GREY, kind: "line", dash: "2 3" });
+  if (steadyStates.some((s) => s.verdict !== "stable")) legend.push({ label: "unstable steady state", colour: STEADY_STATE_GREY, kind: "line", dash: "8 4" });
   return (
     <div className="space-y-2" data-testid="time-course-chart">
-      <div className="flex items-center gap-3 text-sm text-muted">
-        <span>{course.method}.</span>
-        {course.note && <span className="text-signal">{course.note}</span>}
-        <button type="button" className="ml-auto text-accent-strong hover:underline" onClick={() => downloadSvg(ref.current, "time-course.svg")}>
-          Chart (SVG)
-        </button>
-        <button type="button" className="text-accent-strong hover:underline" onClick={() => downloadPng(ref.current, "time-course.png")}>
-          Chart (PNG)
-        </button>
-      </div>
-      <div ref={ref} className="overflow-x-auto rounded-md border border-line bg-surface p-2">
-        <LineChart width={760} height={320} data={rows} margin={{ top: 10, right: 20, bottom: 20, left: 10 }}>
+      <p className="text-sm text-muted">
+        {course.method}.{course.note && <span className="ml-2 text-signal">{course.note}</span>}
+      </p>
+      <ChartFigure name="time-course" title="Concentrations over time" legend={legend} table={table} testId="time-course-figure">
+        <LineChart width={760} height={320} data={table.rows} margin={{ top: 10, right: 20, bottom: 25, left: 15 }}>
           <CartesianGrid stroke="#eeede6" />
-          <XAxis dataKey="t" type="number" domain={[0, course.endTime]} tickFormatter={(v) => Number(v).toPrecision(3)} label={{ value: "time", position: "insideBottom", offset: -10 }} />
-          <YAxis tickFormatter={(v) => Number(v).toPrecision(3)} />
+          <XAxis dataKey="time" type="number" domain={[0, course.endTime]} tickFormatter={(v) => Number(v).toPrecision(3)} label={{ value: "time", position: "insideBottom", offset: -15 }} />
+          <YAxis tickFormatter={(v) => Number(v).toPrecision(3)} label={{ value: "concentration", angle: -90, position: "insideLeft", offset: -5 }} />
           <Tooltip formatter={(v) => (typeof v === "number" ? v.toPrecision(6) : String(v))} labelFormatter={(v) => `t = ${Number(v).toPrecision(4)}`} />
-          <Legend verticalAlign="top" />
           {course.species.map((s, j) => (
             <Line key={s} dataKey={s} stroke={COLOURS[j % COLOURS.length]} dot={false} strokeWidth={2} isAnimationActive={false} />
           ))}
@@ -37,8 +32,10 @@ export function TimeCourseChart({ course, steadyStates }: { course: TimeCourseRe
             )),
           )}
         </LineChart>
-      </div>
-      <p className="text-xs text-muted">Dotted lines: stable steady states of the analysis' class; long dashes: unstable ones. A time course from other initial concentrations may lie in another class (other totals).</p>
+      </ChartFigure>
+      <p className="text-xs text-muted">
+        Time and concentrations are in the units the rate constants and initial concentrations were given in. Dotted lines: stable steady states of the analysis' class, in each species' colour; long dashes: unstable ones. A time course from other initial concentrations may lie in another class (other totals).
+      </p>
     </div>
   );
 }

@@ -6,7 +6,7 @@ export function DiffView({ diff }: { diff: NetworkDiff }) {
   const rx = (r: { reactant: string; product: string; rate: string; rateValue?: string; held?: Record<string, number> }) =>
     `${r.reactant} → ${r.product}  (${r.rate}${r.rateValue ? ` = ${r.rateValue}` : ""}${r.held ? `, times constant ${Object.entries(r.held).map(([s, c]) => (c === 1 ? s : `${s}^${c}`)).join("·")}` : ""})`;
   return (
-    <div className="grid gap-4 md:grid-cols-2" data-testid="diff">
+    <div className="grid grid-cols-1 gap-4 md:grid-cols-2" data-testid="diff">
       <Group title="Species added" tone="ok" items={diff.speciesAdded} testId="species-added" />
       <Group title="Species removed" tone="danger" items={diff.speciesRemoved} testId="species-removed" />
       <Group title="Reactions added" tone="ok" items={diff.reactionsAdded.map(rx)} testId="reactions-added" />
@@ -17,6 +17,11 @@ export function DiffView({ diff }: { diff: NetworkDiff }) {
       {(diff.constantsChanged ?? []).length > 0 ? (
         <div className="md:col-span-2">
           <Group title="Constant species" tone="signal" items={diff.constantsChanged} testId="constants-changed" />
+        </div>
+      ) : null}
+      {(diff.initialChanged ?? []).length > 0 ? (
+        <div className="md:col-span-2">
+          <Group title="Initial values" tone="signal" items={diff.initialChanged} testId="initial-changed" />
         </div>
       ) : null}
     </div>

@@ -1,6 +1,6 @@
 import { useMemo, useRef, useState } from "react";
 import { Form, useNavigation } from "react-router";
-import { formatProblem, tryParseNetworkCsv, type NetworkFileProblem } from "@domain/network/index";
+import { decodeNetworkFile, formatProblem, tryParseNetworkCsv, type NetworkFileProblem } from "@domain/network/index";
 import { checkGrid, csvToGrid, emptyRow, MAX_CSV_BYTES, MAX_CSV_LABEL, moveRow, type GridRow } from "../grid";
 import type { DemoNetwork } from "../demos";
 import { importFormat, importNetworkText } from "../import-file";
@@ -32,6 +32,7 @@ export function NetworkEditor({
   mode,
   initialRows,
   initialConstants = "",
+  initialValues = "",
   details,
   demos = [],
   failure,
@@ -40,6 +41,8 @@ export function NetworkEditor({
   initialRows: GridRow[];
   /** Constant species as written after `# constant:`, e.g. `A = 2, ATP`. */
   initialConstants?: string;
+  /** Initial concentrations as written after `# initial:`, e.g. `X = 1, Y = 1/2`. */
+  initialValues?: string;
   details?: { name: string; description: string; tags: string };
   demos?: DemoNetwork[];
   failure?: EditorFailure | null;
@@ -51,7 +54,8 @@ export function NetworkEditor({
   const [dragging, setDragging] = useState(false);
   const fileInput = useRef<HTMLInputElement>(null);
   const [constants, setConstants] = useState(initialConstants);
-  const check = useMemo(() => checkGrid(rows, constants), [rows, constants]);
+  const [initial, setInitial] = useState(initialValues);
+  const check = useMemo(() => checkGrid(rows, constants, initial), [rows, constants, initial]);
   const blank = rows.every((r) => GRID_COLUMNS.every((c) => r[c.key].trim() === ""));
   const navigation = useNavigation();
   const saving = navigation.state === "submitting";
@@ -72,7 +76,14 @@ export function NetworkEditor({
       setNotices([`${file.name} is ${Math.ceil(file.size / 1024)} KB; the limit is ${MAX_CSV_LABEL}.`]);
       return;
     }
-    const text = await file.text();
+    // Bytes first: a binary file or another encoding gets one located line, and the grid stays as it was.
+    const decoded = decodeNetworkFile(new Uint8Array(await file.arrayBuffer()));
+    if (!decoded.ok) {
+      setNotices([]);
+      setFileProblems({ name: file.name, problems: [decoded.problem] });
+      return;
+    }
+    const text = decoded.text;
     const format = importFormat(file.name, file.type, text);
     if (format !== "csv") {
       // SBML or a reaction list: read in full first; a refused file leaves the grid as it was
@@ -83,15 +94,25 @@ export function NetworkEditor({
         setFileProblems({ name: file.name, problems: r.problems, reactions: r.reactions });
         return;
       }
-      edit(() => csvToGrid(r.csv).rows.map((row) => ({ ...row, sourceLine: undefined })));
+      const read = csvToGrid(r.csv);
+      edit(() => read.rows.map((row) => ({ ...row, sourceLine: undefined })));
+      setConstants(read.constants);
+      setInitial(read.initial);
       setNotices([`${file.name} read as ${format === "sbml" ? "SBML" : "a reaction list"}.`, ...r.notes]);
       setFileProblems(null);
       return;
     }
     const loaded = csvToGrid(text);
+    if (loaded.dropped.length > 0) {
+      // Loading would lose these cells (rate names under an unknown column, say): refuse, and name them.
+      setNotices([`Nothing was loaded from ${file.name}: the grid has no place for some of its data. Rename or remove the columns below and upload it again.`]);
+      setFileProblems({ name: file.name, problems: loaded.dropped });
+      return;
+    }
     const parsed = tryParseNetworkCsv(text);
     edit(() => loaded.rows);
     setConstants(loaded.constants);
+    setInitial(loaded.initial);
     setNotices(loaded.notices);
     setFileProblems({ name: file.name, problems: parsed.ok ? [] : parsed.problems });
   }
@@ -103,7 +124,10 @@ export function NetworkEditor({
       setFileProblems({ name: "Pasted reactions", problems: r.problems });
       return;
     }
-    edit(() => csvToGrid(r.csv).rows.map((row) => ({ ...row, sourceLine: undefined })));
+    const read = csvToGrid(r.csv);
+    edit(() => read.rows.map((row) => ({ ...row, sourceLine: undefined })));
+    setConstants(read.constants);
+    setInitial(read.initial);
     setNotices([]);
     setFileProblems(null);
   }
@@ -112,6 +136,7 @@ export function NetworkEditor({
     const loaded = csvToGrid(demo.csv);
     edit(() => loaded.rows.map((r) => ({ ...r, sourceLine: undefined })));
     setConstants(loaded.constants);
+    setInitial(loaded.initial);
     setNotices([]);
     setFileProblems(null);
   }
@@ -126,7 +151,7 @@ export function NetworkEditor({
       )}
 
       {mode === "create" && details && (
-        <fieldset className="grid gap-4 md:grid-cols-2">
+        <fieldset className="grid grid-cols-1 gap-4 md:grid-cols-2">
           <label className="space-y-1 text-sm font-medium">
             Name
             <input name="name" defaultValue={details.name} required maxLength={200} className={inputCls} aria-invalid={Boolean(fields.name)} />
@@ -144,7 +169,7 @@ export function NetworkEditor({
         </fieldset>
       )}
 
-      <div className="grid gap-4 md:grid-cols-[minmax(0,1fr)_auto]">
+      <div className="grid grid-cols-1 gap-4 md:grid-cols-[minmax(0,1fr)_auto]">
         <div
           className={`flex flex-col items-center justify-center gap-2 rounded-card border-2 border-dashed px-6 py-5 text-center text-sm ${dragging ? "border-accent bg-accent-soft" : "border-line bg-surface"}`}
           onDragOver={(e) => {
@@ -168,7 +193,7 @@ export function NetworkEditor({
             .
           </p>
           <p className="text-xs text-muted">
-            CSV with a header row (<code>reaction,rate,reverse_rate,rate_value,reverse_rate_value,label</code>), comma or semicolon, and an optional <code># constant: A = 2, B</code> line for species held constant; SBML (<code>.xml</code>, <code>.sbml</code>,
+            CSV with a header row (<code>reaction,rate,reverse_rate,rate_value,reverse_rate_value,label</code>), comma or semicolon, an optional <code># constant: A = 2, B</code> line for species held constant and an optional <code># initial: S = 10, E = 1</code> line for initial concentrations; SBML (<code>.xml</code>, <code>.sbml</code>,
             mass-action rate laws); or a reaction list (<code>.txt</code>). At most {MAX_CSV_LABEL}. It is read here in your browser first; nothing is saved until you press Save.
           </p>
           <input
@@ -381,6 +406,37 @@ export function NetworkEditor({
         {check.constants.length > 0 && (
           <ul className="text-xs text-danger" data-testid="constants-problems">
             {check.constants.map((p, i) => (
+              <li key={i}>
+                {p.message}
+                {p.expected ? ` — expected ${p.expected}` : ""}
+              </li>
+            ))}
+          </ul>
+        )}
+      </div>
+
+      <div className="space-y-1">
+        <label className="block space-y-1 text-sm font-medium">
+          Initial concentrations
+          <input
+            aria-describedby="initial-hint"
+            value={initial}
+            onChange={(e) => {
+              setInitial(e.target.value);
+              setEditedAfter(failure);
+            }}
+            placeholder="S = 10, E = 1, C = 0"
+            aria-invalid={check.initial.length > 0}
+            className={`${inputCls} ${check.initial.length > 0 ? "border-danger" : ""}`}
+            data-testid="initial-input"
+          />
+        </label>
+        <p id="initial-hint" className="text-xs text-muted">
+          Stored with the version as a <code># initial: S = 10, E = 1</code> line: the starting point that analyses and time courses offer (you can still change it there). Values ≥ 0, decimals or fractions; held species take their value from the field above.
+        </p>
+        {check.initial.length > 0 && (
+          <ul className="text-xs text-danger" data-testid="initial-problems">
+            {check.initial.map((p, i) => (
               <li key={i}>
                 {p.message}
                 {p.expected ? ` — expected ${p.expected}` : ""}

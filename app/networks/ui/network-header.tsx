@@ -1,6 +1,7 @@
 import { Link } from "react-router";
 import type { NetworkPageData } from "../pages.server";
 import type { NetworkActionResult } from "../actions.server";
+import { formatDateTime } from "~/shared/dates";
 
 export function NetworkHeader({ data: d, result }: { data: NetworkPageData; result?: NetworkActionResult }) {
   const base = `/labs/${d.lab.slug}/networks/${d.network.id}`;
@@ -38,7 +39,7 @@ export function NetworkHeader({ data: d, result }: { data: NetworkPageData; resu
             </div>
           )}
           <p className="text-sm" data-testid="version-line">
-            Version {d.version.number} of {d.latestNumber} · {d.version.author ?? "former member"} · {d.version.createdAt.slice(0, 16).replace("T", " ")} UTC
+            Version {d.version.number} of {d.latestNumber} · {d.version.author ?? (d.lab.isPublic ? "worked example" : "former member")} · {formatDateTime(d.version.createdAt)}
             {d.version.changeNote && <span className="text-muted"> — {d.version.changeNote}</span>}
           </p>
           <p className="font-mono text-xs text-faint" title="SHA-256 of the stored CSV">

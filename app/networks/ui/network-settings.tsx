@@ -11,7 +11,7 @@ export function NetworkSettings({ network, canDelete, result }: { network: Netwo
       <h2 id="settings-title" className="text-lg font-semibold">
         Details
       </h2>
-      <Form method="post" className="grid max-w-3xl gap-3 md:grid-cols-2" key={network.updatedAt}>
+      <Form method="post" className="grid grid-cols-1 max-w-3xl gap-3 md:grid-cols-2" key={network.updatedAt}>
         <input type="hidden" name="intent" value="details" />
         <label className="space-y-1 text-sm font-medium">
           Name

@@ -15,6 +15,7 @@ import {
   useTable,
   type FilterFn,
 } from "@tanstack/react-table";
+import { formatDateTime } from "~/shared/dates";
 
 /** One line of the lab's network list (plain JSON from the loader). */
 export interface NetworkTableRow {
@@ -100,7 +101,7 @@ const columns = column.columns([
     sortFn: "alphanumeric",
     cell: (info) => (
       <span className="whitespace-nowrap text-muted">
-        {info.getValue().slice(0, 16).replace("T", " ")} · v{info.row.original.version}
+        {formatDateTime(info.getValue())} · v{info.row.original.version}
       </span>
     ),
   }),

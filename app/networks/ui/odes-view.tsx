@@ -1,13 +1,14 @@
 import "katex/dist/katex.min.css";
+import type { SpeciesOde } from "@domain/steady-state/ode-terms";
 import { katexHtml } from "~/components/render-cache";
-import { odesAlignedLatex, odeToText, type SpeciesOde } from "../odes";
+import { odesAlignedLatex, odeToText } from "../odes";
 
 /**
  * The ODEs typeset by KaTeX in one aligned block (fonts come from node_modules through Vite; no
  * CDN). Rendered to an HTML+MathML string, the same on the server and in the browser; the
  * plain-text forms follow for copying and screen readers. The HTML is remembered by formula.
  */
-export function OdesView({ odes }: { odes: SpeciesOde[] }) {
+export function OdesView({ odes }: { odes: readonly SpeciesOde[] }) {
   const html = katexHtml(odesAlignedLatex(odes), true);
   return (
     <div data-testid="odes">

@@ -1,18 +1,29 @@
-/** A page section with its plain-language help beside it (below it on narrow screens). */
+/**
+ * One part of the evidence under the verdict card: a title, the content, and its plain-language
+ * help folded away under "What this means" (open it when the term is new).
+ */
 export function Section({ id, title, help, children }: { id: string; title: string; help: string; children: React.ReactNode }) {
   return (
-    <section id={id} aria-labelledby={`${id}-title`} className="grid gap-4 border-t border-line pt-6 lg:grid-cols-[minmax(0,1fr)_18rem]">
-      <div className="min-w-0 space-y-3">
+    <section id={id} aria-labelledby={`${id}-title`} className="min-w-0 scroll-mt-4 space-y-3 border-t border-line pt-5">
+      <div className="flex flex-wrap items-baseline justify-between gap-x-4 gap-y-1">
         <h2 id={`${id}-title`} className="text-lg font-semibold tracking-tight">
           {title}
         </h2>
-        {children}
       </div>
-      <aside className="self-start rounded-md bg-sunken px-4 py-3 text-sm leading-relaxed text-muted" aria-label={`About ${title.toLowerCase()}`}>
-        <p className="mb-1 text-xs font-semibold uppercase tracking-wide text-faint">What this means</p>
-        {renderCode(help)}
-      </aside>
+      <Help text={help} title={title} />
+      {children}
     </section>
+  );
+}
+
+export function Help({ text, title }: { text: string; title: string }) {
+  return (
+    <details className="group text-sm">
+      <summary className="cursor-pointer select-none text-accent-strong hover:underline" aria-label={`What ${title.toLowerCase()} means`}>
+        What this means
+      </summary>
+      <p className="mt-1 max-w-prose rounded-md bg-sunken px-3 py-2 leading-relaxed text-muted">{renderCode(text)}</p>
+    </details>
   );
 }
 
@@ -29,15 +40,15 @@ function renderCode(text: string) {
   );
 }
 
-export function Stat({ label, symbol, value, testId }: { label: string; symbol?: string; value: React.ReactNode; testId?: string }) {
+/** A fact of the at-a-glance list: label left, value right. */
+export function Fact({ label, symbol, value, testId }: { label: string; symbol?: string; value: React.ReactNode; testId?: string }) {
   return (
-    <div className="rounded-md border border-line bg-surface px-4 py-3">
-      <dt className="text-xs uppercase tracking-wide text-muted">
+    <div className="flex items-baseline justify-between gap-3 border-b border-line py-1 last:border-0">
+      <dt className="text-muted">
         {label}
-        {/* Upper-casing would turn δ into Δ, a different symbol. */}
-        {symbol && <span className="ml-1 font-serif text-sm normal-case italic">{symbol}</span>}
+        {symbol && <span className="ml-1 font-serif italic">{symbol}</span>}
       </dt>
-      <dd className="mt-1 text-xl font-semibold tabular-nums" data-testid={testId}>
+      <dd className="font-semibold tabular-nums" data-testid={testId}>
         {value}
       </dd>
     </div>

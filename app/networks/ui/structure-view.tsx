@@ -2,34 +2,49 @@ import type { NetworkStructure, TheoremVerdict } from "@domain/network/index";
 import { lawsAsEquations } from "../conservation-text";
 import { GLOSSARY } from "../glossary";
 import { layoutComplexGraph } from "../graph-layout";
-import { massActionOdes } from "../odes";
+import type { SpeciesOde } from "@domain/steady-state/ode-terms";
+import { speciesRoles } from "../species-roles";
 import { ComplexGraph, classColour } from "./complex-graph";
 import { OdesView } from "./odes-view";
-import { Section, Stat } from "./section";
+import { Fact, Help, Section } from "./section";
 
 const th = "px-3 py-1.5 text-left text-xs font-medium uppercase tracking-wide text-muted";
 const td = "px-3 py-1.5 align-top";
 
-/** Everything the structure of one version says, each part with its help. */
-export function StructureView({ structure, name }: { structure: NetworkStructure; name: string }) {
+/** The evidence under the verdict card, in reading order: id and title of each part. */
+export const EVIDENCE = [
+  ["reactions", "Reactions and species"],
+  ["theorems", "Theorems checked"],
+  ["conservation", "Conserved totals"],
+  ["connections", "How complexes connect"],
+  ["counting", "The count behind δ"],
+  ["stoichiometric-matrix", "Stoichiometric matrix"],
+  ["odes", "Rate equations"],
+] as const;
+
+/** The numbers a modeller checks first, for the side column. */
+export function AtAGlance({ structure: s }: { structure: NetworkStructure }) {
+  return (
+    <dl className="text-sm" aria-label="At a glance">
+      <Fact label="Species" value={s.species.length} testId="stat-species" />
+      <Fact label="Reactions" value={s.reactions} testId="stat-reactions" />
+      <Fact label="Complexes" symbol="n" value={s.complexes.length} testId="stat-complexes" />
+      <Fact label="Linkage classes" symbol="ℓ" value={s.linkageClasses} testId="stat-linkage" />
+      <Fact label="Rank" symbol="s" value={s.rank} testId="stat-rank" />
+      <Fact label="Deficiency" symbol="δ" value={s.deficiency} testId="stat-deficiency" />
+      <Fact label="Weakly reversible" value={s.weaklyReversible ? "yes" : "no"} testId="stat-weakly-reversible" />
+    </dl>
+  );
+}
+
+/** Everything the structure of one version says, as evidence for the verdict, each part with its help. */
+export function StructureView({ structure, odes, name }: { structure: NetworkStructure; odes: readonly SpeciesOde[]; name: string }) {
   const s = structure;
   const laws = s.minimalSemiPositiveConservationLaws ?? s.conservationLaws;
-  const odes = massActionOdes(s);
   const layout = layoutComplexGraph(s);
-  const classOfComplex = new Map<string, number>();
-  s.linkageClassMembers.forEach((m, k) => m.forEach((c) => classOfComplex.set(c, k)));
-  const dz = s.deficiencyZeroTheorem;
+  const title = Object.fromEntries(EVIDENCE) as Record<(typeof EVIDENCE)[number][0], string>;
   return (
     <div className="space-y-8" data-testid="structure">
-      <dl className="grid grid-cols-2 gap-3 sm:grid-cols-4 lg:grid-cols-7">
-        <Stat label="Species" value={s.species.length} testId="stat-species" />
-        <Stat label="Complexes" symbol="n" value={s.complexes.length} testId="stat-complexes" />
-        <Stat label="Reactions" value={s.reactions} testId="stat-reactions" />
-        <Stat label="Rank" symbol="s" value={s.rank} testId="stat-rank" />
-        <Stat label="Linkage classes" symbol="ℓ" value={s.linkageClasses} testId="stat-linkage" />
-        <Stat label="Deficiency" symbol="δ" value={s.deficiency} testId="stat-deficiency" />
-        <Stat label="Weakly reversible" value={s.weaklyReversible ? "yes" : "no"} testId="stat-weakly-reversible" />
-      </dl>
       {s.warnings.length > 0 && (
         <ul className="rounded-md bg-signal-soft px-4 py-2 text-sm text-signal">
           {s.warnings.map((w) => (
@@ -38,7 +53,7 @@ export function StructureView({ structure, name }: { structure: NetworkStructure
         </ul>
       )}
 
-      <Section id="reactions" title="Reactions" help={GLOSSARY.reactions}>
+      <Section id="reactions" title={title.reactions} help={GLOSSARY.reactions}>
         <div className="overflow-x-auto rounded-md border border-line bg-surface">
           <table className="w-full text-sm" data-testid="reactions-table">
             <thead className="border-b border-line bg-sunken">
@@ -67,24 +82,24 @@ export function StructureView({ structure, name }: { structure: NetworkStructure
             </tbody>
           </table>
         </div>
-      </Section>
-
-      <Section id="species" title="Species" help={GLOSSARY.species}>
+        <h3 id="species" className="pt-2 font-semibold">Species</h3>
+        <Help text={GLOSSARY.species} title="Species" />
         <div className="overflow-x-auto rounded-md border border-line bg-surface">
           <table className="w-full text-sm" data-testid="species-table">
             <thead className="border-b border-line bg-sunken">
               <tr>
                 <th className={th}>Species</th>
-                <th className={th}>Made by</th>
-                <th className={th}>Used by</th>
+                <th className={th} title="Reactions that increase the species on balance">
+                  Made by
+                </th>
+                <th className={th} title="Reactions with the species among their reactants, also when they make more of it">
+                  Used by
+                </th>
                 <th className={th}>In conservation laws</th>
               </tr>
             </thead>
             <tbody>
-              {s.species.map((sp, i) => {
-                const row = s.stoichiometricMatrix[i]!;
-                const made = s.reactionList.filter((_, j) => row[j]! > 0).map((r) => r.id);
-                const used = s.reactionList.filter((_, j) => row[j]! < 0).map((r) => r.id);
+              {speciesRoles(s).map(({ species: sp, madeBy: made, usedBy: used }) => {
                 const inLaws = laws.map((l, k) => (l[sp] ? k + 1 : 0)).filter(Boolean);
                 return (
                   <tr key={sp} className="border-b border-line last:border-0">
@@ -112,7 +127,86 @@ export function StructureView({ structure, name }: { structure: NetworkStructure
         )}
       </Section>
 
-      <Section id="stoichiometric-matrix" title="Stoichiometric matrix" help={GLOSSARY.stoichiometricMatrix}>
+      <Section id="theorems" title={title.theorems} help={GLOSSARY.theorems}>
+        <div className="grid gap-3 xl:grid-cols-2">
+          <div id="deficiency-zero" className="space-y-2">
+            <h3 className="font-semibold">Deficiency zero theorem</h3>
+            <Help text={GLOSSARY.deficiencyZero} title="Deficiency zero theorem" />
+            <VerdictView verdict={s.deficiencyZeroTheorem} testId="deficiency-zero" />
+          </div>
+          <div id="deficiency-one" className="space-y-2">
+            <h3 className="font-semibold">Deficiency one theorem</h3>
+            <Help text={GLOSSARY.deficiencyOne} title="Deficiency one theorem" />
+            <VerdictView verdict={s.deficiencyOneTheorem} testId="deficiency-one" />
+          </div>
+        </div>
+      </Section>
+
+      <Section id="conservation" title={title.conservation} help={GLOSSARY.conservation}>
+        {laws.length === 0 ? (
+          <p className="text-sm" data-testid="conservation-laws">
+            None: no weighted sum of concentrations is kept constant by every reaction.
+          </p>
+        ) : (
+          <ul className="space-y-1 font-mono" data-testid="conservation-laws">
+            {lawsAsEquations(laws, s.species).map((eq) => (
+              <li key={eq}>{eq}</li>
+            ))}
+          </ul>
+        )}
+        <p className="text-sm text-muted">
+          {s.species.length} species − rank {s.rank} = {s.species.length - s.rank} independent law{s.species.length - s.rank === 1 ? "" : "s"}
+          {s.minimalSemiPositiveConservationLaws ? "; shown are the minimal ones with non-negative weights" : ""}.
+          {s.conservative === true ? " Every species is covered by a positive law, so no concentration can grow without bound." : ""}
+        </p>
+      </Section>
+
+      <Section id="connections" title={title.connections} help={GLOSSARY.graph}>
+        <div id="graph" className="overflow-x-auto rounded-md border border-line bg-surface p-3">
+          <ComplexGraph layout={layout} title={`Complex graph of ${name}: ${s.complexes.length} complexes in ${s.linkageClasses} linkage classes`} />
+        </div>
+        <h3 id="complexes" className="pt-2 font-semibold">Complexes by linkage class</h3>
+        <Help text={GLOSSARY.complexes + " " + GLOSSARY.linkageClasses} title="Complexes and linkage classes" />
+        <ol className="space-y-2 text-sm" data-testid="linkage-classes">
+          {s.linkageClassMembers.map((members, k) => (
+            <li key={k} className="rounded-md border-l-4 bg-surface px-3 py-2" style={{ borderColor: classColour(k) }}>
+              <span className="font-medium">Linkage class {k + 1}</span>
+              <span className="text-muted"> · deficiency {s.linkageClassDeficiencies[k]}</span>
+              <div className="mt-1 flex flex-wrap gap-1.5 font-mono">
+                {members.map((c) => (
+                  <span key={c} className="rounded-sm border border-line px-1.5">
+                    {c}
+                  </span>
+                ))}
+              </div>
+            </li>
+          ))}
+        </ol>
+        <p className="text-sm text-muted">
+          Strong linkage classes: {s.strongLinkageClasses.map((c) => `{${c.join(", ")}}`).join(" ")}. Terminal:{" "}
+          {s.terminalStrongLinkageClasses.map((c) => `{${c.join(", ")}}`).join(" ")}.
+        </p>
+      </Section>
+
+      <Section id="counting" title={title.counting} help={GLOSSARY.rank + " " + GLOSSARY.deficiency}>
+        <p className="font-mono text-base" data-testid="deficiency-formula">
+          δ = n − ℓ − s = {s.complexes.length} − {s.linkageClasses} − {s.rank} = {s.deficiency}
+        </p>
+        <p className="text-sm">
+          The reactions allow {s.rank} independent direction{s.rank === 1 ? "" : "s"} of change among {s.species.length} species.
+        </p>
+        <h3 id="weak-reversibility" className="pt-2 font-semibold">Weak reversibility</h3>
+        <Help text={GLOSSARY.weakReversibility} title="Weak reversibility" />
+        <p className="text-sm" data-testid="weak-reversibility">
+          {s.weaklyReversible
+            ? s.reversible
+              ? "Weakly reversible: in fact every reaction has its reverse."
+              : "Weakly reversible: every reaction lies on a cycle of reactions."
+            : "Not weakly reversible: some reaction cannot be undone by any chain of reactions (look for strong linkage classes with arrows leaving them)."}
+        </p>
+      </Section>
+
+      <Section id="stoichiometric-matrix" title={title["stoichiometric-matrix"]} help={GLOSSARY.stoichiometricMatrix}>
         <div className="overflow-x-auto">
           <table className="border-collapse font-mono text-sm" data-testid="stoichiometric-matrix">
             <thead>
@@ -144,84 +238,17 @@ export function StructureView({ structure, name }: { structure: NetworkStructure
         </div>
       </Section>
 
-      <Section id="complexes" title="Complexes and linkage classes" help={GLOSSARY.complexes + " " + GLOSSARY.linkageClasses}>
-        <ol className="space-y-2 text-sm" data-testid="linkage-classes">
-          {s.linkageClassMembers.map((members, k) => (
-            <li key={k} className="rounded-md border-l-4 bg-surface px-3 py-2" style={{ borderColor: classColour(k) }}>
-              <span className="font-medium">Linkage class {k + 1}</span>
-              <span className="text-muted"> · deficiency {s.linkageClassDeficiencies[k]}</span>
-              <div className="mt-1 flex flex-wrap gap-1.5 font-mono">
-                {members.map((c) => (
-                  <span key={c} className="rounded-sm border border-line px-1.5">
-                    {c}
-                  </span>
-                ))}
-              </div>
-            </li>
-          ))}
-        </ol>
-        <p className="text-sm text-muted">
-          Strong linkage classes: {s.strongLinkageClasses.map((c) => `{${c.join(", ")}}`).join(" ")}. Terminal:{" "}
-          {s.terminalStrongLinkageClasses.map((c) => `{${c.join(", ")}}`).join(" ")}.
-        </p>
-      </Section>
-
-      <Section id="graph" title="Complex graph" help={GLOSSARY.graph}>
-        <div className="overflow-x-auto rounded-md border border-line bg-surface p-3">
-          <ComplexGraph layout={layout} title={`Complex graph of ${name}: ${s.complexes.length} complexes in ${s.linkageClasses} linkage classes`} />
-        </div>
-      </Section>
-
-      <Section id="rank" title="Rank and deficiency" help={GLOSSARY.rank + " " + GLOSSARY.deficiency}>
-        <p className="font-mono text-base" data-testid="deficiency-formula">
-          δ = n − ℓ − s = {s.complexes.length} − {s.linkageClasses} − {s.rank} = {s.deficiency}
-        </p>
-        <p className="text-sm">
-          The reactions allow {s.rank} independent direction{s.rank === 1 ? "" : "s"} of change among {s.species.length} species.
-        </p>
-      </Section>
-
-      <Section id="weak-reversibility" title="Weak reversibility" help={GLOSSARY.weakReversibility}>
-        <p className="text-sm" data-testid="weak-reversibility">
-          {s.weaklyReversible
-            ? s.reversible
-              ? "Weakly reversible: in fact every reaction has its reverse."
-              : "Weakly reversible: every reaction lies on a cycle of reactions."
-            : "Not weakly reversible: some reaction cannot be undone by any chain of reactions (look for strong linkage classes with arrows leaving them)."}
-        </p>
-      </Section>
-
-      <Section id="deficiency-zero" title="Deficiency zero theorem" help={GLOSSARY.deficiencyZero}>
-        <VerdictView verdict={dz} testId="deficiency-zero" />
-      </Section>
-
-      <Section id="deficiency-one" title="Deficiency one theorem" help={GLOSSARY.deficiencyOne}>
-        <VerdictView verdict={s.deficiencyOneTheorem} testId="deficiency-one" />
-      </Section>
-
-      <Section id="conservation" title="Conservation laws" help={GLOSSARY.conservation}>
-        {laws.length === 0 ? (
-          <p className="text-sm" data-testid="conservation-laws">
-            None: no weighted sum of concentrations is kept constant by every reaction.
-          </p>
-        ) : (
-          <ul className="space-y-1 font-mono" data-testid="conservation-laws">
-            {lawsAsEquations(laws, s.species).map((eq) => (
-              <li key={eq}>{eq}</li>
-            ))}
-          </ul>
-        )}
-        <p className="text-sm text-muted">
-          {s.species.length} species − rank {s.rank} = {s.species.length - s.rank} independent law{s.species.length - s.rank === 1 ? "" : "s"}
-          {s.minimalSemiPositiveConservationLaws ? "; shown are the minimal ones with non-negative weights" : ""}.
-          {s.conservative === true ? " Every species is covered by a positive law, so no concentration can grow without bound." : ""}
-        </p>
-      </Section>
-
-      <Section id="odes" title="Mass-action ODEs" help={GLOSSARY.odes}>
-        <OdesView odes={odes} />
-      </Section>
+      <OdesSection odes={odes} />
     </div>
+  );
+}
+
+/** The rate equations: from the file alone, so the page shows them also while the structure is pending. */
+export function OdesSection({ odes }: { odes: readonly SpeciesOde[] }) {
+  return (
+    <Section id="odes" title={EVIDENCE.find(([id]) => id === "odes")![1]} help={GLOSSARY.odes}>
+      <OdesView odes={odes} />
+    </Section>
   );
 }
 

@@ -1,7 +1,7 @@
 import type { Route } from "./+types/lab-audit";
 import { apiError } from "~/permissions/api-errors";
 import { db } from "~/db.server";
-import { listLabAudit } from "~/labs/audit.server";
+import { listLabAudit } from "~/shared/audit.server";
 import { requireApiLabRole } from "~/permissions/permissions.server";
 
 /** GET /api/labs/:labSlug/audit — the lab's audit trail, newest first (owners only). */

@@ -2,10 +2,10 @@ import type { Route } from "./+types/lab";
 import { apiError } from "~/permissions/api-errors";
 import { requireApiLabRole } from "~/permissions/permissions.server";
 
-/** GET /api/labs/:labSlug — the lab and the caller's role (members only; others get 404). */
+/** GET /api/labs/:labSlug — the lab and the caller's role (members, and guests of a public lab; others get 404). */
 export async function loader({ request, params }: Route.LoaderArgs) {
-  const { lab, role } = await requireApiLabRole(request, params.labSlug, "viewer");
-  return Response.json({ lab: { slug: lab.slug, name: lab.name }, role });
+  const { lab, role, guest } = await requireApiLabRole(request, params.labSlug, "viewer");
+  return Response.json({ lab: { slug: lab.slug, name: lab.name, public: lab.isPublic }, role, guest });
 }
 
 /** Read-only resource: other methods get the JSON error shape (after the same permission check). */

@@ -1,6 +1,8 @@
 import type { Route } from "./+types/labs";
 import { db } from "~/db.server";
 import { createLab, listLabsOf, parseLabName } from "~/labs/labs.server";
+import { requireBody } from "~/api/body";
+import { LAB_CREATE } from "~/api/schemas";
 import { apiError } from "~/permissions/api-errors";
 import { requireApiUser } from "~/permissions/permissions.server";
 
@@ -16,7 +18,8 @@ export async function action({ request }: Route.ActionArgs) {
   const user = await requireApiUser(request);
   if (request.method !== "POST") throw apiError("method_not_allowed", "Use POST to create a lab.");
   const body = await request.json().catch(() => undefined);
-  const name = parseLabName((body as { name?: unknown } | undefined)?.name);
+  if (body === undefined) throw apiError("invalid_request", 'The body must be a JSON object such as { "name": "Invertase lab" }.');
+  const name = parseLabName(requireBody(LAB_CREATE, body).name);
   if (!name.ok) throw apiError("invalid_request", name.message, { field: "name" });
   const lab = await createLab(db(), { userId: user.id, name: name.value });
   return Response.json({ lab: { slug: lab.slug, name: lab.name, role: "owner" } }, { status: 201 });

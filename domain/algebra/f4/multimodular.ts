@@ -34,13 +34,19 @@ export interface MultiModularStats {
   /** Of proofMs: Buchberger's criterion (step 1). */
   criterionMs?: number;
   /** Which proof step failed, when the result could not be proven (the caller falls back). */
-  failed?: "groebner" | "inputs" | "hilbert" | "primes";
+  failed?: "groebner" | "inputs" | "hilbert" | "membership" | "primes";
 }
 
 export interface MultiModularOptions {
   /** Most primes to try before giving up (the caller falls back to another method). */
   readonly maxPrimes?: number;
   readonly stats?: MultiModularStats;
+  /**
+   * A proven Gröbner basis of the same ideal in another order of the same variables (in practice
+   * grevlex, computed first). With it, proof step 3 is ideal membership instead of Hilbert
+   * functions, so orders that are not degree-compatible (lex, block orders) can be lifted too.
+   */
+  readonly reference?: readonly Polynomial<Rational>[];
 }
 
 interface Lifted {
@@ -79,6 +85,9 @@ interface Group {
  *     ⟨F⟩_{≤d}, so dim ⟨F⟩_{≤d} ≥ dim ⟨G⟩_{≤d}; with ⟨F⟩ ⊆ ⟨G⟩ (step 2) both are equal for
  *     every d, hence ⟨F⟩ = ⟨G⟩. (The homogeneous case of this argument is Arnold 2003, Thm. 5.6 —
  *     theorem number recalled from memory; the inhomogeneous extension is worked out here.)
+ *     For lex and block orders, given `reference` (a proven Gröbner basis R of ⟨F⟩ in grevlex):
+ *     every g ∈ G reduces to zero modulo R, i.e. g ∈ ⟨R⟩ = ⟨F⟩ (Cox, Little, O'Shea, ch. 2 §6,
+ *     Corollary 2: the remainder on division by a Gröbner basis decides membership).
  * Returns null when a step cannot be completed (the caller then uses the traced Buchberger path,
  * which is proven by construction); `stats.failed` says which.
  *
@@ -94,7 +103,8 @@ export function multiModularGroebnerQQ(
   const n = ring.n, cmp = ring.cmp;
   const stats: MultiModularStats = options.stats ?? { primes: 0, unlucky: 0, modularMs: 0, liftMs: 0, proofMs: 0 };
   const maxPrimes = options.maxPrimes ?? 1000;
-  if (!isGradedOrder(ring as Polynomial<unknown>["ring"])) return null;
+  const graded = isGradedOrder(ring as Polynomial<unknown>["ring"]);
+  if (!graded && !options.reference) return null;
   const integer = polys.filter((p) => p.coeffs.length > 0).map((p) => clearDenominators(toEngine(p)));
   const T = new MonomialTable(n);
   const inputMons = integer.map((f) => {
@@ -125,8 +135,8 @@ export function multiModularGroebnerQQ(
       }
       return dropZeros(inputMons[i], coeffs);
     });
-    const Gp = f4ModP(input, T, p, cmp, { limits, prime: { k, of: maxPrimes } }, f4stats);
-    if (hFree === null) {
+    const Gp = f4ModP(input, T, p, cmp, { limits, sugared: !graded, prime: { k, of: maxPrimes } }, f4stats);
+    if (graded && hFree === null) {
       // Step 3 first, as it needs only residues: when it cannot succeed, do not lift at all.
       const th = Date.now();
       hFree = homogenisedLeads(integer, p, ring.order[0].kind === "grlex", limits);
@@ -157,7 +167,7 @@ export function multiModularGroebnerQQ(
 
   const t2 = Date.now();
   const G: Polynomial<Rational>[] = result.map((g) => normalizeTerms(ring, g.coeffs, T.packed(g.mons)));
-  const proven = prove(G, integer, hFree!, limits, stats);
+  const proven = prove(G, integer, graded ? { hFree: hFree! } : { reference: options.reference! }, limits, stats);
   stats.proofMs += Date.now() - t2;
   if (!proven) return null;
   G.sort((a, b) => cmp(a.exps, 0, b.exps, 0));
@@ -236,7 +246,13 @@ function agreesModP(cand: readonly { mons: number[]; coeffs: Rational[] }[], Gp:
 }
 
 /** The three proof steps of multiModularGroebnerQQ's docblock; false when one fails. */
-function prove(G: readonly Polynomial<Rational>[], integer: readonly EPoly<bigint>[], hFree: HFreeLeads, limits: Limits, stats: MultiModularStats): boolean {
+function prove(
+  G: readonly Polynomial<Rational>[],
+  integer: readonly EPoly<bigint>[],
+  containment: { hFree: HFreeLeads } | { reference: readonly Polynomial<Rational>[] },
+  limits: Limits,
+  stats: MultiModularStats,
+): boolean {
   const ring = G[0].ring;
   const n = ring.n, cmp = ring.cmp, K = integerCoefficients;
   const Gz = G.map((g) => {
@@ -254,7 +270,29 @@ function prove(G: readonly Polynomial<Rational>[], integer: readonly EPoly<bigin
     const coeffs = f.coeffs.slice();
     if (top.reduce({ coeffs, exps: f.exps }, reducers, false).coeffs.length !== 0) { stats.failed = "inputs"; return false; }
   }
-  if (!leadsCovered(G.map((g) => g.exps), hFree)) { stats.failed = "hilbert"; return false; }
+  if ("hFree" in containment) {
+    if (!leadsCovered(G.map((g) => g.exps), containment.hFree)) { stats.failed = "hilbert"; return false; }
+  } else if (!allMembers(Gz, containment.reference, limits)) { stats.failed = "membership"; return false; }
+  return true;
+}
+
+/** Does every polynomial of `polys` (engine form, this ring's order) lie in the ideal of the Gröbner basis `reference`? */
+function allMembers(polys: readonly EPoly<bigint>[], reference: readonly Polynomial<Rational>[], limits: Limits): boolean {
+  const refRing = reference[0].ring;
+  const n = refRing.n, S = n + 1, K = integerCoefficients;
+  const reducers = reference.map((r) => {
+    const z = clearDenominators(toEngine(r));
+    K.normalize(z.coeffs, () => limits.checkTime());
+    return toReducer(z, n);
+  });
+  const top = new ReductionKernel(K, n, refRing.cmp, () => limits.checkTime(), false);
+  for (const g of polys) {
+    // The same polynomial with its terms in the reference's order.
+    const order = Array.from(g.coeffs.keys()).sort((a, b) => refRing.cmp(g.exps, b * S, g.exps, a * S));
+    const exps = new Int32Array(g.exps.length);
+    order.forEach((t, k) => exps.set(g.exps.subarray(t * S, t * S + S), k * S));
+    if (top.reduce({ coeffs: order.map((t) => g.coeffs[t]), exps }, reducers, false).coeffs.length !== 0) return false;
+  }
   return true;
 }
 

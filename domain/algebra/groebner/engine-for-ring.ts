@@ -1,4 +1,4 @@
-import { QQ } from "../field";
+import { isRationalField } from "../field";
 import type { Polynomial } from "../polynomial";
 import type { Rational } from "../rational";
 import type { PolynomialRing } from "../ring";
@@ -17,7 +17,7 @@ export interface ScaleFreeEngine {
 }
 
 export function scaleFreeEngine<C>(ring: PolynomialRing<C>): ScaleFreeEngine {
-  if (ring.field === (QQ as unknown)) {
+  if (isRationalField(ring.field)) {
     return {
       K: integerCoefficients as EngineCoefficients<unknown>,
       toEngine: (p) => clearDenominators(toEngine(p as Polynomial<Rational>)),

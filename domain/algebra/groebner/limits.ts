@@ -30,6 +30,10 @@ export interface LimitOptions {
   readonly maxPairs?: number;
   /** Largest number of terms of any polynomial produced. */
   readonly maxTerms?: number;
+  /** Most reduction steps one Buchberger run may take (a budget for trying a path first). */
+  readonly maxReductions?: number;
+  /** Highest degree of a selected pair (the same kind of budget). */
+  readonly maxPairDegree?: number;
   readonly signal?: AbortSignal;
   readonly onProgress?: (p: Progress) => void;
 }
@@ -57,6 +61,10 @@ export class Limits {
   }
 
   progress(p: Progress): void {
+    const most = this.options.maxReductions;
+    if (most !== undefined && p.reductions > most) throw new AlgebraError("budget", `${this.what}: more than ${most} reduction steps`);
+    const top = this.options.maxPairDegree;
+    if (top !== undefined && p.degree > top) throw new AlgebraError("budget", `${this.what}: a pair of degree above ${top} (reduction steps budget)`);
     this.options.onProgress?.(p);
   }
 }

@@ -1,13 +1,11 @@
+import type { LimitOptions } from "../groebner/limits";
 import { UnivariateError } from "./errors";
 
 /**
- * Limits for operations that can run long: `deadline` is an absolute time in milliseconds
- * (as from `Date.now()`), `signal` an AbortSignal. Both optional.
+ * The part of the engine's one limits type (groebner/limits.ts) that univariate work honours:
+ * `deadline`, an absolute time in milliseconds (as from `Date.now()`), and `signal`.
  */
-export interface RunLimits {
-  readonly deadline?: number;
-  readonly signal?: AbortSignal;
-}
+export type RunLimits = Pick<LimitOptions, "deadline" | "signal">;
 
 /**
  * Throws a UnivariateError (reason "aborted" or "deadline") when a limit has been reached.

@@ -4,6 +4,8 @@ import { SPECIES_NAME, formatComplex, makeComplex, type Complex } from "../compl
 import type { NetworkFileProblem } from "../errors";
 import type { Network } from "../model";
 import { tryParseNetworkCsv } from "../parse-csv";
+import { formatConstantDeclaration } from "../constant-species";
+import { formatInitialDeclaration } from "../initial-values";
 import { MathError, readMathPolynomial, type Monomial } from "./mathml";
 import { child, listed, readXml, type XmlElement } from "./xml-tree";
 
@@ -52,6 +54,8 @@ interface SpeciesInfo {
   readonly compartment: string;
   readonly line: number;
   readonly initial?: Rational;
+  /** Held fixed: `boundaryCondition="true"` or `constant="true"` (read as a constant species). */
+  readonly held: boolean;
 }
 
 interface ParameterInfo {
@@ -64,11 +68,15 @@ interface ParameterInfo {
 /**
  * Reads an SBML file (Level 2 Version 4 or Level 3 Version 1/2 Core) as a mass-action reaction
  * network. Every reaction's kinetic law must be mass action in the MathML (Horn & Jackson 1972;
- * read exactly as a polynomial), with integer stoichiometry; every other law, rule, event or
- * fixed (`boundaryCondition`/`constant`) species is reported with its element, id and line, and
+ * read exactly as a polynomial), with integer stoichiometry; every other law, rule or event is
+ * reported with its element, id and line, and
  * the rest of the file is still reported reaction by reaction. Local parameters whose ids are used
  * elsewhere are renamed `<id>_<reaction>` (listed in `notes`), because a rate symbol in our
  * networks is shared by every reaction that names it.
+ * A species with `boundaryCondition="true"` or `constant="true"` is a constant species (`# constant:`),
+ * held at its initialConcentration (or initialAmount / size), symbolic when the file gives none; a
+ * boundary species that a rule moves is refused with its id. Initial values of the other species
+ * become the version's `# initial:` line (and `initial`).
  *
  * Example: a file with reaction R1 (E + S ⇌ C, law `cell*(kon*E*S - koff*C)`) gives the row
  * `E + S <-> C` with rates kon, koff and their values, and `initial` E → 1 when
@@ -136,20 +144,14 @@ export function readSbml(text: string): SbmlImport {
     if (bool(c, "constant", true) === false) problems.push(at(c, "a compartment whose size changes is not mass action in concentrations", 'constant="true"'));
   }
 
+  const ruleTargets = new Set((child(model, "listOfRules")?.children ?? []).map((r) => r.attrs.variable ?? ""));
   const species = new Map<string, SpeciesInfo>();
   for (const s of listed(model, "listOfSpecies", "species")) {
     const id = s.attrs.id ?? "";
     const before = problems.length;
     if (!SPECIES_NAME.test(id)) problems.push(at(s, `species id \`${id}\` is not a name we can use`, "a letter, then letters, digits or `_`"));
-    if (bool(s, "boundaryCondition", false) || bool(s, "constant", false)) {
-      problems.push(
-        at(
-          s,
-          `species \`${id}\` is held fixed (${bool(s, "boundaryCondition", false) ? 'boundaryCondition="true"' : 'constant="true"'}); networks here have no constant species yet`,
-          "species that change by their reactions (boundaryCondition and constant false)",
-        ),
-      );
-    }
+    // A boundary or constant species is not changed by the reactions: a constant species here.
+    const held = bool(s, "boundaryCondition", false) === true || bool(s, "constant", false) === true;
     if (s.attrs.conversionFactor !== undefined) problems.push(at(s, "a conversion factor changes the dynamics beyond mass action", "no conversionFactor"));
     const compartment = s.attrs.compartment ?? "";
     const comp = compartments.get(compartment);
@@ -165,7 +167,10 @@ export function readSbml(text: string): SbmlImport {
       else if (comp) problems.push(at(s, "an initial amount in a compartment without a size has no concentration", "initialConcentration, or a compartment size"));
     }
     if (initial !== undefined && sign(initial) < 0) problems.push(at(s, `negative initial value ${formatRational(initial)}`, "a value ≥ 0"));
-    if (problems.length === before || !species.has(id)) species.set(id, { id, compartment, line: s.line, ...(initial !== undefined ? { initial } : {}) });
+    if (held && !ruleTargets.has(id) && initial !== undefined && sign(initial) === 0) {
+      problems.push(at(s, `species \`${id}\` is held fixed at 0, which takes its reactions out of the network`, "a positive initialConcentration or initialAmount for a boundary or constant species, or none for a symbolic one"));
+    }
+    if (problems.length === before || !species.has(id)) species.set(id, { id, compartment, line: s.line, held, ...(initial !== undefined ? { initial } : {}) });
   }
 
   const parameters = new Map<string, ParameterInfo>();
@@ -178,7 +183,14 @@ export function readSbml(text: string): SbmlImport {
   const rules = child(model, "listOfRules")?.children ?? [];
   for (const r of rules) {
     const target = r.attrs.variable ?? "";
-    problems.push({ ...at(r, `${r.name}${target ? ` for \`${target}\`` : ""} changes the model beyond its reactions`, "reactions with mass-action laws only (no rules)"), ...(target ? { id: target } : {}) });
+    const boundary = listed(model, "listOfSpecies", "species").find((x) => x.attrs.id === target && bool(x, "boundaryCondition", false) === true && bool(x, "constant", false) !== true);
+    if (boundary) {
+      // A boundary species that rules move is neither a variable of the reactions nor held constant.
+      problems.push({
+        ...at(boundary, `species \`${target}\` is a boundary species (boundaryCondition="true", constant="false") whose value the ${r.name} on line ${r.line} sets; such species are not read`, 'a boundary species without rules (it is then held at its initial value) or constant="true"'),
+        id: target,
+      });
+    } else problems.push({ ...at(r, `${r.name}${target ? ` for \`${target}\`` : ""} changes the model beyond its reactions`, "reactions with mass-action laws only (no rules)"), ...(target ? { id: target } : {}) });
   }
   for (const e of listed(model, "listOfEvents", "event")) problems.push(at(e, "events change the model during a run", "no events"));
   if (listed(model, "listOfConstraints", "constraint").length > 0) notes.push("constraints (checks a simulator may make) are not kept; they do not change the dynamics");
@@ -412,9 +424,11 @@ export function readSbml(text: string): SbmlImport {
   const unused = [...species.keys()].filter((s) => !reactionSpecies.includes(s));
   if (unused.length > 0) notes.push(`species taking part in no reaction are left out: ${unused.join(", ")}`);
   const initial = new Map<string, Rational>();
+  const held: { name: string; value?: Rational }[] = [];
   for (const s of reactionSpecies) {
-    const v = species.get(s)?.initial;
-    if (v !== undefined) initial.set(s, v);
+    const info = species.get(s);
+    if (info?.held) held.push({ name: s, ...(info.initial !== undefined ? { value: info.initial } : {}) });
+    else if (info?.initial !== undefined) initial.set(s, info.initial);
   }
   const base = {
     level,
@@ -432,7 +446,12 @@ export function readSbml(text: string): SbmlImport {
   const fields = ["reaction", "label", "rate", "reverse_rate", "rate_value", "reverse_rate_value"].filter(
     (f) => f === "reaction" || f === "rate" || rows.some((row) => row[f] !== ""),
   );
-  const csv = Papa.unparse({ fields, data: rows.map((row) => fields.map((f) => row[f])) }, { newline: "\n" }) + "\n";
+  // Held species and initial values as the file's directive lines, after the rows so that CSV line
+  // i + 2 stays the i-th reaction.
+  const directives =
+    (held.length > 0 ? formatConstantDeclaration(held.map((h) => ({ ...h, line: 0 }))) + "\n" : "") +
+    (initial.size > 0 ? formatInitialDeclaration([...initial].map(([name, value]) => ({ name, value, line: 0 }))) + "\n" : "");
+  const csv = Papa.unparse({ fields, data: rows.map((row) => fields.map((f) => row[f])) }, { newline: "\n" }) + "\n" + directives;
   const parsed = tryParseNetworkCsv(csv);
   if (!parsed.ok) {
     return {
@@ -441,6 +460,12 @@ export function readSbml(text: string): SbmlImport {
         parsed.problems.map((p) => {
           const i = p.row - 2;
           const rid = i >= 0 ? rowIds[i] : undefined;
+          if (rid === undefined && (p.column === "constant" || p.column === "initial")) {
+            // A directive entry: locate it at the species it names.
+            const name = /`([^`]+)`/.exec(p.message)?.[1];
+            const sp = name !== undefined ? species.get(name) : undefined;
+            return { row: sp?.line ?? model.line, element: "species", ...(name ? { id: name } : {}), message: `${name ? `<species id="${name}">: ` : ""}${p.message}`, ...(p.expected ? { expected: p.expected } : {}) };
+          }
           return { row: i >= 0 ? rowLines[i] : model.line, element: "reaction", ...(rid ? { id: rid } : {}), message: `${rid ? `<reaction id="${rid}">: ` : ""}${p.message}`, ...(p.expected ? { expected: p.expected } : {}) };
         }),
       ),

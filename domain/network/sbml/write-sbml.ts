@@ -1,6 +1,7 @@
 import type { Rational } from "../../algebra/rational";
 import type { Complex } from "../complex";
 import type { DirectedReaction, Network } from "../model";
+import { initialMapOf } from "../initial-values";
 import { exactDecimal, writeNumber } from "./mathml";
 
 export interface SbmlWriteOptions {
@@ -8,7 +9,7 @@ export interface SbmlWriteOptions {
   readonly id?: string;
   /** Model name, written as is (escaped). */
   readonly name?: string;
-  /** Initial concentrations, exact. */
+  /** Initial concentrations, exact; default the network's own (`# initial:`). */
   readonly initial?: ReadonlyMap<string, Rational>;
 }
 
@@ -16,18 +17,27 @@ const SID = /^[A-Za-z_][A-Za-z0-9_]*$/;
 
 /**
  * Writes a network as SBML Level 3 Version 2 Core: one compartment of size 1, every species
- * (with its initial concentration when given), every rate symbol as a global constant parameter
+ * (with its initial concentration when given, by default the network's `# initial:` values), every
+ * constant species as a species with boundaryCondition="true" constant="true" whose held value is its
+ * initialConcentration (a symbolic held value is written without one: the species' value is then
+ * undefined in SBML, as it is a parameter without a value here), every rate symbol as a global constant parameter
  * (so a symbol shared by several reactions stays one constant), and one reaction per row with a
  * mass-action kinetic law in MathML, `compartment · (k_f·Π reactants − k_r·Π products)` (amount per
  * time, as the SBML Level 3 Version 2 Core specification, section 4.11.7, asks). Values that are not exact decimals
  * (e.g. 1/3) are written as exact rational numbers in an initial assignment, so nothing is rounded.
+ * A constant species is listed among the reactants and products as the row writes it, and its
+ * concentration is a factor of the kinetic law (SBML Level 3 Version 2 Core, section 4.6.6: a
+ * boundary species is not changed by reactions, so it may take part in them while held).
  * readSbml of the output gives the same species, directed reactions, rate symbols and values.
  *
  * Example: the network of "reaction,rate\nA -> B,k\n" gives one reaction r1 with
  * <kineticLaw><math>… <times/><ci>compartment</ci><ci>k</ci><ci>A</ci> …</math></kineticLaw>.
  */
 export function formatSbml(network: Network, options: SbmlWriteOptions = {}): string {
-  const taken = new Set<string>(network.species);
+  const held = network.constants ?? [];
+  const allSpecies = [...network.species, ...held.map((c) => c.name)];
+  const initial = options.initial ?? initialMapOf(network);
+  const taken = new Set<string>(allSpecies);
   for (const r of network.reactions) taken.add(r.rate);
   const fresh = (base: string): string => {
     let name = base;
@@ -54,10 +64,16 @@ export function formatSbml(network: Network, options: SbmlWriteOptions = {}): st
     return "";
   };
 
-  const species = network.species.map(
-    (s) =>
-      `      <species id="${s}" compartment="${compartment}"${valueAttr(s, "initialConcentration", options.initial?.get(s))} hasOnlySubstanceUnits="false" boundaryCondition="false" constant="false"/>`,
-  );
+  const species = [
+    ...network.species.map(
+      (s) =>
+        `      <species id="${s}" compartment="${compartment}"${valueAttr(s, "initialConcentration", initial.get(s))} hasOnlySubstanceUnits="false" boundaryCondition="false" constant="false"/>`,
+    ),
+    ...held.map(
+      (c) =>
+        `      <species id="${c.name}" compartment="${compartment}"${valueAttr(c.name, "initialConcentration", c.value)} hasOnlySubstanceUnits="false" boundaryCondition="true" constant="true"/>`,
+    ),
+  ];
   const parameters = [...rates].map(([k, v]) => `      <parameter id="${k}"${valueAttr(k, "value", v)} constant="true"/>`);
 
   // Each row's directed reactions, in order (a `<->` row has two, the forward one first).
@@ -65,16 +81,18 @@ export function formatSbml(network: Network, options: SbmlWriteOptions = {}): st
   for (const r of network.reactions) byRow.set(r.row, [...(byRow.get(r.row) ?? []), r]);
   const reactions = network.rows.map((row, i) => {
     const [f, b] = byRow.get(row.line) ?? [];
+    // The complexes as written, constant species included, in the direction of the forward reaction.
+    const [reactants, products] = row.arrow === "<-" ? [row.right, row.left] : [row.left, row.right];
     const id = row.label !== undefined && SID.test(row.label) && !taken.has(row.label) ? row.label : fresh(`r${i + 1}`);
     taken.add(id);
     const refs = (list: string, c: Complex): string => {
-      const names = Object.keys(c).sort((a, z) => network.species.indexOf(a) - network.species.indexOf(z));
+      const names = Object.keys(c).sort((a, z) => allSpecies.indexOf(a) - allSpecies.indexOf(z));
       if (names.length === 0) return "";
       return `        <${list}>\n${names.map((s) => `          <speciesReference species="${s}" stoichiometry="${c[s]}" constant="true"/>`).join("\n")}\n        </${list}>\n`;
     };
     const term = (r: DirectedReaction): string => {
       const factors = [`<ci>${r.rate}</ci>`];
-      for (const [s, n] of Object.entries(r.reactant)) {
+      for (const [s, n] of Object.entries({ ...r.reactant, ...(r.held ?? {}) })) {
         factors.push(n === 1 ? `<ci>${s}</ci>` : `<apply><power/><ci>${s}</ci><cn type="integer">${n}</cn></apply>`);
       }
       return factors.length === 1 ? factors[0] : `<apply><times/>${factors.join("")}</apply>`;
@@ -82,8 +100,8 @@ export function formatSbml(network: Network, options: SbmlWriteOptions = {}): st
     const rate = b ? `<apply><minus/>${term(f)}${term(b)}</apply>` : term(f);
     return (
       `      <reaction id="${id}"${row.label !== undefined ? ` name="${escapeXml(row.label)}"` : ""} reversible="${b ? "true" : "false"}">\n` +
-      refs("listOfReactants", f.reactant) +
-      refs("listOfProducts", f.product) +
+      refs("listOfReactants", reactants) +
+      refs("listOfProducts", products) +
       `        <kineticLaw>\n          <math xmlns="http://www.w3.org/1998/Math/MathML">\n            <apply><times/><ci>${compartment}</ci>${rate}</apply>\n          </math>\n        </kineticLaw>\n` +
       `      </reaction>`
     );

@@ -49,7 +49,7 @@ describe.skipIf(!hasTestDatabase)("personal API tokens", () => {
     expect(me.status).toBe(200);
     expect(me.body).toMatchObject({ user: { email: "ada@lab.test" }, labs: [{ slug: "kinetics", role: "editor" }] });
     const lab = await run(apiLab.loader, makeRequest("/api/labs/kinetics", { bearer: token }), { labSlug: "kinetics" });
-    expect(lab.body).toEqual({ lab: { slug: "kinetics", name: "Kinetics" }, role: "editor" });
+    expect(lab.body).toEqual({ lab: { slug: "kinetics", name: "Kinetics", public: false }, role: "editor", guest: false });
     const row = await t.db.selectFrom("api_tokens").select("last_used_at").where("name", "=", "roles").executeTakeFirstOrThrow();
     expect(row.last_used_at).toBeInstanceOf(Date);
   });

@@ -1,16 +1,16 @@
 import { describe, expect, it } from "vitest";
 import { answerOf } from "~/analyses/answer";
 import type { AnalysisResult } from "~/analyses/result-types";
-import { toJson } from "@domain/cli/analyse";
+import { analysisResultJson } from "@domain/steady-state/result";
 import { parseNetworkCsv } from "@domain/network/index";
 import { analyseNetwork } from "@domain/steady-state/index";
 import { parseRational } from "@domain/algebra/rational";
 
 /** The answer sentence comes from the engine's own result, checked on networks whose answers are known. */
 const result = (csv: string, initial?: Record<string, string>) =>
-  toJson(
+  analysisResultJson(
     analyseNetwork(parseNetworkCsv(csv), { initial: initial ? new Map(Object.entries(initial).map(([k, v]) => [k, parseRational(v)!])) : undefined }),
-  ) as unknown as AnalysisResult;
+  ) satisfies AnalysisResult;
 
 describe("the answer an analysis opens with", () => {
   it("counts the states of the cubic switch: -(X - 1)(X - 2)(X - 3) has two stable and one unstable", () => {

@@ -2,7 +2,6 @@ import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { hasTestDatabase, type TestDatabase } from "../support/test-db";
 import { makeRequest, run, sessionCookieFor, setUpAccountsDb, tearDownAccountsDb } from "../auth/fixtures";
 import { analysisParams, fixtureCsv, makeJob, makeNetwork, makeTeam } from "../jobs/fixtures";
-import { asAnalysesDb } from "~/analyses/schema";
 
 /**
  * One user or lab cannot starve everyone (issue 16 #9): a cap on jobs waiting or running per person
@@ -41,7 +40,7 @@ describe.skipIf(!hasTestDatabase)("fair queues", () => {
 
   it("caps the jobs one person may have waiting or running, even for a parallel burst", async () => {
     const { insertJobWithinCaps, SITE_LIMITS } = await import("~/analyses/repository.server");
-    const db = asAnalysesDb(t.db);
+    const db = t.db;
     const results = await Promise.all(Array.from({ length: 25 }, () => insertJobWithinCaps(db, newJob(alpha, alphaVersion))));
     const accepted = results.filter((r) => r.ok).length;
     expect(accepted).toBe(SITE_LIMITS.maxActiveJobsPerUser);
@@ -59,16 +58,16 @@ describe.skipIf(!hasTestDatabase)("fair queues", () => {
     expect(out.status).toBe(400);
     expect(JSON.stringify(out.body)).toMatch(/site's maximum/);
     // A value stored earlier is capped when read.
-    await setLabLimits(asAnalysesDb(t.db), alpha.lab.id, { maxTimeLimitSeconds: 3600, maxBasisSize: 3000 });
-    expect((await labLimits(asAnalysesDb(t.db), alpha.lab.id)).maxTimeLimitSeconds).toBe(SITE_LIMITS.maxTimeLimitSeconds);
+    await setLabLimits(t.db, alpha.lab.id, { maxTimeLimitSeconds: 3600, maxBasisSize: 3000 });
+    expect((await labLimits(t.db, alpha.lab.id)).maxTimeLimitSeconds).toBe(SITE_LIMITS.maxTimeLimitSeconds);
   });
 
   it("a worker picks another lab's waiting job before a busy lab's older ones", async () => {
     const { claimNextJob } = await import("~/jobs/process-job.server");
-    const db = asAnalysesDb(t.db);
+    const db = t.db;
     const job = (lab: typeof alpha, v: string) => makeJob(t.db, { kind: "analysis", labId: lab.lab.id, networkVersionId: v, params: analysisParams(), startedBy: lab.owner.id, timeLimitSeconds: 60 });
     const busy = await job(alpha, alphaVersion);
-    await asAnalysesDb(t.db).updateTable("analyses").set({ status: "running", worker_id: "w0", heartbeat_at: new Date() }).where("id", "=", busy.id).execute();
+    await t.db.updateTable("analyses").set({ status: "running", worker_id: "w0", heartbeat_at: new Date() }).where("id", "=", busy.id).execute();
     const older = [await job(alpha, alphaVersion), await job(alpha, alphaVersion), await job(alpha, alphaVersion)];
     const tiny = await job(beta, betaVersion);
     // The queue message names alpha's oldest waiting job; beta's job goes first anyway.

@@ -4,7 +4,6 @@ import { hasTestDatabase, type TestDatabase } from "../support/test-db";
 import { makeLab, makeRequest, makeUser, run, sessionCookieFor, setUpAccountsDb, snapshot, tearDownAccountsDb, type Outcome } from "../auth/fixtures";
 import { analysisParams, makeJob, makeNetwork } from "../jobs/fixtures";
 import { computeJob } from "~/jobs/compute";
-import { asAnalysesDb } from "~/analyses/schema";
 import { stopBosses } from "~/jobs/queue.server";
 
 /**
@@ -45,7 +44,7 @@ describe.skipIf(!hasTestDatabase)("analyses permission matrix", () => {
     Object.assign(x, await makeNetwork(t.db, lab.id, ids.owner, "cycle", CYCLE));
     const params = analysisParams({ initial: INITIAL });
     const result = computeJob({ kind: "analysis", csv: CYCLE, params }, { engineTimeoutMs: 30_000 });
-    const adb = asAnalysesDb(t.db);
+    const adb = t.db;
     for (const key of ["done", "other"] as const) {
       const row = await makeJob(t.db, { kind: "analysis", labId: lab.id, networkVersionId: x.versionId, params, startedBy: ids.editor, timeLimitSeconds: 60 });
       await adb.updateTable("analyses").set({ status: "succeeded", result: result as never, finished_at: new Date() }).where("id", "=", row.id).execute();
@@ -100,7 +99,7 @@ describe.skipIf(!hasTestDatabase)("analyses permission matrix", () => {
   ];
 
   const mine = async () => {
-    const adb = asAnalysesDb(t.db);
+    const adb = t.db;
     const [analyses, links, limits] = await Promise.all([
       adb.selectFrom("analyses").selectAll().orderBy("id").execute(),
       adb.selectFrom("analysis_share_links").selectAll().orderBy("id").execute(),
@@ -136,7 +135,7 @@ describe.skipIf(!hasTestDatabase)("analyses permission matrix", () => {
     const share = await import("~/analyses/share.server");
     const page = await import("~/routes/share");
     const exporter = await import("~/routes/share-export");
-    const adb = asAnalysesDb(t.db);
+    const adb = t.db;
     const link = await share.createShareLink(adb, x.done, ids.owner, 1);
     const open = await run(page.loader, makeRequest(`/share/${link.token}`), { token: link.token });
     expect(open.status).toBe(200);
@@ -154,6 +153,29 @@ describe.skipIf(!hasTestDatabase)("analyses permission matrix", () => {
     const stored = await adb.selectFrom("analysis_share_links").select("token_hash").where("id", "=", live.id).executeTakeFirstOrThrow();
     expect(stored.token_hash).not.toContain(live.token);
     expect(stored.token_hash).toMatch(/^[0-9a-f]{64}$/);
+  });
+
+  it("a share link shows the analysed version's reactions and rate values, and nothing of later versions", async () => {
+    const share = await import("~/analyses/share.server");
+    const page = await import("~/routes/share");
+    const { appendVersion } = await import("~/networks/networks.server");
+    const adb = t.db;
+    const link = await share.createShareLink(adb, x.done, ids.owner, 1);
+    // A later version of the network with other values and an extra reaction: not part of what the link grants.
+    await appendVersion(t.db, x.networkId, { csv: CYCLE.replace("S1F -> S0 + F,c2,,3/2,", "S1F -> S0 + F,c2,,9,\nS1 -> 0,secret_k,,5,"), changeNote: "later", authorId: ids.owner });
+    const open = await run(page.loader, makeRequest(`/share/${link.token}`), { token: link.token });
+    expect(open.status).toBe(200);
+    type Shared = { page: { network: { reactions: { id: string; reaction: string; rate: string; usedValue: string | null }[] } } };
+    const reactions = (open.body as Shared).page.network.reactions;
+    expect(reactions.map((r) => [r.id, r.reaction, r.rate, r.usedValue])).toEqual([
+      ["r1", "K + S0 → S0K", "a1", "1"],
+      ["r2", "S0K → K + S0", "d1", "1/2"],
+      ["r3", "S0K → K + S1", "c1", "2"],
+      ["r4", "F + S1 → S1F", "a2", "1"],
+      ["r5", "S1F → F + S1", "d2", "1"],
+      ["r6", "S1F → F + S0", "c2", "3/2"],
+    ]);
+    expect(JSON.stringify(open.body)).not.toContain("secret_k");
   });
 
   it("validation problems come back located, in the API's error shape", async () => {

@@ -4,7 +4,6 @@ import type { Kysely } from "kysely";
 import type { Database } from "~/db/schema";
 import { insertNetwork } from "~/networks/networks.server";
 import { insertJob, type NewJob } from "~/analyses/repository.server";
-import { asAnalysesDb } from "~/analyses/schema";
 import type { AnalysisParams } from "~/analyses/params";
 import { makeLab, makeUser } from "../auth/fixtures";
 
@@ -29,7 +28,7 @@ export async function makeNetwork(db: Kysely<Database>, labId: string, authorId:
 }
 
 export async function makeJob(db: Kysely<Database>, job: Omit<NewJob, "params" | "notify" | "parentId"> & { params: object; parentId?: string | null; notify?: boolean }) {
-  return insertJob(asAnalysesDb(db), { ...job, params: job.params as never, parentId: job.parentId ?? null, notify: job.notify ?? false });
+  return insertJob(db, { ...job, params: job.params as never, parentId: job.parentId ?? null, notify: job.notify ?? false });
 }
 
 export async function makeTeam(db: Kysely<Database>, slug = "alpha") {

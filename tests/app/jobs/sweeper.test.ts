@@ -2,7 +2,6 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { hasTestDatabase, type TestDatabase } from "../support/test-db";
 import { setUpAccountsDb, tearDownAccountsDb } from "../auth/fixtures";
 import { analysisParams, fixtureCsv, makeJob, makeNetwork, makeTeam } from "./fixtures";
-import { asAnalysesDb } from "~/analyses/schema";
 import { releaseRunningJobs, sweepStaleJobs } from "~/jobs/sweeper.server";
 
 /** The sweeper's three outcomes for a running row whose heartbeat went quiet, and the clean hand-back. */
@@ -14,7 +13,7 @@ describe.skipIf(!hasTestDatabase)("sweeping jobs of dead workers", () => {
     t = await setUpAccountsDb();
     const team = await makeTeam(t.db);
     const { versionId } = await makeNetwork(t.db, team.lab.id, team.owner.id, "cubic", fixtureCsv("cubic-autocatalysis"));
-    const adb = asAnalysesDb(t.db);
+    const adb = t.db;
     const stale = new Date(Date.now() - 60_000);
     for (const key of Object.keys(ids) as (keyof typeof ids)[]) {
       const row = await makeJob(t.db, { kind: "analysis", labId: team.lab.id, networkVersionId: versionId, params: analysisParams(), startedBy: team.owner.id, timeLimitSeconds: 10 });
@@ -34,10 +33,10 @@ describe.skipIf(!hasTestDatabase)("sweeping jobs of dead workers", () => {
   });
   afterAll(async () => tearDownAccountsDb(t));
 
-  const row = (id: string) => asAnalysesDb(t.db).selectFrom("analyses").selectAll().where("id", "=", id).executeTakeFirstOrThrow();
+  const row = (id: string) => t.db.selectFrom("analyses").selectAll().where("id", "=", id).executeTakeFirstOrThrow();
 
   it("requeues with attempts left, fails with the reason without, cancels when asked, leaves live rows alone", async () => {
-    const result = await sweepStaleJobs(asAnalysesDb(t.db), 30_000);
+    const result = await sweepStaleJobs(t.db, 30_000);
     expect(result.requeued.map((r) => r.id)).toEqual([ids.retry]);
     expect(result.failed.sort()).toEqual([ids.last, ids.cancelled].sort());
     expect((await row(ids.retry)).status).toBe("queued");
@@ -48,11 +47,11 @@ describe.skipIf(!hasTestDatabase)("sweeping jobs of dead workers", () => {
     expect((await row(ids.cancelled)).status).toBe("cancelled");
     expect((await row(ids.fresh)).status).toBe("running");
     // A second sweep finds nothing more to do.
-    expect(await sweepStaleJobs(asAnalysesDb(t.db), 30_000)).toEqual({ requeued: [], failed: [] });
+    expect(await sweepStaleJobs(t.db, 30_000)).toEqual({ requeued: [], failed: [] });
   });
 
   it("a stopping worker hands back only its own running rows, attempt not counted", async () => {
-    const back = await releaseRunningJobs(asAnalysesDb(t.db), "me");
+    const back = await releaseRunningJobs(t.db, "me");
     expect(back.map((b) => b.id)).toEqual([ids.mine]);
     const r = await row(ids.mine);
     expect([r.status, r.attempts, r.worker_id]).toEqual(["queued", 0, null]);

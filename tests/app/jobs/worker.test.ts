@@ -5,7 +5,6 @@ import { hasTestDatabase } from "../support/test-db";
 import type { TestDatabase } from "../support/test-db";
 import { setUpAccountsDb, tearDownAccountsDb } from "../auth/fixtures";
 import { analysisParams, fixtureCsv, makeJob, makeNetwork, makeTeam, waitFor } from "./fixtures";
-import { asAnalysesDb } from "~/analyses/schema";
 import { requestCancel } from "~/analyses/repository.server";
 import { enqueue, stopBosses } from "~/jobs/queue.server";
 import { startWorker, type RunningWorker } from "~/jobs/worker.server";
@@ -40,7 +39,7 @@ describe.skipIf(!hasTestDatabase)("background worker", () => {
     await enqueue(t.url, row.id, timeLimitSeconds);
     return row.id;
   };
-  const row = (id: string) => asAnalysesDb(t.db).selectFrom("analyses").selectAll().where("id", "=", id).executeTakeFirstOrThrow();
+  const row = (id: string) => t.db.selectFrom("analyses").selectAll().where("id", "=", id).executeTakeFirstOrThrow();
   const finished = (id: string, ms: number) => waitFor(async () => ((r) => (["succeeded", "failed", "cancelled"].includes(r.status) ? r : undefined))(await row(id)), ms, `job ${id} to finish`);
 
   it("runs an analysis in a child process and stores exactly the CLI's JSON", async () => {
@@ -81,7 +80,7 @@ describe.skipIf(!hasTestDatabase)("background worker", () => {
     const id = await job(nets.slow, analysisParams(), 60);
     await waitFor(async () => (await row(id)).status === "running", 20_000, "running");
     await new Promise((r) => setTimeout(r, 1000));
-    expect(await requestCancel(asAnalysesDb(t.db), id)).toBe("running");
+    expect(await requestCancel(t.db, id)).toBe("running");
     const done = await finished(id, 10_000);
     expect(done.status).toBe("cancelled");
     expect(done.error).toMatch(/Cancelled after/);
@@ -89,18 +88,25 @@ describe.skipIf(!hasTestDatabase)("background worker", () => {
 
   it("cancels a queued job at once", async () => {
     const r = await makeJob(t.db, { kind: "analysis", labId: team.lab.id, networkVersionId: nets.cubic, params: analysisParams(), startedBy: team.owner.id, timeLimitSeconds: 10 });
-    expect(await requestCancel(asAnalysesDb(t.db), r.id)).toBe("cancelled");
+    expect(await requestCancel(t.db, r.id)).toBe("cancelled");
     expect((await row(r.id)).status).toBe("cancelled");
   });
 
-  it("a computation that cannot finish is stopped by the time limit with a clear message", async () => {
-    // Listing 3^10 steady states cannot finish in the limit of 3 s.
+  it("a computation that cannot finish is stopped by the engine's deadline with a clear message", async () => {
+    // The engine's deadline at a fifth of the limit (2 s of 10 s), far from the hard kill (tested
+    // next) even when the child process is slow to start on a busy machine, so the outcome is the
+    // engine's own and only one: a stored result whose unfinished stages say what stopped.
+    await worker!.stop();
+    worker = await startWorker({ databaseUrl: t.url, heartbeatMs: 200, graceMs: 1000, engineDeadlineFactor: 0.2, sweepEveryMs: 500, staleAfterMs: 3000, pollSeconds: 0.5, log: () => {} });
+    // Listing 3^10 steady states cannot finish in 2 s.
     const started = Date.now();
-    const id = await job(nets.slow, analysisParams(), 3);
+    const id = await job(nets.slow, analysisParams(), 10);
     const done = await finished(id, 30_000);
     expect(Date.now() - started).toBeLessThan(20_000);
-    const said = `${done.error ?? ""} ${JSON.stringify((done.result as { warnings?: string[] } | null)?.warnings ?? [])}`;
-    expect(said).toMatch(/not finished within the budget|time limit of 3 s/);
+    expect([done.status, done.error]).toEqual(["succeeded", null]);
+    const result = done.result as { unfinished: { stage: string; reason: string }[]; warnings: string[] };
+    expect(result.unfinished.length).toBeGreaterThan(0);
+    expect(result.unfinished.every((u) => u.stage.length > 0 && u.reason.length > 0)).toBe(true);
   }, 40_000);
 
   it("kills the job process hard when the engine overruns the limit", async () => {
@@ -117,15 +123,15 @@ describe.skipIf(!hasTestDatabase)("background worker", () => {
 
   it("a worker stopped cleanly hands its running job back without using up an attempt", async () => {
     worker = await startWorker({ databaseUrl: t.url, heartbeatMs: 200, graceMs: 1000, sweepEveryMs: 500, staleAfterMs: 3000, pollSeconds: 0.5, log: () => {} });
-    const id = await job(nets.slow, analysisParams(), 3);
+    const id = await job(nets.slow, analysisParams(), 10);
     await waitFor(async () => (await row(id)).status === "running", 20_000, "running");
     await worker.stop();
     worker = undefined;
     const back = await row(id);
     expect([back.status, back.attempts, back.worker_id]).toEqual(["queued", 0, null]);
-    // The engine stops at half the limit, far from the hard kill (the child's start-up counts against
-    // the limit too), so the outcome is the engine's own: a result with its unfinished stages.
-    worker = await startWorker({ databaseUrl: t.url, heartbeatMs: 200, graceMs: 1000, engineDeadlineFactor: 0.5, sweepEveryMs: 500, staleAfterMs: 3000, pollSeconds: 0.5, log: () => {} });
+    // The engine stops at a fifth of the limit, far from the hard kill (the child's start-up counts
+    // against the limit too), so the outcome is the engine's own: a result with its unfinished stages.
+    worker = await startWorker({ databaseUrl: t.url, heartbeatMs: 200, graceMs: 1000, engineDeadlineFactor: 0.2, sweepEveryMs: 500, staleAfterMs: 3000, pollSeconds: 0.5, log: () => {} });
     const done = await finished(id, 30_000);
     expect(done.attempts).toBe(1);
     // The engine's own deadline ends it first: a result whose unfinished stages say so.
@@ -136,9 +142,9 @@ describe.skipIf(!hasTestDatabase)("background worker", () => {
   }, 60_000);
 
   it("recovers jobs whose worker process was killed mid-run: retried, or failed with the reason", async () => {
-    const retried = await job(nets.slow, analysisParams(), 3);
-    const lastTry = await job(nets.slow, analysisParams(), 3);
-    await asAnalysesDb(t.db).updateTable("analyses").set({ max_attempts: 1 }).where("id", "=", lastTry).execute();
+    const retried = await job(nets.slow, analysisParams(), 10);
+    const lastTry = await job(nets.slow, analysisParams(), 10);
+    await t.db.updateTable("analyses").set({ max_attempts: 1 }).where("id", "=", lastTry).execute();
     // A separate worker process, killed with SIGKILL once both jobs run (no chance to clean up).
     const proc: ChildProcess = spawn("npx", ["tsx", "app/jobs/worker.server.ts"], {
       env: { ...process.env, DATABASE_URL: t.url, WORKER_CONCURRENCY: "2" },
@@ -152,14 +158,15 @@ describe.skipIf(!hasTestDatabase)("background worker", () => {
       process.kill(-proc.pid!, "SIGKILL");
     }
     expect((await row(retried)).status).toBe("running");
-    worker = await startWorker({ databaseUrl: t.url, heartbeatMs: 200, graceMs: 1000, sweepEveryMs: 500, staleAfterMs: 2500, pollSeconds: 0.5, log: () => {} });
+    // The retry's engine stops at a fifth of the limit, so its outcome is the engine's own (see above).
+    worker = await startWorker({ databaseUrl: t.url, heartbeatMs: 200, graceMs: 1000, engineDeadlineFactor: 0.2, sweepEveryMs: 500, staleAfterMs: 2500, pollSeconds: 0.5, log: () => {} });
     const failed = await finished(lastTry, 30_000);
     expect(failed.status).toBe("failed");
     expect(failed.error).toMatch(/stopped responding .* on each of its 1 attempts/);
     const again = await finished(retried, 40_000);
     expect(again.attempts).toBe(2);
-    expect(["succeeded", "failed"]).toContain(again.status);
-    const stuck = await asAnalysesDb(t.db).selectFrom("analyses").select("id").where("status", "=", "running").execute();
+    expect(again.status).toBe("succeeded");
+    const stuck = await t.db.selectFrom("analyses").select("id").where("status", "=", "running").execute();
     expect(stuck).toEqual([]);
   }, 90_000);
 });

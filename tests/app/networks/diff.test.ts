@@ -55,3 +55,15 @@ describe("diffNetworks with constant species", () => {
     expect(diffNetworks(old, v1).identical).toBe(true);
   });
 });
+
+describe("diffNetworks with stored initial values", () => {
+  const side = (csv: string) => analyseStructure(parseNetworkCsv(csv));
+  it("names initial values set, changed and removed; a version differing only there is not identical", () => {
+    const v1 = side("reaction\nA -> B\n# initial: A = 10\n");
+    const v2 = side("reaction\nA -> B\n# initial: A = 5, B = 0\n");
+    const d = diffNetworks(v1, v2);
+    expect(d.initialChanged).toEqual(["A: 10 → 5", "B = 0"]);
+    expect(d.identical).toBe(false);
+    expect(diffNetworks(v2, side("reaction\nA -> B\n")).initialChanged).toEqual(["A: no initial value", "B: no initial value"]);
+  });
+});

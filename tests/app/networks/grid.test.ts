@@ -28,6 +28,25 @@ describe("grid ↔ CSV", () => {
     expect(g.notices.join(" ")).toMatch(/`notes`.*left out/);
   });
 
+  it("names every unknown column whose cells the grid would lose (rate names under `rate_constant`)", () => {
+    const g = csvToGrid("reaction,rate_constant,Value\nA -> B,k1,2\nB -> C,k2,\n");
+    expect(g.dropped.map((p) => [p.row, p.columnIndex, p.column, p.message])).toEqual([
+      [1, 2, "rate_constant", "unknown column `rate_constant`: the grid has no place for its cells"],
+      [1, 3, "Value", "unknown column `Value`: the grid has no place for its cells"],
+    ]);
+    expect(g.dropped[0]!.expected).toContain("reaction, label, rate, reverse_rate, rate_value, reverse_rate_value");
+    // A nameless column with data counts too; a nameless empty one (a trailing comma) does not.
+    expect(csvToGrid("reaction,\nA -> B,k1\n").dropped).toHaveLength(1);
+    expect(csvToGrid("reaction,\nA -> B,\n").dropped).toEqual([]);
+    expect(csvToGrid("reaction,rate\nA -> B,k1\n").dropped).toEqual([]);
+  });
+
+  it("refuses to guess the columns of a headerless file with more than reactions in it", () => {
+    const g = csvToGrid("A -> B,k1\nB -> C\nC -> A,k3\n");
+    expect(g.dropped).toHaveLength(1);
+    expect(g.dropped[0]!.message).toBe("the file has no header naming its columns, and lines 1, 3 have cells after the reaction that could only be guessed at");
+  });
+
   it("reads a headerless file as reactions", () => {
     const g = csvToGrid("A -> B\nB -> C\n");
     expect(g.rows.map((r) => r.reaction)).toEqual(["A -> B", "B -> C"]);
@@ -98,5 +117,23 @@ describe("constant species in the grid", () => {
     expect(csvToGrid("# Restored from version 1 as version 3.\nreaction\nA -> B\n").notices).toEqual([
       "The comment on line 1 (`# Restored from version 1 as version 3.`) is not kept by the grid.",
     ]);
+  });
+});
+
+describe("initial values in the grid", () => {
+  it("reads the `# initial:` line into its own field, writes it back after the rows, and keeps it out of the comment notices", () => {
+    const g = csvToGrid("# initial: X = 1/2\nreaction\nA + 2X <-> 3X\nX <-> B\n# constant: A = 2\n");
+    expect(g.initial).toBe("X = 1/2");
+    expect(g.notices).toEqual([]);
+    const csv = gridToCsv(g.rows, g.constants, g.initial);
+    expect(csv).toBe("reaction\nA + 2X <-> 3X\nX <-> B\n# constant: A = 2\n# initial: X = 1/2\n");
+    expect(parseNetworkCsv(csv).initial?.map((i) => i.name)).toEqual(["X"]);
+  });
+
+  it("reports the field's problems apart from the rows", () => {
+    const rows = [{ ...emptyRow(), reaction: "A + 2X <-> 3X" }];
+    const check = checkGrid(rows, "A = 2", "X = -1, A = 1");
+    expect(check.byRow.size).toBe(0);
+    expect(check.initial.map((p) => p.message)).toEqual(["the initial value `-1` of `X` is negative", "`A` is held constant, so it has no initial value of its own"]);
   });
 });

@@ -13,6 +13,8 @@ import { APP_URL, makeLab, makeRequest, makeUser, run, sessionCookieFor, setUpAc
  */
 const HATCHERY = readFileSync("tests/fixtures/sbml/hatchery.xml", "utf8");
 const HATCHERY_CSV = "reaction,label,rate,reverse_rate,rate_value,reverse_rate_value\nEgg -> Fry,hatching,kh,,3,\nFry + Feed <-> Fingerling,growing,kg,kb,1/2,1/4\n";
+// The file's initial concentrations are stored with the version, after the rows.
+const HATCHERY_STORED = `${HATCHERY_CSV}# initial: Egg = 2, Fry = 0, Feed = 1, Fingerling = 0\n`;
 
 describe.skipIf(!hasTestDatabase)("importing SBML and reaction lists", () => {
   let t: TestDatabase;
@@ -58,7 +60,7 @@ describe.skipIf(!hasTestDatabase)("importing SBML and reaction lists", () => {
     const res = await run(api.action, upload("hatchery.xml", HATCHERY, "application/xml", { name: "Hatchery" }, tokens.editor!), alpha);
     expect(res.status).toBe(201);
     const body = res.body as { network: { id: string; name: string }; version: { number: number; csv: string }; structure: { species: string[]; deficiency: number } };
-    expect(body.version).toMatchObject({ number: 1, csv: HATCHERY_CSV });
+    expect(body.version).toMatchObject({ number: 1, csv: HATCHERY_STORED });
     networkId = body.network.id;
     await computePendingStructures(t.db);
     const item = await import("~/routes/api/networks-item");
@@ -110,9 +112,9 @@ describe.skipIf(!hasTestDatabase)("importing SBML and reaction lists", () => {
     expect(xml.response?.headers.get("Content-Type")).toMatch(/^application\/sbml\+xml/);
     const back = readSbml(String(xml.body));
     expect(back.problems).toEqual([]);
-    expect(back.csv).toBe(HATCHERY_CSV);
+    expect(back.csv).toBe(HATCHERY_STORED);
     const txt = await run(download.loader, makeRequest(`${page}/download/network.txt?v=1`, { cookie: cookies.viewer }), params("network.txt"));
-    expect(txt.body).toBe("hatching: Egg -> Fry, kh = 3\ngrowing: Fry + Feed <-> Fingerling, kg = 1/2, kb = 1/4\n");
+    expect(txt.body).toBe("# initial: Egg = 2, Fry = 0, Feed = 1, Fingerling = 0\nhatching: Egg -> Fry, kh = 3\ngrowing: Fry + Feed <-> Fingerling, kg = 1/2, kb = 1/4\n");
     const py = await run(download.loader, makeRequest(`${page}/download/odes.py?v=1`, { cookie: cookies.viewer }), params("odes.py"));
     expect(String(py.body)).toContain('PARAMETERS = {"kh": 3.0, "kg": 1 / 2, "kb": 1 / 4}');
     expect(py.response?.headers.get("Content-Disposition")).toMatch(/hatchery_v1_odes\.py/);
@@ -120,5 +122,30 @@ describe.skipIf(!hasTestDatabase)("importing SBML and reaction lists", () => {
     expect(String(jl.body)).toContain('"kh" => 4.0');
     const outsider = await run(download.loader, makeRequest(`${page}/download/network.xml`, { cookie: cookies.outsider }), params("network.xml"));
     expect(outsider.status).toBe(404);
+  });
+
+  it("offers every download of a version with constant species (no refusal), each carrying them", async () => {
+    const csv = "reaction,rate,reverse_rate,rate_value,reverse_rate_value\nA + 2X <-> 3X,k1,k2,2,1\nX <-> B,k3,k4,1,3\n# constant: A = 5/2, B = 3\n# initial: X = 1/4\n";
+    const created = await run(api.action, makeRequest(LIST, { bearer: tokens.editor, json: { name: "Held switch", csv } }), alpha);
+    expect(created.status).toBe(201);
+    const id = (created.body as { network: { id: string } }).network.id;
+    const get = (file: string) => run(download.loader, makeRequest(`/labs/alpha/networks/${id}/download/${file}`, { cookie: cookies.viewer }), { ...alpha, networkId: id, file });
+    const xml = await get("network.xml");
+    expect(xml.status).toBe(200);
+    expect(String(xml.body)).toContain('<species id="A" compartment="compartment" initialConcentration="2.5" hasOnlySubstanceUnits="false" boundaryCondition="true" constant="true"/>');
+    const back = readSbml(String(xml.body));
+    expect(back.network?.constants?.map((c) => c.name)).toEqual(["A", "B"]);
+    expect(back.network?.initial?.map((i) => i.name)).toEqual(["X"]);
+    const txt = await get("network.txt");
+    expect(txt.status).toBe(200);
+    expect(String(txt.body)).toMatch(/^# constant: A = 5\/2, B = 3\n# initial: X = 1\/4\n/);
+    const py = await get("odes.py");
+    expect(py.status).toBe(200);
+    expect(String(py.body)).toContain('"A": 5 / 2, "B": 3.0}');
+    expect((await get("odes.jl")).status).toBe(200);
+    // And an SBML file whose boundary species is held arrives as a version with the `# constant:` line.
+    const imported = await run(api.action, makeRequest(LIST, { bearer: tokens.editor, json: { name: "Held again", sbml: String(xml.body) } }), alpha);
+    expect(imported.status).toBe(201);
+    expect((imported.body as { version: { csv: string } }).version.csv).toMatch(/\n# constant: A = 5\/2, B = 3\n# initial: X = 1\/4\n$/);
   });
 });

@@ -18,12 +18,13 @@ describe("importFormat", () => {
 });
 
 describe("importNetworkText", () => {
-  it("reads SBML into our CSV and names the initial values a version does not keep", () => {
+  it("reads SBML into our CSV, initial values as its `# initial:` line", () => {
     const r = importNetworkText(HATCHERY, "sbml");
     expect(r.ok).toBe(true);
     if (!r.ok) return;
     expect(r.csv.split("\n")[1]).toBe("Egg -> Fry,hatching,kh,,3,");
-    expect(r.notes).toContain("initial concentrations in the file are not part of a network version: Egg = 2, Fry = 0, Feed = 1, Fingerling = 0");
+    expect(r.csv.trimEnd().split("\n").at(-1)).toBe("# initial: Egg = 2, Fry = 0, Feed = 1, Fingerling = 0");
+    expect(r.notes.join("\n")).not.toMatch(/initial/);
   });
 
   it("refuses with located problems and every reaction's fate", () => {

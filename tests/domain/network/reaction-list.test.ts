@@ -44,6 +44,23 @@ describe("parseReactionList", () => {
     expect(back.network.rows.map((r) => r.label)).toEqual(net.rows.map((r) => r.label));
   });
 
+  it("carries held species and initial values as the CSV's directive lines, problems located in the text", () => {
+    const net = parseNetworkCsv("reaction,rate,reverse_rate,rate_value\nA + 2X <-> 3X,k1,k2,3/2\nX <-> B,k3,k4,\n# constant: A = 2, B\n# initial: X = 1/2\n");
+    const text = formatReactionList(net);
+    // Terms of held species come after the others, as in the CSV writer.
+    expect(text).toBe("# constant: A = 2, B\n# initial: X = 1/2\n2X + A <-> 3X, k1 = 3/2, k2\nX <-> B, k3, k4\n");
+    const back = parseReactionList(text);
+    expect(back.ok && networkSignature(back.network)).toEqual(networkSignature(net));
+    const bad = parseReactionList("A + X -> 2X\n\n# initial: X = -1, Q = 1\n#constant: A = 0\n");
+    expect(bad.ok).toBe(false);
+    if (bad.ok) return;
+    expect(bad.problems.map((p) => [p.row, p.columnIndex, p.column, p.message])).toEqual([
+      [3, 12, "initial", "the initial value `-1` of `X` is negative"],
+      [3, 20, "initial", "`Q` has an initial value but is not a species of any reaction"],
+      [4, 12, "constant", "the concentration `0` of `A` is not a positive number"],
+    ]);
+  });
+
   it("quotes labels that contain the separators", () => {
     const net = parseNetworkCsv('reaction,label\nA -> B,"slow: step, #1 ""a"""\n');
     const text = formatReactionList(net);

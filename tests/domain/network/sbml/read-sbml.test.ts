@@ -117,17 +117,59 @@ describe("readSbml", () => {
       </reaction>`,
       `
     <listOfParameters><parameter id="q" value="1"/></listOfParameters>
-    <listOfRules><assignmentRule variable="q"><math xmlns="http://www.w3.org/1998/Math/MathML"><cn>2</cn></math></assignmentRule></listOfRules>`,
+    <listOfRules><assignmentRule variable="q"><math xmlns="http://www.w3.org/1998/Math/MathML"><cn>2</cn></math></assignmentRule><rateRule variable="Spare"><math xmlns="http://www.w3.org/1998/Math/MathML"><cn>1</cn></math></rateRule></listOfRules>`,
     ).replace('<species id="Spare" compartment="pond" initialConcentration="1"/>', '<species id="Spare" compartment="pond" boundaryCondition="true"/>');
     const r = readSbml(text);
     const lines = text.split("\n");
     const byId = (id: string) => r.problems.find((p) => p.id === id)!;
     expect(byId("half").message).toMatch(/stoichiometry 0\.5 of `Alga` is not a whole number/);
     expect(lines[byId("half").row - 1]).toContain('stoichiometry="0.5"');
-    expect(byId("Spare").message).toMatch(/held fixed .*boundaryCondition/);
+    // A boundary species that a rule moves is out of scope: located at the species, naming its id.
+    expect(byId("Spare").message).toMatch(/^<species id="Spare">: species `Spare` is a boundary species \(boundaryCondition="true", constant="false"\) whose value the rateRule on line \d+ sets/);
+    expect(lines[byId("Spare").row - 1]).toContain('<species id="Spare"');
     expect(byId("q").message).toMatch(/assignmentRule for `q`/);
     expect(byId("ghost").message).toMatch(/names `nobody`, which is not a species, compartment or parameter/);
     expect(r.network).toBeUndefined();
+  });
+
+  it("reads boundary and constant species as constant species, held at their initial value or symbolic", () => {
+    const feed = `      <reaction id="feed" reversible="false">
+        <listOfReactants><speciesReference species="Spare"/></listOfReactants>
+        <listOfProducts><speciesReference species="Alga"/></listOfProducts>
+        <kineticLaw><math xmlns="http://www.w3.org/1998/Math/MathML"><apply><times/><ci>pond</ci><ci>kf</ci><ci>Spare</ci></apply></math></kineticLaw>
+      </reaction>
+      <reaction id="light" reversible="false">
+        <listOfReactants><speciesReference species="Sun"/><speciesReference species="Alga"/></listOfReactants>
+        <listOfProducts><speciesReference species="Sun"/><speciesReference species="Alga" stoichiometry="2"/></listOfProducts>
+        <kineticLaw><math xmlns="http://www.w3.org/1998/Math/MathML"><apply><times/><ci>pond</ci><ci>kl</ci><ci>Sun</ci><ci>Alga</ci></apply></math></kineticLaw>
+      </reaction>`;
+    const text = L2V4(`${GRAZING}\n${feed}`, `\n    <listOfParameters><parameter id="kf" value="2"/><parameter id="kl"/></listOfParameters>`)
+      // Spare: boundary (no rules), held at its concentration 1; Sun: constant="true" without a value, symbolic.
+      .replace('<species id="Spare" compartment="pond" initialConcentration="1"/>', '<species id="Spare" compartment="pond" initialConcentration="1" boundaryCondition="true"/>\n      <species id="Sun" compartment="pond" boundaryCondition="true" constant="true"/>');
+    const r = readSbml(text);
+    expect(r.problems).toEqual([]);
+    expect(r.network!.species).toEqual(["Alga", "Grazer"]);
+    expect(r.network!.constants?.map((c) => [c.name, c.value ? formatRational(c.value) : null])).toEqual([
+      ["Spare", "1"],
+      ["Sun", null],
+    ]);
+    expect(networkSignature(r.network!).reactions).toEqual(["Alga + Grazer -> 2Grazer @k=1/2", "0 -> Alga held Spare @kf=2", "Alga -> 2Alga held Sun @kl=?"]);
+    // Initial values of the other species: Alga's amount 3 in a pond of size 2, Grazer's concentration.
+    expect(r.csv).toMatch(/\n# constant: Spare = 1, Sun\n# initial: Alga = 3\/2, Grazer = 1\/4\n$/);
+    expect(r.network!.initial?.map((i) => [i.name, formatRational(i.value)])).toEqual([
+      ["Alga", "3/2"],
+      ["Grazer", "1/4"],
+    ]);
+  });
+
+  it("refuses a species held fixed at 0, located at the species", () => {
+    const feed = `<reaction id="feed" reversible="false"><listOfReactants><speciesReference species="Spare"/></listOfReactants><listOfProducts><speciesReference species="Alga"/></listOfProducts>
+<kineticLaw><math xmlns="http://www.w3.org/1998/Math/MathML"><apply><times/><ci>pond</ci><ci>kf</ci><ci>Spare</ci></apply></math><listOfParameters><parameter id="kf" value="1"/></listOfParameters></kineticLaw></reaction>`;
+    const text = L2V4(feed).replace('<species id="Spare" compartment="pond" initialConcentration="1"/>', '<species id="Spare" compartment="pond" initialConcentration="0" constant="true" boundaryCondition="true"/>');
+    const r = readSbml(text);
+    expect(r.network).toBeUndefined();
+    expect(r.problems.map((p) => [p.element, p.id, p.message])).toEqual([["species", "Spare", expect.stringMatching(/held fixed at 0/)]]);
+    expect(text.split("\n")[r.problems[0].row - 1]).toContain('<species id="Spare"');
   });
 
   it("reports malformed XML with its line and refuses Level 1", () => {

@@ -1,13 +1,21 @@
-import { divide } from "../algebra/index";
-import { add as addPoly, fromTerms, mul, pow, scale, terms } from "../algebra/index";
-import type { Rational } from "../algebra/index";
-import { gcdBig, rational } from "../algebra/index";
-import type { QPoly } from "./kinetics";
+import { divide } from "./division";
+import type { Polynomial } from "./polynomial";
+import { add as addPoly, fromTerms, mul, pow, scale, terms } from "./polynomial";
+import type { Rational } from "./rational";
+import { gcdBig, rational } from "./rational";
+
+type QPoly = Polynomial<Rational>;
 
 /**
- * Small helpers on polynomials of the kinetics ring that the steady-state layer needs and the
- * algebra engine does not offer: coefficients in one variable, contents, sign patterns, exact quotients.
+ * Helpers on polynomials over Q for the steady-state layer: coefficients in one variable,
+ * contents, sign patterns, exact quotients. They live here, beside the packed exponent layout
+ * they read, so that no module outside the algebra reads `exps` directly.
  */
+
+/** Is p a non-zero constant? A basis [c] with c ≠ 0 generates the whole ring. */
+export function isNonZeroConstant<C>(p: Polynomial<C>): boolean {
+  return p.coeffs.length === 1 && p.exps.every((e) => e === 0);
+}
 
 /** Degree of p in variable k (−1 for the zero polynomial). Example: degreeIn(x^2*y + y, x) = 2. */
 export function degreeIn(p: QPoly, k: number): number {

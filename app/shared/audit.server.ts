@@ -1,7 +1,8 @@
-import type { Kysely, Transaction } from "kysely";
-import type { Database, JsonObject } from "~/db/schema";
-
-type Executor = Kysely<Database> | Transaction<Database>;
+/**
+ * The audit trail: every feature writes its events here (one list of kinds) and the lab and
+ * account pages read them back.
+ */
+import type { DbExecutor, JsonObject } from "~/db/schema";
 
 export type AuditKind =
   | "auth.signed_in"
@@ -9,6 +10,7 @@ export type AuditKind =
   | "auth.signed_out_everywhere"
   | "lab.created"
   | "lab.renamed"
+  | "examples.copied"
   | "membership.role_changed"
   | "membership.removed"
   | "membership.left"
@@ -17,10 +19,14 @@ export type AuditKind =
   | "invitation.revoked"
   | "invitation.accepted"
   | "api_token.created"
-  | "api_token.revoked";
+  | "api_token.revoked"
+  | "network.deleted"
+  | "analysis.limits_changed"
+  | "analysis.share_link_created"
+  | "analysis.share_link_revoked";
 
 export async function recordAudit(
-  db: Executor,
+  db: DbExecutor,
   event: { kind: AuditKind; actorId: string | null; labId?: string | null; details?: JsonObject },
 ): Promise<void> {
   await db
@@ -39,7 +45,7 @@ export interface AuditEntry {
 }
 
 /** Newest first: a lab's trail (for its owners). */
-export async function listLabAudit(db: Executor, labId: string, limit = 200): Promise<AuditEntry[]> {
+export async function listLabAudit(db: DbExecutor, labId: string, limit = 200): Promise<AuditEntry[]> {
   const rows = await db
     .selectFrom("audit_events as a")
     .leftJoin("users as u", "u.id", "a.actor_id")
@@ -59,7 +65,7 @@ export async function listLabAudit(db: Executor, labId: string, limit = 200): Pr
 }
 
 /** Newest first: a person's own account events (sign-ins, tokens), shown on the account page. */
-export async function listAccountEvents(db: Executor, userId: string, limit = 20) {
+export async function listAccountEvents(db: DbExecutor, userId: string, limit = 20) {
   return db
     .selectFrom("audit_events")
     .select(["id", "kind", "details", "created_at"])

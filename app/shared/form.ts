@@ -1,3 +1,4 @@
+/** Form-action helpers shared by every feature: one result shape, and fields read as text. */
 /** Result of a form action, for `data(result, { status })` and the page to show. */
 export interface ActionResult {
   status: number;
@@ -13,4 +14,11 @@ export const refuse = (status: number, error: string): ActionResult => ({ status
 export function field(form: FormData, name: string): string {
   const v = form.get(name);
   return typeof v === "string" ? v : "";
+}
+
+/** Every text field of a form, as the plain object the JSON API takes. */
+export function formObject(form: FormData): Record<string, unknown> {
+  const out: Record<string, unknown> = {};
+  for (const [k, v] of form.entries()) if (typeof v === "string") out[k] = v;
+  return out;
 }

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { PolynomialRing, QQ } from "@domain/algebra/index";
-import { coefficientsIn, degreeIn, exactQuotient, normaliseEquation, primitive, signPattern, substituteFraction, variablesOf } from "@domain/steady-state/poly-tools";
+import { coefficientsIn, degreeIn, exactQuotient, normaliseEquation, primitive, signPattern, substituteFraction, variablesOf } from "@domain/algebra/poly-tools";
 
 const R = new PolynomialRing(["x", "y", "z"], QQ, "lex");
 const p = (s: string) => R.parse(s);

@@ -5,10 +5,11 @@ import { join } from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
 import { evaluate, partialDerivative, type Rational } from "../../../domain/algebra/index";
 import { rational, toNumber, formatRational } from "../../../domain/algebra/rational";
-import { odeJulia, odePython, parseNetworkCsv } from "../../../domain/network/index";
+import { parseNetworkCsv } from "../../../domain/network/index";
+import { odeJulia, odePython } from "../../../domain/steady-state/index";
 import { kineticsRing, massActionOdes } from "../../../domain/steady-state/index";
 import { seededRandom } from "../../support/prng";
-import { roundTripCorpus } from "./sbml/demo-corpus";
+import { roundTripCorpus } from "../network/sbml/demo-corpus";
 
 /**
  * The exported Python module, run by Debian's python3-scipy (NumPy 1.x/2.x, SciPy), against the
@@ -53,6 +54,8 @@ describe.skipIf(!hasScipy)(`ODEs as Python, run with ${SCIPY}`, () => {
     const kin = kineticsRing(net, { substituteRates: false });
     const rates = new Map<string, Rational>(kin.rateParameters.map((k) => [k, net.reactions.find((r) => r.rate === k)?.rateValue ?? q()]));
     for (const r of net.reactions) if (r.rateValue) rates.set(r.rate, r.rateValue);
+    // Held species are parameters of the module, at the version's concentration (seeded when symbolic).
+    for (const c of net.constants ?? []) if (c.value) rates.set(c.name, c.value);
     const odes = massActionOdes(net, kin);
     const points = Array.from({ length: 5 }, () => kin.species.map(() => q()));
     const file = join(dir, `net${seed}.py`);
@@ -81,7 +84,30 @@ describe.skipIf(!hasScipy)(`ODEs as Python, run with ${SCIPY}`, () => {
     writeFileSync(file, odePython(parseNetworkCsv("reaction,rate\nA -> B,k\n"), { title: "open" }));
     const run = spawnSync(PYTHON, ["-c", `import importlib.util as u; s=u.spec_from_file_location("m", ${JSON.stringify(file)}); m=u.module_from_spec(s); s.loader.exec_module(m); m.rhs(0, [1.0, 1.0])`], { encoding: "utf8" });
     expect(run.status).not.toBe(0);
-    expect(run.stderr).toMatch(/give values for the rate constants k/);
+    expect(run.stderr).toMatch(/give values for the rate constants and held concentrations k/);
+  });
+
+  it("holds a constant species as a parameter: its concentration multiplies the rate, it has no equation", () => {
+    const file = join(dir, "held.py");
+    const net = parseNetworkCsv("reaction,rate,reverse_rate,rate_value,reverse_rate_value\nA + 2X <-> 3X,k1,k2,2,1\nX <-> B,k3,k4,1,3\n# constant: A = 5/2, B\n# initial: X = 1/4\n");
+    const text = odePython(net, { title: "held" });
+    expect(text).toContain('SPECIES = ["X"]');
+    expect(text).toContain('PARAMETERS = {"k1": 2.0, "k2": 1.0, "k3": 1.0, "k4": 3.0, "A": 5 / 2, "B": None}');
+    expect(text).toContain('INITIAL = {"X": 1 / 4}');
+    writeFileSync(file, text);
+    // At X = 1/4, A = 5/2, B = 3: dX/dt = k1·A·X² − k2·X³ − k3·X + k4·B = 5/16 − 1/64 − 1/4 + 9 = 9.046875 (by hand).
+    const probe = `import importlib.util as u; s=u.spec_from_file_location("m", ${JSON.stringify(file)}); m=u.module_from_spec(s); s.loader.exec_module(m)
+p = dict(m.PARAMETERS); p["B"] = 3.0
+print(repr(float(m.rhs(0, [m.INITIAL["X"]], p)[0])))
+try:
+    m.rhs(0, [1.0])
+except ValueError as e:
+    print(e)`;
+    const run = spawnSync(PYTHON, ["-c", probe], { encoding: "utf8" });
+    expect(run.stderr).toBe("");
+    const [value, message] = run.stdout.trim().split("\n");
+    expect(Number(value)).toBe(9.046875);
+    expect(message).toBe("give values for the rate constants and held concentrations B");
   });
 
   it("runs as a script: solve_ivp to t = 10 conserves E + C of the enzyme demo", () => {
@@ -103,5 +129,13 @@ describe("ODEs as Julia", () => {
     expect(text).toContain('du[2] = k["k"] * u[1]^2  # dB/dt');
     expect(text).toContain('J[1, 1] = -4 * k["k"] * u[1]');
     expect(text).toMatch(/^# Mass-action ODEs of "dimer"/);
+  });
+
+  it("writes a held species as a parameter factor of its reactions' rates", () => {
+    const text = odeJulia(parseNetworkCsv("reaction,rate,rate_value\nA + 2X -> 3X,k1,2\nX -> 0,k2,1\n# constant: A = 5/2\n# initial: X = 0\n"), { title: "held" });
+    expect(text).toContain('"k1" => 2.0, "k2" => 1.0, "A" => 5 / 2)');
+    expect(text).toContain('const INITIAL = Dict{String,Float64}("X" => 0.0)');
+    expect(text).toContain('du[1] = k["k1"] * k["A"] * u[1]^2 - k["k2"] * u[1]  # dX/dt');
+    expect(text).toContain("# Held constant (parameters beside the rate constants, not variables: their d/dt is 0): A = 5/2");
   });
 });
