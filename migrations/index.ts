@@ -4,6 +4,7 @@ import * as accounts from "./20261201230000_accounts";
 import * as analyses from "./20261201234500_analyses";
 import * as rateLimits from "./20261202070000_rate_limits";
 import * as publicLabs from "./20261202130000_public_labs";
+import * as analysisRuns from "./20261202131000_analysis_runs";
 import * as networkStructures from "./20261202140000_network_structures";
 
 /**
@@ -17,5 +18,6 @@ export const migrations: Record<string, Migration> = {
   "20261201234500_analyses": analyses,
   "20261202070000_rate_limits": rateLimits,
   "20261202130000_public_labs": publicLabs,
+  "20261202131000_analysis_runs": analysisRuns,
   "20261202140000_network_structures": networkStructures,
 };

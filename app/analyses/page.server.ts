@@ -14,7 +14,9 @@ export async function analysisPageData(db: DbExecutor, job: JobRecord, options: 
   const version = await db.selectFrom("network_versions").select("csv").where("id", "=", job.network_version_id).executeTakeFirstOrThrow();
   const network = networkOf(version.csv);
   const params = job.params as unknown as AnalysisParams;
-  const result = job.status === "succeeded" ? (job.result as unknown as AnalysisResult) : null;
+  // A run that has not succeeded shows what its worker stored as stages finished, marked partial.
+  const result = (job.status === "succeeded" ? job.result : job.partial_result) as unknown as AnalysisResult | null;
+  const partial = job.status !== "succeeded" && result !== null;
   // A share link shows no member names or e-mail to people outside the lab.
   const redact = <T extends { startedBy: string | null }>(j: T): T => (options.sharedView ? { ...j, startedBy: null } : j);
   const childJson = (kind: string) => visible.filter((c) => c.kind === kind).map((c) => redact(jobJson(c, { result: c.status === "succeeded" })));
@@ -22,6 +24,7 @@ export async function analysisPageData(db: DbExecutor, job: JobRecord, options: 
     job: redact(jobJson(job)),
     params,
     result,
+    partial,
     view: result ? presentResult(result, params) : null,
     rates: rateSymbols(network),
     species: [...network.species],

@@ -148,6 +148,9 @@ export function jobJson(j: JobRecord, options: { result?: boolean } = {}) {
   return {
     id: j.id,
     kind: j.kind,
+    name: j.name,
+    note: j.note,
+    archived: j.archived_at !== null,
     status: j.status,
     parentId: j.parent_id,
     network: { id: j.network_id, name: j.network_name, version: j.version_number },
@@ -163,7 +166,7 @@ export function jobJson(j: JobRecord, options: { result?: boolean } = {}) {
     startedAt: j.started_at?.toISOString() ?? null,
     finishedAt: j.finished_at?.toISOString() ?? null,
     timings: j.timings,
-    ...(options.result ? { result: j.result } : {}),
+    ...(options.result ? { result: j.result, partialResult: j.partial_result } : {}),
   };
 }
 export type JobJson = ReturnType<typeof jobJson>;

@@ -9,7 +9,8 @@ import { enqueue } from "~/jobs/queue.server";
 import type { LabAccess } from "~/permissions/permissions.server";
 import type { VersionRecord } from "~/networks/networks.server";
 import { parseAnalysisParams, parseRelationParams, parseScanParams, parseTimeCourseParams, type AnalysisParams, type Problems } from "./params";
-import { insertJobWithinCaps, labLimits, requestCancel, type JobRecord } from "./repository.server";
+import { recordRunAudit, runDetails } from "./audit.server";
+import { findJobById, insertJobWithinCaps, isFinished, labLimits, requestCancel, type JobRecord } from "./repository.server";
 import type { DbExecutor, JobKind, JobRow, JsonObject } from "~/db/schema";
 import { type AuditKind, recordAudit } from "~/shared/audit.server";
 
@@ -43,7 +44,13 @@ export async function startAnalysis(db: DbExecutor, access: LabAccess, version: 
   });
   if (!inserted.ok) return { ok: false, problems: [{ field: "queue", message: inserted.message }] };
   await queue(inserted.job);
+  await auditStart(db, access, inserted.job);
   return { ok: true, job: inserted.job };
+}
+
+async function auditStart(db: DbExecutor, access: LabAccess, job: JobRow): Promise<void> {
+  const record = await findJobById(db, job.id);
+  if (record) await recordRunAudit(db, access, "analysis.started", runDetails(record));
 }
 
 /** A scan, relation test or time course hanging off an analysis (same network version and settings). */
@@ -74,11 +81,16 @@ export async function startFollowUp(db: DbExecutor, access: LabAccess, parent: J
   });
   if (!inserted.ok) return { ok: false, problems: [{ field: "queue", message: inserted.message }] };
   await queue(inserted.job);
+  await auditStart(db, access, inserted.job);
   return { ok: true, job: inserted.job };
 }
 
-export async function cancelJob(db: DbExecutor, job: JobRecord) {
-  return requestCancel(db, job.id);
+/** Cancels a job and notes it in the lab's trail (a job already finished is left alone, and not noted). */
+export async function cancelJob(db: DbExecutor, access: LabAccess, job: JobRecord) {
+  if (isFinished(job.status)) return job.status;
+  const status = await requestCancel(db, job.id);
+  await recordRunAudit(db, access, "analysis.cancelled", runDetails(job));
+  return status;
 }
 
 /** An analysis event in the lab's audit trail (the shared writer, with this feature's kinds). */

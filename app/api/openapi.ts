@@ -62,7 +62,7 @@ export const API_OPERATIONS: readonly Operation[] = [
   { method: "get", path: `${LAB}/networks/{networkId}/versions/{number}`, summary: "One version with its CSV and structure (null, with structureStatus \"pending\", until computed).", role: "viewer", ok: 200 },
   { method: "get", path: `${LAB}/analyses`, summary: "The lab's analyses, newest first (`?networkId=`).", role: "viewer", ok: 200 },
   { method: "post", path: `${LAB}/analyses`, summary: "Start an analysis of a network version (202, queued).", role: "editor", body: { schema: "AnalysisCreate" }, ok: 202 },
-  { method: "get", path: `${LAB}/analyses/{analysisId}`, summary: "Status, progress and (once succeeded) the result.", role: "viewer", ok: 200 },
+  { method: "get", path: `${LAB}/analyses/{analysisId}`, summary: "Status, progress, name, note, archived flag; the result once succeeded, else `partialResult`: the stages finished so far (their `unfinished` lists the rest).", role: "viewer", ok: 200 },
   { method: "delete", path: `${LAB}/analyses/{analysisId}`, summary: "Cancel (as POST …/cancel).", role: "editor", ok: 200 },
   { method: "post", path: `${LAB}/analyses/{analysisId}/cancel`, summary: "Cancel: a queued analysis at once, a running one within a heartbeat.", role: "editor", ok: 200 },
   { method: "get", path: `${LAB}/analyses/{analysisId}/scans`, summary: "The scans started from this analysis.", role: "viewer", ok: 200 },

@@ -143,6 +143,12 @@ export interface AnalysesTable {
   cancel_requested_at: NullableTimestamp;
   time_limit_seconds: Generated<number>;
   notify_by_email: Generated<boolean>;
+  /** Migration 20261202131000_analysis_runs: the run's own name and note ("" when none). */
+  name: Generated<string>;
+  note: Generated<string>;
+  archived_at: NullableTimestamp;
+  /** What a cancelled or timed-out run had finished (the analysis result's shape with `unfinished[]`). */
+  partial_result: JSONColumnType<JsonObject | null, JsonObject | null | undefined, JsonObject | null>;
 }
 
 /** Read-only links to one analysis (migration 20261201234500_analyses). */
@@ -258,6 +264,7 @@ export const DATABASE_COLUMNS = {
     "id", "network_version_id", "lab_id", "status", "params", "result", "error", "engine_version", "progress", "timings",
     "started_by", "created_at", "started_at", "finished_at", "kind", "parent_id", "attempts", "max_attempts",
     "heartbeat_at", "worker_id", "cancel_requested_at", "time_limit_seconds", "notify_by_email",
+    "name", "note", "archived_at", "partial_result",
   ],
   analysis_share_links: ["id", "analysis_id", "token_hash", "created_by", "created_at", "expires_at", "revoked_at"],
   lab_analysis_settings: ["lab_id", "max_time_limit_seconds", "max_basis_size", "updated_at"],

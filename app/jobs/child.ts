@@ -8,6 +8,7 @@ import { computeJob, type JobPayload } from "./compute";
 
 export type ChildMessage =
   | { type: "progress"; phase: string; message: string }
+  | { type: "partial"; result: Record<string, unknown> }
   | { type: "result"; result: Record<string, unknown> }
   | { type: "error"; message: string; code?: string };
 
@@ -25,6 +26,7 @@ process.once("message", (raw) => {
         if (!process.connected) process.exit(1);
         send({ type: "progress", phase: p.phase, message: p.message });
       },
+      onPartial: (result) => send({ type: "partial", result }),
     });
     finish({ type: "result", result });
   } catch (e) {

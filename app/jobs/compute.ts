@@ -5,7 +5,8 @@
  */
 import { parseRational, type Rational } from "@domain/algebra/rational";
 import { parseNetworkCsv, type Network } from "@domain/network/index";
-import { analyseNetwork, type AnalysisProgress } from "@domain/steady-state/index";
+import { analyseNetwork, type AnalysisProgress, type SteadyStateAnalysis } from "@domain/steady-state/index";
+import { NOT_REACHED } from "@domain/steady-state/analyse";
 import { foldScan } from "@domain/steady-state/folds";
 import { multistationarity } from "@domain/steady-state/multistationarity";
 import { testRelationOnNetwork } from "@domain/steady-state/relation";
@@ -26,7 +27,14 @@ export interface ComputeOptions {
   /** The engine's own deadline (ms from now); phases past it end as warnings. */
   engineTimeoutMs: number;
   onProgress?: (p: AnalysisProgress) => void;
+  /**
+   * An analysis' result so far, after each stage that finished (same shape as the final result,
+   * with the stages not reached in `unfinished`); the worker keeps the last one for a run stopped from outside.
+   */
+  onPartial?: (partial: Record<string, unknown>) => void;
 }
+
+const MULTISTATIONARITY_NOT_REACHED = { verdict: "undecided", method: "none", reason: NOT_REACHED };
 
 /**
  * The network with the analysis' rate mode applied: symbolic drops every value, numeric adds
@@ -76,7 +84,18 @@ export function computeJob(payload: JobPayload, options: ComputeOptions): Record
     case "analysis": {
       const network = networkFor(payload.csv, payload.params);
       const started = Date.now();
-      const r = analyseNetwork(network, { ...analysisOptions(network, payload.params, options), initial: initialMap(payload.params.initial) });
+      const onPartial = options.onPartial;
+      const withPending = (r: SteadyStateAnalysis) => ({
+        ...analysisResultJson(r),
+        unfinished: [...r.unfinished, { stage: "multistationarity", reason: MULTISTATIONARITY_NOT_REACHED.reason }],
+        multistationarity: MULTISTATIONARITY_NOT_REACHED,
+      });
+      const r = analyseNetwork(network, {
+        ...analysisOptions(network, payload.params, options),
+        initial: initialMap(payload.params.initial),
+        ...(onPartial ? { onPartial: (p: SteadyStateAnalysis) => onPartial(withPending(p)) } : {}),
+      });
+      onPartial?.(withPending(r));
       // The multistationarity verdict is about "some constants", so it ignores the run's values; it gets a small share of the time.
       options.onProgress?.({ phase: "multistationarity", message: "deficiency theorems, injectivity, witness search" });
       const left = options.engineTimeoutMs - (Date.now() - started);

@@ -115,12 +115,19 @@ export async function processJob(db: DbExecutor, messageId: string, options: Pro
   let outcome: ChildOutcome;
   let lostRow = false;
   let cancelled = false;
+  // Partial results are written in the order they arrive; the final write waits for the last one.
+  let partialWrites: Promise<unknown> = Promise.resolve();
+  let partialStages: string[] | null = null;
   try {
     const payload = await payloadFor(db, row);
     const child = runInChild(payload, {
       engineTimeoutMs: limitMs * options.engineDeadlineFactor,
       onProgress: (p) => {
         progress = parseProgress(p, Date.now() - started);
+      },
+      onPartial: (result) => {
+        partialStages = Array.isArray(result.unfinished) ? (result.unfinished as { stage: string }[]).map((u) => u.stage) : [];
+        partialWrites = partialWrites.then(() => mine().set({ partial_result: result as JsonObject }).execute().catch(() => undefined));
       },
     });
     running.add(child);
@@ -151,20 +158,22 @@ export async function processJob(db: DbExecutor, messageId: string, options: Pro
   } catch (e) {
     outcome = { kind: "crashed", message: `could not start the job: ${(e as Error).message}` };
   }
+  await partialWrites;
   if (lostRow) return null;
+  const kept = (stages: string[] | null) => (stages ? ` Parts finished before that are kept; not finished: ${stages.join(", ")}.` : "");
 
   const elapsed = Date.now() - started;
   const timings = { ...row.timings, [`attempt${row.attempts}`]: elapsed, totalMs: elapsed };
   let update;
   if (outcome.kind === "result") {
-    update = { status: "succeeded" as const, result: outcome.result as JsonObject, error: null, progress: { stage: "done", message: "finished", elapsedMs: elapsed } };
+    update = { status: "succeeded" as const, result: outcome.result as JsonObject, partial_result: null, error: null, progress: { stage: "done", message: "finished", elapsedMs: elapsed } };
   } else if (outcome.kind === "stopped" && cancelled) {
-    update = { status: "cancelled" as const, error: `Cancelled after ${seconds(elapsed)} (during ${progress.stage}).`, progress: { ...progress, stage: "cancelled", elapsedMs: elapsed } };
+    update = { status: "cancelled" as const, error: `Cancelled after ${seconds(elapsed)} (during ${progress.stage}).${kept(partialStages)}`, progress: { ...progress, stage: "cancelled", elapsedMs: elapsed } };
   } else if (outcome.kind === "stopped") {
     const where = progress.basisSize !== undefined ? `; Gröbner basis had ${progress.basisSize} polynomials with ${progress.pairsLeft ?? "?"} pairs left` : "";
     update = {
       status: "failed" as const,
-      error: `Stopped: the time limit of ${row.time_limit_seconds} s was exceeded during ${progress.stage}${where}. Try a longer limit (up to the lab's maximum), numeric rate constants, or another elimination order.`,
+      error: `Stopped: the time limit of ${row.time_limit_seconds} s was exceeded during ${progress.stage}${where}. Try a longer limit (up to the lab's maximum), numeric rate constants, or another elimination order.${kept(partialStages)}`,
       progress: { ...progress, stage: "stopped", elapsedMs: elapsed },
     };
   } else {

@@ -24,7 +24,7 @@ export interface ChildRun {
 
 const CHILD = path.join(path.dirname(fileURLToPath(import.meta.url)), "child.ts");
 
-export function runInChild(payload: JobPayload, options: { engineTimeoutMs: number; onProgress?: (p: { phase: string; message: string }) => void }): ChildRun {
+export function runInChild(payload: JobPayload, options: { engineTimeoutMs: number; onProgress?: (p: { phase: string; message: string }) => void; onPartial?: (result: Record<string, unknown>) => void }): ChildRun {
   const child = fork(CHILD, [], {
     execArgv: ["--import", "tsx"],
     stdio: ["ignore", "ignore", "pipe", "ipc"],
@@ -42,6 +42,7 @@ export function runInChild(payload: JobPayload, options: { engineTimeoutMs: numb
   const outcome = new Promise<ChildOutcome>((resolve) => {
     child.on("message", (m: ChildMessage) => {
       if (m.type === "progress") options.onProgress?.({ phase: m.phase, message: m.message });
+      else if (m.type === "partial") options.onPartial?.(m.result);
       else if (m.type === "result") settled ??= { kind: "result", result: m.result };
       else if (m.type === "error") settled ??= { kind: "error", message: m.message, code: m.code };
     });

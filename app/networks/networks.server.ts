@@ -169,6 +169,11 @@ export async function insertNetwork(db: Kysely<Database>, input: NewNetworkInput
       .returning(["id", "lab_id", "name", "description", "tags", "archived_at", "created_at", "updated_at", "created_by"])
       .executeTakeFirstOrThrow();
     const version = await insertVersionRow(trx, row.id, 1, input);
+    // Uploads are part of the lab's trail (the name is kept, so the line still reads after a rename or delete).
+    await trx
+      .insertInto("audit_events")
+      .values({ kind: "network.created", actor_id: input.authorId, lab_id: input.labId, details: { networkId: row.id, name: row.name, version: 1 } })
+      .execute();
     return { network: toNetwork(row), version };
   });
 }
@@ -195,7 +200,7 @@ export async function appendVersion(
   input: { csv: string | ((number: number) => string); changeNote: string; authorId: string },
 ): Promise<VersionRecord> {
   return db.transaction().execute(async (trx) => {
-    await trx.selectFrom("networks").select("id").where("id", "=", networkId).forUpdate().executeTakeFirstOrThrow();
+    const network = await trx.selectFrom("networks").select(["id", "lab_id", "name"]).where("id", "=", networkId).forUpdate().executeTakeFirstOrThrow();
     const max = await trx
       .selectFrom("network_versions")
       .select(({ fn }) => fn.max("number").as("m"))
@@ -205,6 +210,15 @@ export async function appendVersion(
     const csv = typeof input.csv === "function" ? input.csv(number) : input.csv;
     const version = await insertVersionRow(trx, networkId, number, { ...input, csv });
     await trx.updateTable("networks").set({ updated_at: new Date() }).where("id", "=", networkId).execute();
+    await trx
+      .insertInto("audit_events")
+      .values({
+        kind: "network.version_saved",
+        actor_id: input.authorId,
+        lab_id: network.lab_id,
+        details: { networkId, name: network.name, version: number, changeNote: input.changeNote },
+      })
+      .execute();
     return version;
   });
 }

@@ -13,22 +13,29 @@ import { formatDateTime } from "~/shared/dates";
 
 export const meta: Route.MetaFunction = () => [{ title: "Compare analyses · Stillpoint" }];
 
-/** ?a=<id>&b=<id>: two finished analyses of one network side by side. */
+export const MAX_COMPARED = 6;
+
+/** ?id=<id>&id=<id>…: two to six finished analyses of one network side by side (?a=&b= still works). */
 export async function loader({ request, params }: Route.LoaderArgs) {
   const access = await requireLabRole(request, params.labSlug, "viewer");
   const url = new URL(request.url);
   const adb = db();
-  const [a, b] = await Promise.all([findJob(adb, access.lab.id, url.searchParams.get("a") ?? undefined), findJob(adb, access.lab.id, url.searchParams.get("b") ?? undefined)]);
-  if (!a || !b || a.kind !== "analysis" || b.kind !== "analysis") throw notFound();
-  if (a.network_id !== b.network_id) throw new Response("Only two analyses of the same network can be compared.", { status: 400 });
-  const side = (j: typeof a) => {
+  const ids = [...new Set([...url.searchParams.getAll("id"), ...url.searchParams.getAll("a"), ...url.searchParams.getAll("b")].filter(Boolean))];
+  if (ids.length < 2 || ids.length > MAX_COMPARED) throw new Response(`Choose two to ${MAX_COMPARED} analyses to compare (${ids.length} given).`, { status: 400 });
+  const jobs = await Promise.all(ids.map((id) => findJob(adb, access.lab.id, id)));
+  if (jobs.some((j) => !j || j.kind !== "analysis")) throw notFound();
+  const found = jobs as NonNullable<(typeof jobs)[number]>[];
+  if (new Set(found.map((j) => j.network_id)).size > 1) throw new Response("Only analyses of the same network can be compared.", { status: 400 });
+  // Oldest first, so the columns read as a history.
+  found.sort((x, y) => x.created_at.getTime() - y.created_at.getTime());
+  const side = (j: (typeof found)[number]) => {
     const result = j.status === "succeeded" ? (j.result as unknown as AnalysisResult) : null;
     return { job: jobJson(j), params: j.params as unknown as AnalysisParams, result, view: result ? presentResult(result, j.params as unknown as AnalysisParams) : null };
   };
-  return { lab: access.lab, a: side(a), b: side(b) };
+  return { lab: access.lab, sides: found.map(side) };
 }
 
-type Side = Route.ComponentProps["loaderData"]["a"];
+type Side = Route.ComponentProps["loaderData"]["sides"][number];
 
 function Column({ s, labSlug }: { s: Side; labSlug: string }) {
   const r = s.result;
@@ -36,8 +43,9 @@ function Column({ s, labSlug }: { s: Side; labSlug: string }) {
     <div className="min-w-0 space-y-3 rounded-card border border-line bg-surface p-4" data-testid="compare-column">
       <p className="text-sm">
         <Link to={analysisPath(labSlug, s.job.id)} className="font-medium text-accent-strong hover:underline">
-          {formatDateTime(s.job.createdAt)}
+          {s.job.name || formatDateTime(s.job.createdAt)}
         </Link>{" "}
+        {s.job.name && <span className="text-muted">{formatDateTime(s.job.createdAt)} </span>}
         · version {s.job.network.version} · engine {s.job.engineVersion}
       </p>
       <p className="text-sm text-muted">
@@ -73,12 +81,18 @@ function Column({ s, labSlug }: { s: Side; labSlug: string }) {
 }
 
 export default function Compare({ loaderData: d }: Route.ComponentProps) {
+  const n = d.sides.length;
+  // Two side by side from medium screens; more wrap into up to three columns, then scroll sideways.
+  const grid = n === 2 ? "md:grid-cols-2" : "md:grid-cols-2 xl:grid-cols-3";
   return (
     <div className="space-y-4">
-      <h1 className="text-2xl font-semibold tracking-tight">Compare two analyses of {d.a.job.network.name}</h1>
-      <div className="grid grid-cols-1 gap-4 md:grid-cols-2">
-        <Column s={d.a} labSlug={d.lab.slug} />
-        <Column s={d.b} labSlug={d.lab.slug} />
+      <h1 className="text-2xl font-semibold tracking-tight">
+        Compare {n === 2 ? "two" : n} analyses of {d.sides[0]!.job.network.name}
+      </h1>
+      <div className={`grid gap-4 ${grid}`}>
+        {d.sides.map((s) => (
+          <Column key={s.job.id} s={s} labSlug={d.lab.slug} />
+        ))}
       </div>
     </div>
   );

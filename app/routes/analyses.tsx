@@ -1,12 +1,13 @@
-import { Form, Link, data } from "react-router";
+import { Form, data } from "react-router";
 import type { Route } from "./+types/analyses";
 import { db } from "~/db.server";
 import { analysisPath } from "~/analyses/paths";
-import { jobJson, labLimits, listJobs, setLabLimits } from "~/analyses/repository.server";
+import { jobJson, labLimits, setLabLimits } from "~/analyses/repository.server";
+import { listRuns, parseRunFilter, RUN_KINDS, runFilterChoices } from "~/analyses/runs.server";
+import { ANALYSIS_STATUSES } from "~/db/schema";
 import { SITE_LIMITS } from "~/analyses/params";
-import { recordAnalysisAudit } from "~/analyses/service.server";
-import { StatusBadge } from "~/analyses/ui/status";
-import { networkPath } from "~/networks/paths";
+import { recordRunAudit } from "~/analyses/audit.server";
+import { RunsList } from "~/analyses/ui/runs-list";
 import { assertLabRole, requireLabRole } from "~/permissions/permissions.server";
 import { hasRole } from "~/permissions/roles";
 import { formatDateTime } from "~/shared/dates";
@@ -16,8 +17,16 @@ export const meta: Route.MetaFunction = () => [{ title: "Analyses · Stillpoint"
 export async function loader({ request, params }: Route.LoaderArgs) {
   const access = await requireLabRole(request, params.labSlug, "viewer");
   const adb = db();
-  const jobs = await listJobs(adb, access.lab.id, { kind: "analysis" });
-  return { lab: access.lab, analyses: jobs.map((j) => jobJson(j)), isOwner: hasRole(access.role, "owner"), limits: await labLimits(adb, access.lab.id) };
+  const filter = parseRunFilter(new URL(request.url).searchParams);
+  const [runs, choices, limits] = await Promise.all([listRuns(adb, access.lab.id, filter), runFilterChoices(adb, access.lab.id), labLimits(adb, access.lab.id)]);
+  return {
+    lab: access.lab,
+    analyses: runs.map((j) => ({ ...jobJson(j), partial: j.status !== "succeeded" && j.partial_result !== null })),
+    choices: { ...choices, kinds: RUN_KINDS, statuses: ANALYSIS_STATUSES },
+    kindLabels: Object.fromEntries(RUN_KINDS.map((k) => [k.value, k.label])),
+    isOwner: hasRole(access.role, "owner"),
+    limits,
+  };
 }
 
 /** Owners set the lab's maximum time limit and size budget. */
@@ -33,7 +42,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   if (!Number.isInteger(maxBasisSize) || maxBasisSize < 1 || maxBasisSize > 1_000_000) problems.push({ field: "maxBasisSize", message: "expected 1 to 1000000" });
   if (problems.length > 0) return data({ problems }, { status: 400 });
   await setLabLimits(db(), access.lab.id, { maxTimeLimitSeconds, maxBasisSize });
-  await recordAnalysisAudit(db(), access.lab.id, access.user.id, "analysis.limits_changed", { maxTimeLimitSeconds, maxBasisSize });
+  await recordRunAudit(db(), access, "analysis.limits_changed", { maxTimeLimitSeconds, maxBasisSize });
   return { saved: true };
 }
 
@@ -42,53 +51,9 @@ export default function Analyses({ loaderData: d, actionData }: Route.ComponentP
     <div className="space-y-6">
       <header>
         <h1 className="text-2xl font-semibold tracking-tight">Analyses of {d.lab.name}</h1>
-        <p className="text-sm text-muted">Start one from a network's page. Every member of the lab sees these; editors start and cancel them.</p>
+        <p className="text-sm text-muted">Start one from a network's page. Every member of the lab sees these; editors start, cancel, name and archive them; owners delete them.</p>
       </header>
-      <div className="overflow-x-auto rounded-card border border-line bg-surface">
-        <table className="w-full text-left text-sm" data-testid="analyses-table">
-          <thead className="border-b border-line bg-sunken text-xs uppercase tracking-wide text-muted">
-            <tr>
-              <th className="px-4 py-2">Network</th>
-              <th className="px-4 py-2">Status</th>
-              <th className="px-4 py-2">Settings</th>
-              <th className="px-4 py-2">Started</th>
-              <th className="px-4 py-2">By</th>
-            </tr>
-          </thead>
-          <tbody>
-            {d.analyses.map((a) => {
-              const p = a.params as { rateMode?: string; initial?: Record<string, string> | null };
-              return (
-                <tr key={a.id} className="border-b border-line last:border-0" data-testid="analysis-row">
-                  <td className="px-4 py-2">
-                    <Link to={analysisPath(d.lab.slug, a.id)} className="font-medium text-accent-strong hover:underline">
-                      {a.network.name}
-                    </Link>{" "}
-                    <Link to={networkPath(d.lab.slug, a.network.id)} className="text-xs text-muted hover:underline">
-                      v{a.network.version}
-                    </Link>
-                  </td>
-                  <td className="px-4 py-2">
-                    <StatusBadge status={a.status} />
-                  </td>
-                  <td className="px-4 py-2 text-muted">
-                    {p.rateMode} rates{p.initial ? ", numeric steady states" : ""}
-                  </td>
-                  <td className="whitespace-nowrap px-4 py-2 text-muted">{formatDateTime(a.createdAt)}</td>
-                  <td className="px-4 py-2 text-muted">{a.startedBy ?? "former member"}</td>
-                </tr>
-              );
-            })}
-            {d.analyses.length === 0 && (
-              <tr>
-                <td colSpan={5} className="px-4 py-6 text-center text-muted">
-                  No analyses yet. Open a network and choose “Start analysis”.
-                </td>
-              </tr>
-            )}
-          </tbody>
-        </table>
-      </div>
+      <RunsList labSlug={d.lab.slug} runs={d.analyses} choices={d.choices} kindLabels={d.kindLabels} />
       <section className="space-y-2 text-sm">
         <h2 className="font-semibold">Limits in this lab</h2>
         <p className="text-muted">

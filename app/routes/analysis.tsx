@@ -1,18 +1,18 @@
-import { Link, data, redirect } from "react-router";
+import { Link, redirect } from "react-router";
 import type { Route } from "./+types/analysis";
 import { db } from "~/db.server";
+import { runAnalysisAction } from "~/analyses/actions.server";
 import { analysisPageData } from "~/analyses/page.server";
-import { analysesPath, analysisPath, newAnalysisPath, sharePath } from "~/analyses/paths";
+import { analysesPath, analysisPath, newAnalysisPath } from "~/analyses/paths";
 import { findJob, listJobs } from "~/analyses/repository.server";
-import { cancelJob, recordAnalysisAudit, startFollowUp } from "~/analyses/service.server";
-import { createShareLink, listShareLinks, revokeShareLink, SHARE_DAYS } from "~/analyses/share.server";
+import { listShareLinks } from "~/analyses/share.server";
 import { AnalysisBody } from "~/analyses/ui/analysis-body";
+import { RunDetails } from "~/analyses/ui/run-details";
 import { SharePanel } from "~/analyses/ui/share-panel";
 import { isUnfinished } from "~/analyses/ui/status";
 import { usePolling } from "~/analyses/ui/use-polling";
-import { getEnv } from "~/env.server";
 import { networkPath } from "~/networks/paths";
-import { assertLabRole, requireLabRole } from "~/permissions/permissions.server";
+import { requireLabRole } from "~/permissions/permissions.server";
 import { hasRole } from "~/permissions/roles";
 import { isUuid } from "~/shared/uuid";
 import { notFound } from "~/shared/responses";
@@ -35,56 +35,17 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     canEdit: hasRole(access.role, "editor"),
     isOwner,
     shareLinks: isOwner ? await listShareLinks(adb, job.id) : [],
-    compareWith: siblings.map((s) => ({ id: s.id, label: `${formatDateTime(s.created_at)} · v${s.version_number} · ${s.starter_name ?? "?"}` })),
+    compareWith: siblings.map((s) => ({ id: s.id, label: `${s.name ? `${s.name} · ` : ""}${formatDateTime(s.created_at)} · v${s.version_number} · ${s.starter_name ?? "?"}` })),
   };
 }
 
+/** Intents, validation and audit entries live in ~/analyses/actions.server; here only who is asking and which run. */
 export async function action({ request, params }: Route.ActionArgs) {
   const access = await requireLabRole(request, params.labSlug, "viewer");
   const adb = db();
   const job = await findJob(adb, access.lab.id, params.analysisId);
   if (!job || job.parent_id) throw notFound();
-  const form = await request.formData();
-  const intent = String(form.get("intent") ?? "");
-  switch (intent) {
-    case "cancel": {
-      assertLabRole(access, "editor");
-      const target = String(form.get("jobId") ?? job.id);
-      const victim = target === job.id ? job : (await findJob(adb, access.lab.id, target));
-      if (!victim || (victim.id !== job.id && victim.parent_id !== job.id)) throw notFound();
-      return { status: await cancelJob(adb, victim) };
-    }
-    case "relation":
-    case "scan":
-    case "timecourse": {
-      assertLabRole(access, "editor");
-      const input = formObject(form);
-      if (intent === "scan") {
-        const [kind, name] = String(form.get("parameterChoice") ?? "").split(":");
-        Object.assign(input, { parameterKind: kind, parameter: name });
-      }
-      const outcome = await startFollowUp(adb, access, job, intent, input);
-      if (!outcome.ok) return data({ problems: outcome.problems }, { status: 400 });
-      return { started: outcome.job.id };
-    }
-    case "share-create": {
-      assertLabRole(access, "owner");
-      const days = Number(form.get("days") || SHARE_DAYS.default);
-      if (!Number.isInteger(days) || days < 1 || days > SHARE_DAYS.max) return data({ problems: [{ field: "days", message: `expected 1 to ${SHARE_DAYS.max} days` }] }, { status: 400 });
-      const link = await createShareLink(adb, job.id, access.user.id, days);
-      await recordAnalysisAudit(adb, access.lab.id, access.user.id, "analysis.share_link_created", { analysisId: job.id, linkId: link.id, days });
-      return { shareLink: { url: `${getEnv().appUrl}${sharePath(link.token)}`, expiresAt: link.expiresAt.toISOString() } };
-    }
-    case "share-revoke": {
-      assertLabRole(access, "owner");
-      const linkId = String(form.get("linkId") ?? "");
-      if (!isUuid(linkId) || !(await revokeShareLink(adb, job.id, linkId))) throw notFound();
-      await recordAnalysisAudit(adb, access.lab.id, access.user.id, "analysis.share_link_revoked", { analysisId: job.id, linkId });
-      return { revoked: linkId };
-    }
-    default:
-      return data({ problems: [{ field: "intent", message: `unknown action '${intent}'` }] }, { status: 400 });
-  }
+  return runAnalysisAction(adb, access, job, await request.formData());
 }
 
 export default function AnalysisPage({ loaderData: d }: Route.ComponentProps) {
@@ -104,7 +65,11 @@ export default function AnalysisPage({ loaderData: d }: Route.ComponentProps) {
             {p.job.network.name}
           </Link>
         </p>
-        <h1 className="text-2xl font-semibold tracking-tight">Steady-state analysis</h1>
+        <h1 className="text-2xl font-semibold tracking-tight" data-testid="run-title">
+          {p.job.name || "Steady-state analysis"}
+        </h1>
+        {p.job.name && <p className="text-sm text-muted">Steady-state analysis</p>}
+        {p.job.archived && <p className="text-sm text-muted" data-testid="archived-note">Archived.</p>}
         <p className="text-sm text-muted">
           Started by {p.job.startedBy ?? "a former member"} on {formatDateTime(p.job.createdAt)}
           {d.canEdit && (
@@ -118,11 +83,11 @@ export default function AnalysisPage({ loaderData: d }: Route.ComponentProps) {
           )}
         </p>
         {d.compareWith.length > 0 && p.job.status === "succeeded" && (
-          <form method="get" action={`${analysesPath(d.lab.slug)}/compare`} className="flex items-center gap-2 text-sm">
-            <input type="hidden" name="a" value={p.job.id} />
+          <form method="get" action={`${analysesPath(d.lab.slug)}/compare`} className="flex flex-wrap items-end gap-2 text-sm" data-testid="compare-form">
+            <input type="hidden" name="id" value={p.job.id} />
             <label>
-              Compare with{" "}
-              <select name="b" className="rounded-md border border-line bg-surface px-2 py-1">
+              <span className="block text-xs text-muted">Compare with (choose one or more; Ctrl or ⌘ for several)</span>
+              <select name="id" multiple size={Math.min(4, d.compareWith.length)} className="min-w-64 rounded-md border border-line bg-surface px-2 py-1">
                 {d.compareWith.map((c) => (
                   <option key={c.id} value={c.id}>
                     {c.label}
@@ -134,6 +99,7 @@ export default function AnalysisPage({ loaderData: d }: Route.ComponentProps) {
           </form>
         )}
       </header>
+      <RunDetails name={p.job.name} note={p.job.note} archived={p.job.archived} canEdit={d.canEdit} canDelete={d.isOwner} busy={unfinished} />
       <AnalysisBody d={p} canEdit={d.canEdit} exportBase={`${base}/export`} scanCsvBase={`${base}/export`} />
       {d.isOwner && (
         <section className="space-y-3 border-t border-line pt-5" aria-labelledby="share-title">

@@ -7,14 +7,13 @@ import { Budget, type BudgetOptions, isOutOfBudget } from "./budget";
 import { monomialOf, saturate } from "./ideal";
 import { kineticsRing, type QPoly } from "./kinetics";
 import { numericSteadyStates, steadyStatesFromBasis, type NumericSteadyState } from "./numeric-steady-states";
-import { consistencyProblems } from "./consistency";
 import { defaultOrder, resolveOrder, SteadyStateInputError } from "./order";
 import { computeParametrisation } from "./parametrisation";
-import { formatExpression } from "./rational-expression";
 import { testRelation, type RelationResult } from "./relation";
 import { steadyStateSystem, totalsFromInitial } from "./system";
-import { genericConditions, leadingSpecies, triangularForm } from "./triangular";
-import { primitive, signPattern, isNonZeroConstant } from "../algebra/poly-tools";
+import { genericConditions, leadingSpecies } from "./triangular";
+import { assemble } from "./analyse-result";
+import { signPattern, isNonZeroConstant } from "../algebra/poly-tools";
 
 export interface AnalyseOptions extends BudgetOptions {
   /** Elimination order: species eliminated first … species kept free last (partial lists allowed). */
@@ -31,11 +30,22 @@ export interface AnalyseOptions extends BudgetOptions {
   readonly skipFullBasis?: boolean;
   /** Compute the full lex basis even when a parametrisation already describes the steady states. */
   readonly fullBasis?: boolean;
+  /**
+   * Called after each stage from the parametrisation on with the result so far: the stages not yet
+   * run are in `unfinished` with the reason NOT_REACHED. A run stopped from outside (cancelled, or
+   * killed at its time limit) keeps the last one.
+   */
+  readonly onPartial?: (partial: SteadyStateAnalysis) => void;
 }
 
-/** A phase that ran out of time or size: which stage, and what the engine said. */
+/** The reason given for a stage a partial result had not finished (the run was stopped from outside). */
+export const NOT_REACHED = "not finished: the run stopped before or during this stage";
+
+export type AnalysisStage = "parametrisation" | "groebner" | "steady-states" | "acr" | "relations";
+
+/** A phase that ran out of time or size (or, in a partial result, was not reached): which stage, and why. */
 export interface UnfinishedStage {
-  readonly stage: "parametrisation" | "groebner" | "steady-states" | "acr" | "relations";
+  readonly stage: AnalysisStage;
   readonly reason: string;
 }
 
@@ -125,8 +135,58 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
     "Only positive steady states are analysed: the steady-state ideal is saturated by the product of the species, which removes every solution with a zero concentration.",
   );
 
-  // Stage: parametrisation (no totals: one parametrisation serves every class).
+  // The class: fixed by the initial concentrations, or the whole space when nothing is conserved
+  // (an open network's steady states do not depend on where it starts).
+  const numericRates = kin.rateParameters.length === 0;
+  const totals = options.initial ? totalsFromInitial(laws, network.species, options.initial) : laws.length === 0 ? [] : null;
+  const classGiven = totals !== null;
+  const numericClass = classGiven && numericRates;
+  const kinT = totals ? kin : kineticsRing(network, { speciesOrder: species, totalCount: laws.length });
+  const withTotals = steadyStateSystem(network, kinT, laws, totals);
+
+  // What the stages produce, declared up front so a partial result can be assembled after any of them.
+  let basis: QPoly[] | null = null;
+  let basisStatus: SteadyStateAnalysis["groebnerBasisStatus"] = "skipped";
+  let wholeRing = false;
+  let steadyStates: NumericSteadyState[] | null = null;
+  let steadyStatesReason: string | null = null;
+  let eliminant: SteadyStateAnalysis["eliminant"] = null;
+  let steadyStateSet: SteadyStateAnalysis["steadyStateSet"] = null;
+  let zeroDimensionalBasis = false;
+  let positivePoint: Record<string, number> | null = null;
+  let acr: AcrSpecies[] = [];
+  const relations: RelationResult[] = [];
   let param: ReturnType<typeof computeParametrisation> | null = null;
+  // The stages still to run, for partial results.
+  // Before the parametrisation only the stages that surely follow are known; the plan is settled after it.
+  let plan: AnalysisStage[] = [
+    "parametrisation",
+    ...(numericRates && classGiven ? (["steady-states"] as const) : []),
+    ...((options.relations ?? []).length > 0 ? (["relations"] as const) : []),
+  ];
+  const planAfterParametrisation = (wantBasis: boolean): AnalysisStage[] => [
+    ...(withTotals.equations.length > 0 && wantBasis ? (["groebner"] as const) : []),
+    ...(numericRates && classGiven && !param?.infeasible ? (["steady-states"] as const) : []),
+    ...(param && param.complete && !param.parametrisation && !param.infeasible && param.unknowns.length > 0 ? (["acr"] as const) : []),
+    ...((options.relations ?? []).length > 0 ? (["relations"] as const) : []),
+  ];
+  const snapshot = (done: AnalysisStage | null): SteadyStateAnalysis => {
+    const pending = done === null ? plan : plan.slice(plan.indexOf(done) + 1);
+    return assemble({
+      network, options, structure, species, suggested, kin, kinT, noTotals, withTotals, laws, numericRates, classGiven, basis, basisStatus, param,
+      wholeRing, acr, relations, steadyStates, steadyStatesReason, eliminant, steadyStateSet, zeroDimensionalBasis, positivePoint,
+      unfinished: [...unfinished, ...pending.filter((st) => !unfinished.some((u) => u.stage === st)).map((stage) => ({ stage, reason: NOT_REACHED }))],
+      warnings: [...warnings],
+    });
+  };
+  const partial = (done: AnalysisStage | null) => {
+    // Only while some stage is still to come: after the last one the result itself follows.
+    const left = done === null ? plan.length : plan.length - 1 - plan.indexOf(done);
+    if (options.onPartial && left > 0) options.onPartial(snapshot(done));
+  };
+  // The structure, ODEs and steady-state system are in: the first partial result.
+  partial(null);
+  // Stage: parametrisation (no totals: one parametrisation serves every class).
   try {
     param = computeParametrisation(kin, odeRows, budget);
     if (param.infeasible) warnings.push(`No positive steady state: ${param.infeasible}.`);
@@ -137,20 +197,12 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
     warnings.push(`Parametrisation not finished: ${(e as Error).message}.`);
   }
 
-  // The class: fixed by the initial concentrations, or the whole space when nothing is conserved
-  // (an open network's steady states do not depend on where it starts).
-  const numericRates = kin.rateParameters.length === 0;
-  const totals = options.initial ? totalsFromInitial(laws, network.species, options.initial) : laws.length === 0 ? [] : null;
-  const classGiven = totals !== null;
-  const numericClass = classGiven && numericRates;
-  const kinT = totals ? kin : kineticsRing(network, { speciesOrder: species, totalCount: laws.length });
-  const withTotals = steadyStateSystem(network, kinT, laws, totals);
+  const wantBasis = !options.skipFullBasis && (options.fullBasis === true || numericClass || !param?.parametrisation);
+  plan = ["parametrisation", ...planAfterParametrisation(wantBasis)];
+  partial("parametrisation");
 
   // Stage: full lex basis, only where it is the answer (no parametrisation), the route to a numeric
   // class's steady states, or asked for.
-  let basis: QPoly[] | null = null;
-  let basisStatus: SteadyStateAnalysis["groebnerBasisStatus"] = "skipped";
-  const wantBasis = !options.skipFullBasis && (options.fullBasis === true || numericClass || !param?.parametrisation);
   if (withTotals.equations.length === 0) {
     basis = [];
     basisStatus = "complete";
@@ -170,16 +222,12 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
     }
   } else if (!options.skipFullBasis)
     warnings.push("The full lex Gröbner basis was not computed: the parametrisation from linear elimination already describes every positive steady state (ask for the full basis to see it).");
+  if (plan.includes("groebner")) partial("groebner");
   const conditions = basis ? genericConditions(basis, kinT) : [];
   if (conditions.length > 0)
     warnings.push(`The basis holds for generic parameter values: these leading coefficients must not vanish: ${conditions.join("; ")} (one with all coefficients of one sign never vanishes for positive parameters).`);
 
-  // A pivot whose coefficients all have one sign never vanishes at positive species and rate
-  // constants; only the others restrict where the parametrisation is valid.
-  const nonVanishing = param
-    ? [...new Set(param.pivots.filter((p) => signPattern(p) === "mixed").map((p) => formatExpression({ num: primitive(p), den: kin.ring.one() }, param!.pivots)))]
-    : [];
-  const wholeRing = basis !== null && basis.length === 1 && isNonZeroConstant(basis[0]);
+  wholeRing = basis !== null && basis.length === 1 && isNonZeroConstant(basis[0]);
   const parameterOnly = basis && !wholeRing ? basis.filter((g) => leadingSpecies(g, kinT) === null) : [];
   if (wholeRing) warnings.push("The saturated steady-state ideal is the whole ring (its basis is [1]): there is no positive steady state.");
   if (parameterOnly.length > 0)
@@ -188,12 +236,6 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
     );
 
   // Stage: the positive steady states of the class.
-  let steadyStates: NumericSteadyState[] | null = null;
-  let steadyStatesReason: string | null = null;
-  let eliminant: SteadyStateAnalysis["eliminant"] = null;
-  let steadyStateSet: SteadyStateAnalysis["steadyStateSet"] = null;
-  let zeroDimensionalBasis = false;
-  let positivePoint: Record<string, number> | null = null;
   if (!numericRates) {
     const heldSymbolic = (network.constants ?? []).some((c) => kin.rateParameters.includes(c.name));
     steadyStatesReason = `Listing steady states needs a value for every rate constant${heldSymbolic ? " and constant species" : ""}; missing: ${kin.rateParameters.join(", ")}.`;
@@ -233,8 +275,10 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
     }
   }
 
+  if (plan.includes("steady-states")) partial("steady-states");
+
   // Stage: robustness (ACR).
-  const acr = param ? acrSpecies(kin, param) : [];
+  acr = param ? acrSpecies(kin, param) : [];
   // Species the elimination left as unknowns without a parametrisation: one block-order basis each.
   if (param && param.complete && !param.parametrisation && !param.infeasible)
     for (const s of param.unknowns) {
@@ -249,9 +293,9 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
       }
     }
   acr.sort((a, b) => network.species.indexOf(a.species) - network.species.indexOf(b.species));
+  if (plan.includes("acr")) partial("acr");
 
   // Stage: relation tests.
-  const relations: RelationResult[] = [];
   for (const text of options.relations ?? []) {
     try {
       budget.progress("relations", `testing ${text}`);
@@ -266,56 +310,10 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
     }
   }
 
-  const existence = positiveExistence({ param, wholeRing, steadyStates, steadyStateSet, classGiven, noLaws: laws.length === 0, numericRates, positivePoint });
-  const positiveClass = laws.length === 0 || (options.initial !== undefined && network.species.every((s) => (options.initial!.get(s)?.num ?? 0n) > 0n));
-  const contradictions = consistencyProblems({
-    structure,
-    steadyStates,
-    steadyStateSet,
-    positiveSteadyStatesExist: existence.exists,
-    positiveClass,
-    numericRates,
-    zeroDimensionalBasis,
+  return assemble({
+    network, options, structure, species, suggested, kin, kinT, noTotals, withTotals, laws, numericRates, classGiven, basis, basisStatus, param,
+    wholeRing, acr, relations, steadyStates, steadyStatesReason, eliminant, steadyStateSet, zeroDimensionalBasis, positivePoint, unfinished, warnings,
   });
-
-  const order = { species, suggested: suggested.order, reason: suggested.reason, userGiven: options.order !== undefined };
-  const values: Record<string, string> = {};
-  for (const [k, v] of kin.rateValues) values[k] = v.den === 1n ? `${v.num}` : `${v.num}/${v.den}`;
-  return {
-    structure,
-    order,
-    parameters: { rateConstants: [...kin.rateParameters], totals: [...kinT.totals], values },
-    odes: network.species.map((s) => ({ species: s, rhs: fmt(noTotals.odes[kin.species.indexOf(s)]) })),
-    steadyStateSystem: {
-      equations: withTotals.equations.map((p) => kinT.ring.format(p)),
-      replacedRows: kin.species.filter((_, i) => !withTotals.keptRows.includes(i)),
-    },
-    groebnerBasis: basis ? basis.map((p) => kinT.ring.format(p)) : null,
-    groebnerBasisStatus: basisStatus,
-    ordering: `${kinT.ring.vars.join(" > ")} (${kinT.ring.orderName})`,
-    genericConditions: conditions,
-    triangularForm: basis ? triangularForm(basis, kinT).map((b) => ({ species: b.species, polynomials: b.polynomials.map((p) => kinT.ring.format(p)) })) : [],
-    parametrisation: param?.parametrisation
-      ? {
-          free: [...param.parametrisation.free],
-          expressions: Object.fromEntries(param.parametrisation.expressions.map((e) => [e.species, formatExpression(e.expression, param!.pivots)])),
-          positive: param.parametrisation.positive,
-        }
-      : null,
-    rootsNeeded: param ? param.rootsNeeded.map((r) => ({ species: r.species, polynomial: fmt(r.polynomial), degree: r.degree })) : [],
-    nonVanishing,
-    acr,
-    relations,
-    steadyStates,
-    steadyStatesReason,
-    eliminant,
-    steadyStateSet,
-    positiveSteadyStatesExist: existence.exists,
-    positiveSteadyStatesReason: existence.reason,
-    unfinished,
-    contradictions,
-    warnings: [...warnings, ...(param?.notes ?? [])],
-  };
 }
 
 /** "E + C" for a conservation law given as species → coefficient. */
@@ -323,42 +321,4 @@ function lawText(law: Record<string, number>): string {
   return Object.entries(law)
     .map(([s, c], i) => `${c < 0 ? (i === 0 ? "-" : " - ") : i === 0 ? "" : " + "}${Math.abs(c) === 1 ? "" : Math.abs(c)}${s}`)
     .join("");
-}
-
-/**
- * Whether a positive steady state exists, and the argument that decides it: a proof of
- * infeasibility, the complete list of the class, a positive point proven on a continuum, or a positive parametrisation (every positive
- * value of the free species gives a positive steady state — in the class those values determine,
- * which is the given class when nothing is conserved).
- */
-function positiveExistence(r: {
-  param: ReturnType<typeof computeParametrisation> | null;
-  wholeRing: boolean;
-  steadyStates: readonly NumericSteadyState[] | null;
-  steadyStateSet: SteadyStateAnalysis["steadyStateSet"];
-  classGiven: boolean;
-  noLaws: boolean;
-  numericRates: boolean;
-  positivePoint: Record<string, number> | null;
-}): { exists: boolean | null; reason: string | null } {
-  if (r.param?.infeasible)
-    return { exists: false, reason: `No positive steady state${r.numericRates ? "" : " for any positive rate constants"}: ${r.param.infeasible}.` };
-  if (r.wholeRing) return { exists: false, reason: "The saturated steady-state ideal is the whole ring." };
-  if (r.steadyStateSet === "finite" && r.steadyStates)
-    return { exists: r.steadyStates.length > 0, reason: `The complete list of the class's positive steady states has ${r.steadyStates.length}.` };
-  const positive = r.param?.parametrisation?.positive === true;
-  if (positive && (!r.classGiven || r.noLaws))
-    return {
-      exists: true,
-      reason: r.classGiven
-        ? "The parametrisation is positive and nothing is conserved: every positive value of the free species is a positive steady state."
-        : "The parametrisation is positive: every positive value of the free species gives a positive steady state (of the class it lies in).",
-    };
-  if (r.steadyStateSet === "continuum" && r.positivePoint)
-    return {
-      exists: true,
-      reason: `The continuum meets the positive orthant: for example ${Object.entries(r.positivePoint).map(([k, v]) => `${k} = ${v.toPrecision(6)}`).join(", ")} (a positive root of a finite slice, isolated exactly).`,
-    };
-  if (r.steadyStateSet === "continuum") return { exists: null, reason: "A continuum of complex solutions; whether it meets the positive orthant of this class is not decided." };
-  return { exists: null, reason: null };
 }

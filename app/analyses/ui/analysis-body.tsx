@@ -4,6 +4,21 @@ import { RelationPanel, ScanPanel, TimeCoursePanel } from "./follow-ups";
 import { AnalysedNetworkView } from "./analysed-network-view";
 import { ProgressPanel } from "./progress-panel";
 import { StatusBadge } from "./status";
+import { isNotReached, stageLabel } from "../stages";
+
+/** Above a partial result: why it is partial and which stages it lacks. */
+function PartialNotice({ status, unfinished }: { status: string; unfinished: { stage: string; reason: string }[] }) {
+  const why = status === "cancelled" ? "The run was cancelled" : status === "failed" ? "The run stopped before it finished" : "The run is still going";
+  const missing = unfinished.map((u) => `${stageLabel(u.stage)}${isNotReached(u.reason) ? "" : " (ran out of time or size)"}`);
+  return (
+    <div className="rounded-md border border-signal bg-surface px-4 py-3 text-sm" data-testid="partial-result" role="status">
+      <p>
+        <b>Partial result.</b> {why}; what it had finished is shown below. Scans, tests, time courses and downloads need a finished run.
+      </p>
+      {missing.length > 0 && <p className="mt-1" data-testid="partial-missing">Not finished: {missing.join("; ")}.</p>}
+    </div>
+  );
+}
 
 function Part({ id, title, help, children }: { id: string; title: string; help: string; children: React.ReactNode }) {
   return (
@@ -52,7 +67,13 @@ export function AnalysisBody({ d, canEdit, exportBase, scanCsvBase }: { d: Analy
           {d.job.error}
         </p>
       )}
-      {d.result && d.view && (
+      {d.result && d.view && d.partial && (
+        <>
+          <PartialNotice status={d.job.status} unfinished={d.result.unfinished ?? []} />
+          <ResultsView view={d.view} result={d.result} />
+        </>
+      )}
+      {d.result && d.view && !d.partial && (
         <>
           <div className="flex flex-wrap items-center gap-3 text-sm">
             <span className="text-muted">Download:</span>

@@ -1,4 +1,5 @@
 import { useFetcher } from "react-router";
+import type { ScanParams, TimeCourseParams } from "~/analyses/params";
 import type { JobJson } from "~/analyses/repository.server";
 import type { RelationJobResult, ScanResult, StoredSteadyState, TimeCourseResult } from "~/analyses/result-types";
 import { Problems } from "./problems";
@@ -34,6 +35,14 @@ function JobLine({ job, canEdit, children }: { job: Child; canEdit: boolean; chi
       {job.status === "succeeded" && children}
     </li>
   );
+}
+
+/**
+ * The newest job's stored parameters, so a form opens with the values of the last run (`jobs` is
+ * newest first) rather than the defaults; null when nothing ran yet.
+ */
+export function lastParams<T>(jobs: Child[]): Partial<T> | null {
+  return (jobs[0]?.params as Partial<T> | undefined) ?? null;
 }
 
 function StartForm({ intent, children, label }: { intent: string; children: React.ReactNode; label: string }) {
@@ -92,13 +101,16 @@ export function RelationPanel({ jobs, canEdit }: { jobs: Child[]; canEdit: boole
 }
 
 export function ScanPanel({ jobs, canEdit, rates, species, csvHref, available }: { jobs: Child[]; canEdit: boolean; rates: string[]; species: string[]; csvHref: (id: string) => string; available: boolean }) {
+  const last = lastParams<ScanParams>(jobs);
+  const choice = last?.parameter ? `${last.parameter.kind}:${last.parameter.name}` : rates[0] ? `rate:${rates[0]}` : undefined;
   return (
     <div className="space-y-3">
       {canEdit && available && (
-        <StartForm intent="scan" label="Run scan">
+        // Keyed by the newest scan: once a scan is started the form shows its values again.
+        <StartForm key={jobs[0]?.id ?? "none"} intent="scan" label="Run scan">
           <label className="space-y-0.5 text-sm">
             <span className="block">Vary</span>
-            <select name="parameterChoice" className={field} defaultValue={rates[0] ? `rate:${rates[0]}` : undefined}>
+            <select name="parameterChoice" className={field} defaultValue={choice}>
               {rates.map((r) => (
                 <option key={r} value={`rate:${r}`}>
                   rate constant {r}
@@ -113,19 +125,19 @@ export function ScanPanel({ jobs, canEdit, rates, species, csvHref, available }:
           </label>
           <label className="space-y-0.5 text-sm">
             <span className="block">from</span>
-            <input name="from" className={`${field} w-24`} defaultValue="0.1" required />
+            <input name="from" className={`${field} w-24`} defaultValue={last?.from !== undefined ? String(last.from) : "0.1"} required />
           </label>
           <label className="space-y-0.5 text-sm">
             <span className="block">to</span>
-            <input name="to" className={`${field} w-24`} defaultValue="10" required />
+            <input name="to" className={`${field} w-24`} defaultValue={last?.to !== undefined ? String(last.to) : "10"} required />
           </label>
           <label className="space-y-0.5 text-sm">
             <span className="block">points</span>
-            <input name="points" type="number" min={2} max={200} className={`${field} w-20`} defaultValue={30} />
+            <input name="points" type="number" min={2} max={200} className={`${field} w-20`} defaultValue={last?.points ?? 30} />
           </label>
           <label className="space-y-0.5 text-sm">
             <span className="block">spacing</span>
-            <select name="spacing" className={field} defaultValue="log">
+            <select name="spacing" className={field} defaultValue={last?.spacing ?? "log"}>
               <option value="linear">linear</option>
               <option value="log">log</option>
             </select>
@@ -164,17 +176,23 @@ export function TimeCoursePanel({
   /** The analysis' initial concentrations (the version's stored ones unless changed), filled in as the default start. */
   start?: Record<string, string> | null;
 }) {
+  const last = lastParams<TimeCourseParams>(jobs);
   return (
     <div className="space-y-3">
       {canEdit && available && (
-        <StartForm intent="timecourse" label="Simulate">
+        <StartForm key={jobs[0]?.id ?? "none"} intent="timecourse" label="Simulate">
           <label className="space-y-0.5 text-sm">
             <span className="block">End time</span>
-            <input name="endTime" className={`${field} w-28`} defaultValue="50" />
+            <input name="endTime" className={`${field} w-28`} defaultValue={last?.endTime !== undefined ? String(last.endTime) : "50"} />
           </label>
           <label className="flex-1 space-y-0.5 text-sm">
-            <span className="block">Initial concentrations (filled in: the analysis' own; empty: the same)</span>
-            <input name="initial" className={`${field} w-full font-mono`} placeholder="e.g. X=2.5" defaultValue={start ? Object.entries(start).map(([k, v]) => `${k}=${v}`).join(", ") : ""} />
+            <span className="block">Initial concentrations (filled in: the last run's, else the analysis' own)</span>
+            <input
+              name="initial"
+              className={`${field} w-full font-mono`}
+              placeholder="e.g. X=2.5"
+              defaultValue={last?.initial ? Object.entries(last.initial).map(([k, v]) => `${k}=${v}`).join(",") : start ? Object.entries(start).map(([k, v]) => `${k}=${v}`).join(", ") : ""}
+            />
           </label>
         </StartForm>
       )}

@@ -1,3 +1,5 @@
+import { stageLabel } from "../stages";
+import { SteadyStatesTable } from "./steady-states-table";
 import type { ResultView } from "~/analyses/present";
 import type { MultistationarityJson } from "@domain/steady-state/result";
 import type { AnalysisResult } from "~/analyses/result-types";
@@ -133,36 +135,7 @@ export function ResultsView({ view, result }: { view: ResultView; result: Analys
               From the real roots of <span className="font-mono">{result.eliminant.polynomial}</span> in {result.eliminant.variable}, isolated exactly.
             </p>
           )}
-          <div className="overflow-x-auto rounded-card border border-line bg-surface">
-            <table className="w-full text-left text-sm" data-testid="steady-states">
-              <thead className="border-b border-line bg-sunken text-xs uppercase tracking-wide text-muted">
-                <tr>
-                  <th className="px-3 py-2">#</th>
-                  {view.species.map((s) => (
-                    <th key={s} className="px-3 py-2 font-mono normal-case">
-                      {s}
-                    </th>
-                  ))}
-                  <th className="px-3 py-2">Stability</th>
-                  <th className="px-3 py-2">Eigenvalues</th>
-                </tr>
-              </thead>
-              <tbody>
-                {view.steadyStates.map((s) => (
-                  <tr key={s.index} className="border-b border-line last:border-0" data-testid="steady-state-row">
-                    <td className="px-3 py-2 tabular-nums">{s.index}</td>
-                    {view.species.map((sp) => (
-                      <td key={sp} className="px-3 py-2 tabular-nums" data-testid={`conc-${sp}`}>
-                        {s.concentrations[sp]?.toPrecision(12)}
-                      </td>
-                    ))}
-                    <td className={`px-3 py-2 font-medium ${s.verdict === "stable" ? "text-ok" : s.verdict === "unstable" ? "text-danger" : "text-muted"}`}>{s.verdict}</td>
-                    <td className="px-3 py-2 font-mono text-xs">{s.eigenvalues.join(", ") || "(none)"}</td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </div>
+          <SteadyStatesTable states={view.steadyStates} species={view.species} />
         </Block>
       )}
       {result.steadyStates === null && (result.steadyStateSet === "continuum" || result.steadyStatesReason) && (
@@ -172,11 +145,11 @@ export function ResultsView({ view, result }: { view: ResultView; result: Analys
       )}
       {(result.unfinished ?? []).length > 0 && (
         <Block id="unfinished" title="Unfinished stages">
-          <p className="text-sm text-muted">These stages ran out of time or size; everything above them was finished.</p>
+          <p className="text-sm text-muted">These stages ran out of time or size, or were not reached before the run stopped; everything else shown was finished.</p>
           <ul className="ml-5 list-disc space-y-1 text-sm" data-testid="unfinished">
             {result.unfinished!.map((u, i) => (
               <li key={i}>
-                <span className="font-medium">{u.stage}</span>: {u.reason}
+                <span className="font-medium">{stageLabel(u.stage)}</span>: {u.reason}
               </li>
             ))}
           </ul>

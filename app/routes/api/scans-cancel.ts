@@ -11,6 +11,6 @@ export async function action({ request, params }: Route.ActionArgs) {
   requireMethod(request, ["POST"]);
   const adb = db();
   const job = await requireApiJob(adb, access, params.scanId, "scan");
-  await cancelJob(adb, job);
+  await cancelJob(adb, access, job);
   return Response.json({ scan: jobResource(access.lab.slug, (await findJobById(adb, job.id))!, false) }, { status: 202 });
 }

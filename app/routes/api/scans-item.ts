@@ -18,6 +18,6 @@ export async function action({ request, params }: Route.ActionArgs) {
   requireMethod(request, ["DELETE"]);
   const adb = db();
   const job = await requireApiJob(adb, access, params.scanId, "scan");
-  await cancelJob(adb, job);
+  await cancelJob(adb, access, job);
   return Response.json({ scan: jobResource(access.lab.slug, (await findJobById(adb, job.id))!, false) }, { status: 202 });
 }

@@ -33,7 +33,7 @@ describe.skipIf(!hasTestDatabase)("analyses permission matrix", () => {
   const ids = {} as Record<Persona, string>;
   const cookies = {} as Record<Persona, string | undefined>;
   const tokens = {} as Record<Persona, string | undefined>;
-  const x = { networkId: "", versionId: "", done: "", other: "", queued: "", scan: "", link: "" };
+  const x = { networkId: "", versionId: "", done: "", other: "", third: "", doomed: "", queued: "", scan: "", link: "" };
 
   beforeAll(async () => {
     t = await setUpAccountsDb();
@@ -45,7 +45,7 @@ describe.skipIf(!hasTestDatabase)("analyses permission matrix", () => {
     const params = analysisParams({ initial: INITIAL });
     const result = computeJob({ kind: "analysis", csv: CYCLE, params }, { engineTimeoutMs: 30_000 });
     const adb = t.db;
-    for (const key of ["done", "other"] as const) {
+    for (const key of ["done", "other", "third", "doomed"] as const) {
       const row = await makeJob(t.db, { kind: "analysis", labId: lab.id, networkVersionId: x.versionId, params, startedBy: ids.editor, timeLimitSeconds: 60 });
       await adb.updateTable("analyses").set({ status: "succeeded", result: result as never, finished_at: new Date() }).where("id", "=", row.id).execute();
       x[key] = row.id;
@@ -73,6 +73,8 @@ describe.skipIf(!hasTestDatabase)("analyses permission matrix", () => {
     { name: "GET new-analysis form", route: () => import("~/routes/analyses-new"), kind: "loader", path: () => `/labs/alpha/networks/${x.networkId}/analyse`, params: () => ({ labSlug: "alpha", networkId: x.networkId }), expect: labMember(200, "editor") },
     { name: "GET export result.json", route: () => import("~/routes/analysis-export"), kind: "loader", path: () => `/labs/alpha/analyses/${x.done}/export/result.json`, params: () => ({ labSlug: "alpha", analysisId: x.done, file: "result.json" }), expect: labMember(200, "viewer") },
     { name: "GET compare", route: () => import("~/routes/analyses-compare"), kind: "loader", path: () => `/labs/alpha/analyses/compare?a=${x.done}&b=${x.other}`, params: alpha, expect: labMember(200, "viewer") },
+    { name: "GET compare three", route: () => import("~/routes/analyses-compare"), kind: "loader", path: () => `/labs/alpha/analyses/compare?id=${x.done}&id=${x.other}&id=${x.third}`, params: alpha, expect: labMember(200, "viewer") },
+    { name: "GET analyses list filtered", route: () => import("~/routes/analyses"), kind: "loader", path: () => `/labs/alpha/analyses?status=succeeded&sort=author&dir=asc&archived=1`, params: alpha, expect: labMember(200, "viewer") },
     {
       name: "POST start analysis (form)", route: () => import("~/routes/analyses-new"), kind: "action", path: () => `/labs/alpha/networks/${x.networkId}/analyse`,
       params: () => ({ labSlug: "alpha", networkId: x.networkId }), form: () => ({ "initial.S0": "1", "initial.K": "1/10", "initial.F": "1/10", rateMode: "numeric" }), expect: labMember(302, "editor"),
@@ -85,6 +87,10 @@ describe.skipIf(!hasTestDatabase)("analyses permission matrix", () => {
     { name: "POST cancel", route: () => import("~/routes/analysis"), kind: "action", path: () => `/labs/alpha/analyses/${x.done}`, params: () => ({ labSlug: "alpha", analysisId: x.done }), form: () => ({ intent: "cancel", jobId: x.scan }), expect: labMember(200, "editor") },
     { name: "POST share-create", route: () => import("~/routes/analysis"), kind: "action", path: () => `/labs/alpha/analyses/${x.done}`, params: () => ({ labSlug: "alpha", analysisId: x.done }), form: () => ({ intent: "share-create", days: "3" }), expect: labMember(200, "owner") },
     { name: "POST share-revoke", route: () => import("~/routes/analysis"), kind: "action", path: () => `/labs/alpha/analyses/${x.done}`, params: () => ({ labSlug: "alpha", analysisId: x.done }), form: () => ({ intent: "share-revoke", linkId: x.link }), expect: labMember(200, "owner") },
+    { name: "POST details (rename, note)", route: () => import("~/routes/analysis"), kind: "action", path: () => `/labs/alpha/analyses/${x.other}`, params: () => ({ labSlug: "alpha", analysisId: x.other }), form: () => ({ intent: "details", name: "Baseline", note: "first try" }), expect: labMember(200, "editor") },
+    { name: "POST archive", route: () => import("~/routes/analysis"), kind: "action", path: () => `/labs/alpha/analyses/${x.other}`, params: () => ({ labSlug: "alpha", analysisId: x.other }), form: () => ({ intent: "archive" }), expect: labMember(200, "editor") },
+    { name: "POST unarchive", route: () => import("~/routes/analysis"), kind: "action", path: () => `/labs/alpha/analyses/${x.other}`, params: () => ({ labSlug: "alpha", analysisId: x.other }), form: () => ({ intent: "unarchive" }), expect: labMember(200, "editor") },
+    { name: "POST delete", route: () => import("~/routes/analysis"), kind: "action", path: () => `/labs/alpha/analyses/${x.doomed}`, params: () => ({ labSlug: "alpha", analysisId: x.doomed }), form: () => ({ intent: "delete" }), expect: labMember(302, "owner") },
     { name: "POST lab limits", route: () => import("~/routes/analyses"), kind: "action", path: () => "/labs/alpha/analyses", params: alpha, form: () => ({ maxTimeLimitSeconds: "600", maxBasisSize: "3000" }), expect: labMember(200, "owner") },
     // JSON API (bearer tokens)
     { name: "GET /api analyses", route: () => import("~/routes/api/analyses"), kind: "loader", api: true, path: () => "/api/labs/alpha/analyses", params: alpha, expect: labMember(200, "viewer", 401) },
@@ -176,6 +182,49 @@ describe.skipIf(!hasTestDatabase)("analyses permission matrix", () => {
       ["r6", "S1F → F + S0", "c2", "3/2"],
     ]);
     expect(JSON.stringify(open.body)).not.toContain("secret_k");
+  });
+
+  it("rename, archive and delete write the lab's audit trail; a run still waiting cannot be deleted; bad names are refused", async () => {
+    const adb = t.db;
+    const kinds = (await adb.selectFrom("audit_events").select("kind").where("kind", "like", "analysis.%").execute()).map((r) => r.kind);
+    expect(kinds).toEqual(expect.arrayContaining(["analysis.renamed", "analysis.note_changed", "analysis.archived", "analysis.unarchived", "analysis.deleted"]));
+    const renamed = await adb.selectFrom("audit_events").select("details").where("kind", "=", "analysis.renamed").executeTakeFirstOrThrow();
+    expect(renamed.details).toMatchObject({ analysisId: x.other, networkName: "cycle", version: 1, from: "", to: "Baseline" });
+    expect(await adb.selectFrom("analyses").select("id").where("id", "=", x.doomed).executeTakeFirst()).toBeUndefined();
+    const page = await import("~/routes/analysis");
+    const lab = await t.db.selectFrom("labs").select("id").where("slug", "=", "alpha").executeTakeFirstOrThrow();
+    const waiting = (await makeJob(t.db, { kind: "analysis", labId: lab.id, networkVersionId: x.versionId, params: analysisParams({ initial: INITIAL }), startedBy: ids.editor, timeLimitSeconds: 60 })).id;
+    const queued = await run(page.action, makeRequest(`/labs/alpha/analyses/${waiting}`, { method: "POST", form: { intent: "delete" }, cookie: cookies.owner }), { labSlug: "alpha", analysisId: waiting });
+    expect(queued.status).toBe(409);
+    expect(await adb.selectFrom("analyses").select("id").where("id", "=", waiting).executeTakeFirst()).toBeDefined();
+    await adb.updateTable("analyses").set({ status: "cancelled" }).where("id", "=", waiting).execute();
+    const long = await run(page.action, makeRequest(`/labs/alpha/analyses/${x.other}`, { method: "POST", form: { intent: "details", name: "x".repeat(121), note: "" }, cookie: cookies.editor }), { labSlug: "alpha", analysisId: x.other });
+    expect(long.status).toBe(400);
+    expect((await adb.selectFrom("analyses").select("name").where("id", "=", x.other).executeTakeFirstOrThrow()).name).toBe("Baseline");
+  });
+
+  it("the list filters, sorts and hides archived runs unless asked", async () => {
+    const adb = t.db;
+    const list = await import("~/routes/analyses");
+    const names = async (query: string) => {
+      const out = await run(list.loader, makeRequest(`/labs/alpha/analyses${query}`, { cookie: cookies.viewer }), alpha());
+      return (out.body as { analyses: { id: string; name: string; status: string }[] }).analyses;
+    };
+    await adb.updateTable("analyses").set({ archived_at: new Date() }).where("id", "=", x.third).execute();
+    expect((await names("")).map((a) => a.id)).not.toContain(x.third);
+    expect((await names("?archived=1")).map((a) => a.id)).toContain(x.third);
+    expect((await names("?status=queued")).map((a) => a.status)).toEqual(expect.arrayContaining(["queued"]));
+    expect(new Set((await names("?status=queued")).map((a) => a.status))).toEqual(new Set(["queued"]));
+    const byName = (await names("?sort=name&dir=desc")).map((a) => a.name);
+    expect(byName[0]).toBe("Baseline");
+    expect((await names(`?author=${ids.outsider}`)).length).toBe(0);
+    expect(new Set((await names(`?author=${ids.editor}`)).map((a) => (a as { startedBy?: string }).startedBy))).toEqual(new Set(["editor"]));
+    expect((await names("?kind=symbolic")).length).toBe(0);
+    expect((await names("?kind=class")).length).toBeGreaterThan(0);
+    expect((await names("?from=2000-01-01&to=2000-01-02")).length).toBe(0);
+    // Nonsense filter values are ignored, not errors.
+    expect((await names("?status=exploded&sort=drop&version=-1")).length).toBe((await names("")).length);
+    await adb.updateTable("analyses").set({ archived_at: null }).where("id", "=", x.third).execute();
   });
 
   it("validation problems come back located, in the API's error shape", async () => {
