@@ -32,6 +32,8 @@ export interface Env {
   maildevWebPort: number;
   maildevUrl: string;
   logLevel: "debug" | "info" | "warn" | "error";
+  /** The web server's PostgreSQL pool (db.server.ts); the worker has its own (WORKER_DB_POOL_MAX). */
+  dbPool: { max: number; waitMs: number; workerMax: number; exposeStats: boolean };
 }
 
 export class EnvError extends Error {
@@ -74,6 +76,16 @@ export function loadEnv(source: Source = process.env): Env {
       return undefined;
     }
   };
+  const count = (name: string, fallback: number, min: number, max: number) => {
+    const raw = get(name);
+    if (raw === undefined) return fallback;
+    const n = Number(raw);
+    if (!Number.isInteger(n) || n < min || n > max) {
+      problems.push(`${name}: expected a whole number from ${min} to ${max}, got "${raw}"`);
+      return fallback;
+    }
+    return n;
+  };
   const oneOf = <T extends string>(name: string, allowed: readonly T[], fallback: T): T => {
     const raw = get(name);
     if (raw === undefined) return fallback;
@@ -112,6 +124,16 @@ export function loadEnv(source: Source = process.env): Env {
     problems.push("TOTP_SECRET: expected exactly 64 hexadecimal characters");
   }
 
+  // Sizing (README "Configuration"): PostgreSQL allows 100 connections by default; the web server
+  // takes DB_POOL_MAX, each worker WORKER_DB_POOL_MAX plus pg-boss's 4, the web server's pg-boss 4.
+  const dbPool = {
+    max: count("DB_POOL_MAX", 20, 1, 500),
+    // A request waits this long for a free connection (queues) before it is answered 503.
+    waitMs: count("DB_POOL_WAIT_MS", 10_000, 100, 600_000),
+    workerMax: count("WORKER_DB_POOL_MAX", 4, 1, 100),
+    exposeStats: get("DB_POOL_STATS") === "1",
+  };
+
   if (problems.length > 0) throw new EnvError(problems);
 
   const secrets =
@@ -133,6 +155,7 @@ export function loadEnv(source: Source = process.env): Env {
     maildevWebPort,
     maildevUrl: `http://127.0.0.1:${maildevWebPort}`,
     logLevel: oneOf("LOG_LEVEL", ["debug", "info", "warn", "error"] as const, "info"),
+    dbPool,
   };
 }
 

@@ -32,6 +32,7 @@ async function main(): Promise<number> {
   // `--truth` has options of its own (bench/truth.ts).
   if (process.argv.includes("--truth")) return (await import("./truth")).runTruth(process.argv.slice(2));
   if (process.argv.includes("--nsite")) return (await import("./nsite")).runNSite(process.argv.slice(2), root);
+  if (process.argv.includes("--load")) return (await import("./load")).runLoad(process.argv.slice(2), root);
   const o = parseBenchOptions(process.argv.slice(2));
   if (o.help) {
     console.log(USAGE);

@@ -6,6 +6,7 @@ import { createHash } from "node:crypto";
 import type { Kysely, Transaction } from "kysely";
 import type { Database } from "../app/db/schema";
 import { DEMO_LAB, DEMO_NETWORKS, DEMO_PEOPLE, type DemoNetwork } from "./demo-data";
+import { requestStructure } from "../app/networks/structure-store.server";
 
 export function contentHash(csv: string): string {
   return createHash("sha256").update(csv, "utf8").digest("hex");
@@ -92,6 +93,8 @@ export async function upsertNetworks(trx: Transaction<Database>, labId: string, 
 
     for (const version of network.versions) {
       const hash = contentHash(version.csv);
+      // Asked for up front, so the worker has the structures ready before anyone opens the page.
+      await requestStructure(trx, version.csv);
       const present = await trx
         .selectFrom("network_versions")
         .select("id")

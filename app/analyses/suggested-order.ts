@@ -1,11 +1,15 @@
-import { analyseStructure, type Network } from "@domain/network/index";
+import { analyseStructure, type Network, type NetworkStructure } from "@domain/network/index";
 import { defaultOrder } from "@domain/steady-state/index";
 
 /**
  * The engine's suggested elimination order with its reason, exactly as analyseNetwork computes it
- * (it needs the conservation laws: one species per law is kept free). Structure only — exact
- * linear algebra on the stoichiometric matrix, no Gröbner bases — so the form may call it.
+ * (it needs the conservation laws: one species per law is kept free). The web server passes the
+ * laws of the structure the worker stored (structure-store.server.ts) and so does no algebra; the
+ * worker may let it compute them.
  */
-export function suggestedOrder(network: Network): { order: string[]; reason: string } {
-  return defaultOrder(network, analyseStructure(network).conservationLaws);
+export function suggestedOrder(
+  network: Network,
+  conservationLaws: NetworkStructure["conservationLaws"] = analyseStructure(network).conservationLaws,
+): { order: string[]; reason: string } {
+  return defaultOrder(network, conservationLaws);
 }

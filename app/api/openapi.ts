@@ -49,7 +49,7 @@ export const API_OPERATIONS: readonly Operation[] = [
     body: { schema: "NetworkCreate", alsoAccepts: ["multipart/form-data", "text/csv", "application/sbml+xml"] },
     ok: 201,
   },
-  { method: "get", path: `${LAB}/networks/{networkId}`, summary: "The network, its newest version (CSV) and that version's structure.", role: "viewer", ok: 200 },
+  { method: "get", path: `${LAB}/networks/{networkId}`, summary: "The network, its newest version (CSV) and that version's structure (null, with structureStatus \"pending\", until the worker has computed it).", role: "viewer", ok: 200 },
   { method: "get", path: `${LAB}/networks/{networkId}/versions`, summary: "Every version, newest first.", role: "viewer", ok: 200 },
   {
     method: "post",
@@ -59,7 +59,7 @@ export const API_OPERATIONS: readonly Operation[] = [
     body: { schema: "VersionCreate", alsoAccepts: ["multipart/form-data", "text/csv", "application/sbml+xml"] },
     ok: 201,
   },
-  { method: "get", path: `${LAB}/networks/{networkId}/versions/{number}`, summary: "One version with its CSV and structure.", role: "viewer", ok: 200 },
+  { method: "get", path: `${LAB}/networks/{networkId}/versions/{number}`, summary: "One version with its CSV and structure (null, with structureStatus \"pending\", until computed).", role: "viewer", ok: 200 },
   { method: "get", path: `${LAB}/analyses`, summary: "The lab's analyses, newest first (`?networkId=`).", role: "viewer", ok: 200 },
   { method: "post", path: `${LAB}/analyses`, summary: "Start an analysis of a network version (202, queued).", role: "editor", body: { schema: "AnalysisCreate" }, ok: 202 },
   { method: "get", path: `${LAB}/analyses/{analysisId}`, summary: "Status, progress, name, note, archived flag; the result once succeeded, else `partialResult`: the stages finished so far (their `unfinished` lists the rest).", role: "viewer", ok: 200 },

@@ -7,7 +7,6 @@ import { getEnv } from "~/env.server";
 import { sendMail } from "~/mail/mailer.server";
 import { signInCodeMail } from "~/mail/templates";
 import { recordAudit } from "~/shared/audit.server";
-import { clientKey } from "./client-key.server";
 import { CODE_CHARSET, consumeCode, recordIssuedCode, SIGN_IN_POLICY } from "./login-codes.server";
 import { getSession, rotateSession, safeReturnTo } from "./session.server";
 import { findUserByEmail } from "./users.server";
@@ -21,9 +20,10 @@ export const SIGN_IN_PATHS = {
 
 /**
  * The ledger row of the code issued while handling one request, read back by the sign-in step
- * for the browser's ticket. (remix-auth copies the Request, so the request object cannot be the key.)
+ * for the browser's ticket, and the rate-limit key of the client asking (from the load context,
+ * app/auth/client-key.server.ts). remix-auth copies the Request, so the request object cannot be the key.
  */
-export const issuedCode = new AsyncLocalStorage<{ codeId?: string }>();
+export const issuedCode = new AsyncLocalStorage<{ codeId?: string; client: string }>();
 
 /** Thrown inside `verify` when our ledger refuses; the strategy turns it into its error cookie. */
 export const CODE_GONE = "That code has expired or was already used. Please request a new one.";
@@ -56,7 +56,7 @@ function createAuthenticator() {
         // The strategy builds the link from the request origin; behind a proxy that is internal.
         const link = new URL(magicLink);
         const publicLink = new URL(link.pathname + link.search, env.appUrl).toString();
-        const codeId = await recordIssuedCode({ email, code, linkToken: link.searchParams.get("t") ?? "", client: clientKey(request) });
+        const codeId = await recordIssuedCode({ email, code, linkToken: link.searchParams.get("t") ?? "", client: issuedCode.getStore()?.client ?? "direct" });
         const holder = issuedCode.getStore();
         if (holder) holder.codeId = codeId;
         try {

@@ -3,7 +3,6 @@ import { db } from "~/db.server";
 import { recordAudit } from "~/shared/audit.server";
 import { authenticator, CODE_GONE, issuedCode, SIGN_IN_PATHS } from "./authenticator.server";
 import { readTicket, ticketCookie } from "./code-ticket.server";
-import { clientKey } from "./client-key.server";
 import { checkCodeRequest, checkTypedCode, isOpenLink, looksLikeEmail, normalizeCode, normalizeEmail } from "./login-codes.server";
 import { commitSession, destroySession, getSession, rotateSession, safeReturnTo } from "./session.server";
 import { readTotpCookie } from "./totp-cookie.server";
@@ -28,8 +27,8 @@ function withForm(request: Request, fields: Record<string, string>): Request {
 }
 
 /** Lets the strategy run and adds our session cookie (and the ticket of a code it issued) to whatever it throws. */
-async function runStrategy(request: Request, extraCookie?: string): Promise<never> {
-  const issued: { codeId?: string } = {};
+async function runStrategy(request: Request, extraCookie?: string, client = "direct"): Promise<never> {
+  const issued: { codeId?: string; client: string } = { client };
   try {
     await issuedCode.run(issued, () => authenticator().authenticate("totp", request));
   } catch (thrown) {
@@ -43,18 +42,18 @@ async function runStrategy(request: Request, extraCookie?: string): Promise<neve
 }
 
 /** Step 1: e-mail a code and a magic link (rate-limited per address and per client). */
-export async function requestSignInCode(request: Request): Promise<Refusal> {
+export async function requestSignInCode(request: Request, client: string): Promise<Refusal> {
   const form = await request.formData();
   const email = normalizeEmail(form.get("email"));
   if (!looksLikeEmail(email)) return { status: 400, error: "Please enter a valid e-mail address, like ada@example.org." };
-  const verdict = await checkCodeRequest(email, clientKey(request));
+  const verdict = await checkCodeRequest(email, client);
   if (!verdict.allowed) {
     const minutes = Math.ceil(verdict.retryAfterSeconds / 60);
     return { status: 429, error: `Too many sign-in codes were requested. Please wait ${minutes} minute${minutes === 1 ? "" : "s"} and try again.` };
   }
   const session = await getSession(request);
   session.set("returnTo", safeReturnTo(form.get("returnTo")));
-  return runStrategy(withForm(request, { email }), await commitSession(session));
+  return runStrategy(withForm(request, { email }), await commitSession(session), client);
 }
 
 /**

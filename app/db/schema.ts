@@ -101,6 +101,20 @@ export interface NetworkVersionsTable {
   created_at: CreatedAt;
 }
 
+export type StructureStatus = "pending" | "computing" | "ready" | "failed";
+
+/** One row per distinct network file (content hash); written by the worker (app/networks/structure-store.server.ts). */
+export interface NetworkStructuresTable {
+  content_hash: string;
+  csv: string;
+  status: ColumnType<StructureStatus, StructureStatus | undefined, StructureStatus>;
+  structure: JSONColumnType<JsonObject | null, JsonObject | null | undefined, JsonObject | null>;
+  problem: string | null;
+  requested_at: ColumnType<Date, Date | string | undefined, Date | string>;
+  claimed_at: NullableTimestamp;
+  computed_at: NullableTimestamp;
+}
+
 export interface AnalysesTable {
   id: Generated<string>;
   network_version_id: string;
@@ -219,6 +233,7 @@ export interface Database {
   invitations: InvitationsTable;
   networks: NetworksTable;
   network_versions: NetworkVersionsTable;
+  network_structures: NetworkStructuresTable;
   analyses: AnalysesTable;
   analysis_share_links: AnalysisShareLinksTable;
   lab_analysis_settings: LabAnalysisSettingsTable;
@@ -244,6 +259,7 @@ export const DATABASE_COLUMNS = {
   invitations: ["id", "lab_id", "email", "role", "token_hash", "invited_by", "created_at", "expires_at", "accepted_at", "accepted_by", "revoked_at"],
   networks: ["id", "lab_id", "name", "description", "tags", "archived_at", "created_by", "created_at", "updated_at"],
   network_versions: ["id", "network_id", "number", "content_hash", "csv", "change_note", "author_id", "created_at"],
+  network_structures: ["content_hash", "csv", "status", "structure", "problem", "requested_at", "claimed_at", "computed_at"],
   analyses: [
     "id", "network_version_id", "lab_id", "status", "params", "result", "error", "engine_version", "progress", "timings",
     "started_by", "created_at", "started_at", "finished_at", "kind", "parent_id", "attempts", "max_attempts",

@@ -9,6 +9,7 @@ import { randomBytes } from "node:crypto";
 import { pathToFileURL } from "node:url";
 import { createDb } from "~/db.server";
 import { getEnv } from "~/env.server";
+import { computePendingStructures } from "~/networks/structure-store.server";
 import { enqueue, getBoss, QUEUE, stopBosses, type JobMessage } from "./queue.server";
 import { processJob, stopAllChildren, type ProcessOptions } from "./process-job.server";
 import { orphanedQueuedJobs, releaseRunningJobs, sweepStaleJobs } from "./sweeper.server";
@@ -21,6 +22,9 @@ export interface WorkerOptions extends Partial<Omit<ProcessOptions, "workerId">>
   staleAfterMs?: number;
   pollSeconds?: number;
   log?: (line: string) => void;
+  /** How often to look for network structures to compute (default 250 ms). */
+  structuresEveryMs?: number;
+  logStructures?: boolean;
 }
 
 export interface RunningWorker {
@@ -31,7 +35,7 @@ export interface RunningWorker {
 export async function startWorker(options: WorkerOptions): Promise<RunningWorker> {
   const id = `${hostname()}:${process.pid}:${randomBytes(3).toString("hex")}`;
   const log = options.log ?? ((line: string) => console.log(`[worker ${id}] ${line}`));
-  const db = createDb(options.databaseUrl, { max: 4 });
+  const db = createDb(options.databaseUrl, { max: getEnv().dbPool.workerMax, waitMs: getEnv().dbPool.waitMs });
   const boss = await getBoss(options.databaseUrl, { supervise: true });
   const processOptions: ProcessOptions = {
     workerId: id,
@@ -67,6 +71,23 @@ export async function startWorker(options: WorkerOptions): Promise<RunningWorker
     }
   };
   const sweeper = setInterval(() => void sweep(), options.sweepEveryMs ?? 10_000);
+
+  // Network structures (app/networks/structure-store.server.ts): the web server only records
+  // requests; this computes them, one at a time, polling a few times a second.
+  let structuresBusy = false;
+  const computeStructures = async () => {
+    if (structuresBusy) return;
+    structuresBusy = true;
+    try {
+      const n = await computePendingStructures(db, 50);
+      if (n > 0 && options.logStructures) log(`computed ${n} network structure${n === 1 ? "" : "s"}`);
+    } catch (e) {
+      log(`structures failed: ${(e as Error).message}`);
+    } finally {
+      structuresBusy = false;
+    }
+  };
+  const structures = setInterval(() => void computeStructures(), options.structuresEveryMs ?? 250);
   void sweep();
   log("ready");
 
@@ -74,6 +95,8 @@ export async function startWorker(options: WorkerOptions): Promise<RunningWorker
     id,
     async stop() {
       clearInterval(sweeper);
+      clearInterval(structures);
+      while (structuresBusy) await new Promise((r) => setTimeout(r, 20));
       for (const w of workIds) await boss.offWork({ id: w }).catch(() => undefined);
       // Hand running jobs back before killing their processes, so no final write can land.
       const released = await releaseRunningJobs(db, id).catch(() => []);

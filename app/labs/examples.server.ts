@@ -7,6 +7,7 @@
 import type { Kysely } from "kysely";
 import type { Database } from "~/db/schema";
 import { contentHash, listNetworks } from "~/networks/networks.server";
+import { requestStructure } from "~/networks/structure-store.server";
 import { hasRole } from "~/permissions/roles";
 import { recordAudit } from "~/shared/audit.server";
 import { createLab, listLabsOf } from "./labs.server";
@@ -47,6 +48,8 @@ export async function copyExamples(db: Kysely<Database>, args: { fromLabId: stri
           author_id: args.actorId,
         })
         .execute();
+      // Normally stored already (same content as the example); requested in case it is not.
+      await requestStructure(trx, ex.latest.csv);
       outcome.copied.push(ex.name);
     }
     if (outcome.copied.length > 0)

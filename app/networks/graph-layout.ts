@@ -1,5 +1,6 @@
 import dagre from "@dagrejs/dagre";
 import type { NetworkStructure } from "@domain/network/index";
+import { LruMap } from "~/components/render-cache";
 
 /**
  * Positions for drawing the complex graph (complexes as nodes, reactions as arrows). Each
@@ -75,7 +76,15 @@ function layoutClass(members: string[], classEdges: Pair[], index: Map<string, n
   return g;
 }
 
+const layouts = new LruMap<ComplexGraphLayout>(500);
+
+/** The layout of a network's complex graph; dagre's work is remembered by the graph it was given. */
 export function layoutComplexGraph(structure: Pick<NetworkStructure, "complexes" | "reactionList" | "linkageClassMembers">): ComplexGraphLayout {
+  const key = JSON.stringify([structure.complexes, structure.reactionList.map((r) => [r.reactant, r.product, r.rate]), structure.linkageClassMembers]);
+  return layouts.getOrCompute(key, () => computeLayout(structure));
+}
+
+function computeLayout(structure: Pick<NetworkStructure, "complexes" | "reactionList" | "linkageClassMembers">): ComplexGraphLayout {
   const index = new Map(structure.complexes.map((c, i) => [c, i]));
   // Unordered pairs → rates in each direction.
   const pairs = new Map<string, Pair>();

@@ -7,6 +7,7 @@ import type { Kysely } from "kysely";
 import type { Database, DbExecutor } from "~/db/schema";
 import { recordAudit } from "~/shared/audit.server";
 import { isUuid } from "~/shared/uuid";
+import { requestStructure } from "./structure-store.server";
 
 export const contentHash = (csv: string) => createHash("sha256").update(csv, "utf8").digest("hex");
 
@@ -183,6 +184,8 @@ async function insertVersionRow(trx: DbExecutor, networkId: string, number: numb
     .values({ network_id: networkId, number, content_hash: contentHash(input.csv), csv: input.csv, change_note: input.changeNote, author_id: input.authorId })
     .returning("id")
     .executeTakeFirstOrThrow();
+  // The worker computes the structure (structure-store.server.ts); asked for with the version itself.
+  await requestStructure(trx, input.csv);
   const row = await versionQuery(trx).where("v.id", "=", inserted.id).executeTakeFirstOrThrow();
   return toVersion(row);
 }

@@ -10,7 +10,9 @@ import type { LabAccess } from "~/permissions/permissions.server";
 import { hasRole } from "~/permissions/roles";
 import { diffNetworks, type NetworkDiff } from "./diff";
 import { findNetwork, findVersion, latestVersion, listNetworks, listVersions, type NetworkRecord, type VersionRecord } from "./networks.server";
-import { odesOf, structureOf, summaryOf } from "./structure.server";
+import { checkNetworkFile, odesOf } from "./structure.server";
+import { structureState, structureStates, type StructureState } from "./structure-store.server";
+import { contentHash } from "./networks.server";
 import type { SpeciesOde } from "@domain/steady-state/ode-terms";
 import { networkPath } from "./paths";
 import { verdictCard, type LatestAnalysis, type VerdictCard } from "./verdict";
@@ -52,18 +54,23 @@ export type VersionJson = ReturnType<typeof versionJson>;
 
 export async function networkTableRows(db: Kysely<Database>, access: LabAccess, includeArchived: boolean): Promise<NetworkTableRow[]> {
   const entries = await listNetworks(db, access.lab.id, { includeArchived });
+  const states = await structureStates(db, entries.map((n) => n.latest.csv));
   return entries.map((n) => {
-    const summary = summaryOf(n.latest.csv);
+    // Species and reactions come from the file (a parse, no algebra); the deficiency from the
+    // stored structure, null while the worker computes it.
+    const file = checkNetworkFile(n.latest.csv);
+    const state = states.get(contentHash(n.latest.csv));
+    const species = file.ok ? [...file.network.species] : [];
     return {
       id: n.id,
       name: n.name,
       href: networkPath(access.lab.slug, n.id),
       tags: n.tags,
       archived: n.archivedAt !== null,
-      species: summary.species,
-      speciesCount: summary.speciesCount,
-      reactionCount: summary.reactionCount,
-      deficiency: summary.deficiency,
+      species,
+      speciesCount: species.length,
+      reactionCount: file.ok ? file.network.reactions.length : 0,
+      deficiency: state?.status === "ready" ? state.structure.deficiency : null,
       lastChange: n.latest.createdAt.toISOString(),
       author: n.latest.authorName ?? (access.lab.isPublic ? "worked example" : "(former member)"),
       version: n.latest.number,
@@ -97,13 +104,18 @@ export interface NetworkPageData {
   version: VersionJson;
   latestNumber: number;
   versions: VersionJson[];
-  structure: NetworkStructure;
+  /** Null until the worker has computed it (`structureStatus` says why). */
+  structure: NetworkStructure | null;
+  structureStatus: StructureState["status"];
+  structureProblem?: string;
+  /** From the file alone (no structure needed), so the page shows them while the structure is pending. */
   odes: SpeciesOde[];
   canEdit: boolean;
   canDelete: boolean;
   /** Reading a public lab (the worked examples) without being a member. */
   guest: boolean;
-  verdict: VerdictCard;
+  /** Null until the structure is ready: every line rests on it. */
+  verdict: VerdictCard | null;
 }
 
 /** The newest finished analysis of exactly this version, for the verdict card. */
@@ -122,7 +134,7 @@ async function latestAnalysisOf(db: Kysely<Database>, labSlug: string, labId: st
 export async function networkPageData(db: Kysely<Database>, access: LabAccess, network: NetworkRecord, versionParam: string | null): Promise<NetworkPageData> {
   const version = await requireVersion(db, network, versionParam);
   const versions = await listVersions(db, network.id);
-  const structure = structureOf(version.csv);
+  const state = await structureState(db, version.csv);
   const canEdit = hasRole(access.role, "editor");
   const latest = await latestAnalysisOf(db, access.lab.slug, access.lab.id, network.id, version.number);
   return {
@@ -131,21 +143,33 @@ export async function networkPageData(db: Kysely<Database>, access: LabAccess, n
     version: versionJson(version),
     latestNumber: versions[0]!.number,
     versions: versions.map((v) => versionJson(v)),
-    structure,
+    ...structureFields(state),
     odes: odesOf(version.csv),
     canEdit,
     canDelete: hasRole(access.role, "owner"),
     guest: access.guest,
-    verdict: verdictCard(structure, latest, { newAnalysis: canEdit ? newAnalysisPath(access.lab.slug, network.id, version.number) : null }),
+    verdict: state.status === "ready" ? verdictCard(state.structure, latest, { newAnalysis: canEdit ? newAnalysisPath(access.lab.slug, network.id, version.number) : null }) : null,
   };
+}
+
+/** `structure`, `structureStatus` (and the reason of a failure) for pages and the JSON API. */
+export function structureFields(state: StructureState): { structure: NetworkStructure | null; structureStatus: StructureState["status"]; structureProblem?: string } {
+  if (state.status === "ready") return { structure: state.structure, structureStatus: "ready" };
+  if (state.status === "failed") return { structure: null, structureStatus: "failed", structureProblem: state.message };
+  return { structure: null, structureStatus: "pending" };
 }
 
 export interface VersionDiffData {
   from: VersionJson;
   to: VersionJson;
-  diff: NetworkDiff;
+  /** Null while either side's structure is still being computed. */
+  diff: NetworkDiff | null;
 }
 
-export function versionDiff(from: VersionRecord, to: VersionRecord): VersionDiffData {
-  return { from: versionJson(from), to: versionJson(to), diff: diffNetworks(structureOf(from.csv), structureOf(to.csv)) };
+export async function versionDiff(db: Kysely<Database>, from: VersionRecord, to: VersionRecord): Promise<VersionDiffData> {
+  const states = await structureStates(db, [from.csv, to.csv]);
+  const a = states.get(contentHash(from.csv));
+  const b = states.get(contentHash(to.csv));
+  const diff = a?.status === "ready" && b?.status === "ready" ? diffNetworks(a.structure, b.structure) : null;
+  return { from: versionJson(from), to: versionJson(to), diff };
 }

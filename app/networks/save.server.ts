@@ -8,7 +8,7 @@ import type { NetworkFileProblem } from "@domain/network/index";
 import type { Database } from "~/db/schema";
 import type { ApiErrorCode } from "~/permissions/api-errors";
 import { MAX_CSV_BYTES, MAX_CSV_LABEL } from "./grid";
-import { analyseCsv } from "./structure.server";
+import { checkNetworkFile } from "./structure.server";
 import {
   appendVersion,
   findVersion,
@@ -108,7 +108,8 @@ export function checkCsv(csv: unknown): SaveResult<{ csv: string }> {
   if (nul) {
     return { ok: false, code: "invalid_request", message: "The network file contains a NUL character; nothing was saved.", details: { problems: [{ ...nul, message: "a NUL character", expected: "text without control characters" }] } };
   }
-  const analysis = analyseCsv(csv);
+  // Parse and size limits only: the structure is the worker's (structure-store.server.ts).
+  const analysis = checkNetworkFile(csv);
   if (!analysis.ok) {
     const n = analysis.problems.length;
     return { ok: false, code: "invalid_request", message: `The network file has ${n} problem${n === 1 ? "" : "s"}; nothing was saved.`, details: { problems: [...analysis.problems] } };

@@ -1,7 +1,6 @@
 import { getEnv } from "~/env.server";
 import { apiError } from "./api-errors";
-
-const SAFE_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
+import { CROSS_ORIGIN_MESSAGE, crossOriginWrite, SAFE_METHODS } from "./same-origin";
 
 /**
  * Cookie-authenticated writes to the JSON API must come from our own pages. A browser attaches
@@ -9,7 +8,8 @@ const SAFE_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
  * port of the same host is "same-site", so SameSite=Lax does not stop it), so such a write must
  * (1) declare `Content-Type: application/json`, which no cross-origin page can send without a
  * CORS preflight we never answer, and (2) carry an `Origin` (or `Sec-Fetch-Site`) naming this
- * site when the browser sends one. Bearer-token clients are not affected: a token is never
+ * site when the browser sends one (same-origin.ts; the production server checks (2) for every
+ * write, pages included, and this repeats it so the API holds under any server). Bearer-token clients are not affected: a token is never
  * attached by a browser on its own. Reads (GET/HEAD/OPTIONS) pass.
  *
  *   POST /api/labs/x/networks, Cookie, Content-Type: text/plain         → 415 unsupported_media_type
@@ -17,14 +17,8 @@ const SAFE_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
  */
 export function assertCookieWriteAllowed(request: Request): void {
   if (SAFE_METHODS.has(request.method.toUpperCase())) return;
-  const origin = request.headers.get("origin");
-  if (origin !== null && !ownOrigins(request).has(origin)) {
-    throw apiError("cross_origin", "Writes signed in with the session cookie must come from this site's own pages (or use an API token).", { origin });
-  }
-  const site = request.headers.get("sec-fetch-site");
-  if (origin === null && site !== null && site !== "same-origin" && site !== "none") {
-    throw apiError("cross_origin", "Writes signed in with the session cookie must come from this site's own pages (or use an API token).", { fetchSite: site });
-  }
+  const foreign = crossOriginWrite(request.method, { origin: request.headers.get("origin"), fetchSite: request.headers.get("sec-fetch-site") }, ownOrigins(request));
+  if (foreign) throw apiError("cross_origin", CROSS_ORIGIN_MESSAGE, foreign);
   const type = (request.headers.get("content-type") ?? "").split(";")[0]!.trim().toLowerCase();
   if (type !== "application/json") {
     throw apiError("unsupported_media_type", "Writes signed in with the session cookie must send Content-Type: application/json (uploads with a file need an API token).", { contentType: type || null });

@@ -33,8 +33,25 @@ export interface LabAccess {
   guest: boolean;
 }
 
+/**
+ * Who asked, looked up once per read request: a page view runs the root loader and the route's
+ * loader on the same Request, and each asks. Writes always look again (a sign-out earlier in the
+ * same request must count).
+ */
+const usersOfReads = new WeakMap<Request, Promise<CurrentUser | null>>();
+
 /** The signed-in user from the session cookie, or null. Never throws for anonymous visitors. */
-export async function getOptionalUser(request: Request): Promise<CurrentUser | null> {
+export function getOptionalUser(request: Request): Promise<CurrentUser | null> {
+  if (request.method !== "GET" && request.method !== "HEAD") return lookUpUser(request);
+  let user = usersOfReads.get(request);
+  if (!user) {
+    user = lookUpUser(request);
+    usersOfReads.set(request, user);
+  }
+  return user;
+}
+
+async function lookUpUser(request: Request): Promise<CurrentUser | null> {
   const session = await getSession(request);
   const userId = session.get("userId");
   if (!userId) return null;

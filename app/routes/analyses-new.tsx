@@ -10,6 +10,8 @@ import { networkOf, startAnalysis } from "~/analyses/service.server";
 import { OrderEditor } from "~/analyses/ui/order-editor";
 import { Problems } from "~/analyses/ui/problems";
 import { requireNetwork, requireVersion } from "~/networks/pages.server";
+import { structureState } from "~/networks/structure-store.server";
+import { StructurePending } from "~/networks/ui/structure-pending";
 import { networkPath } from "~/networks/paths";
 import { requireLabRole } from "~/permissions/permissions.server";
 import { formatRational } from "@domain/algebra/rational";
@@ -21,8 +23,12 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const network = await requireNetwork(db(), access, params.networkId);
   const version = await requireVersion(db(), network, new URL(request.url).searchParams.get("v"));
   const parsed = networkOf(version.csv);
-  const suggestion = suggestedOrder(parsed);
+  // The suggestion needs the conservation laws: from the stored structure, never computed here.
+  const state = await structureState(db(), version.csv);
+  const suggestion = state.status === "ready" ? suggestedOrder(parsed, state.structure.conservationLaws) : { order: [...parsed.species], reason: "" };
   return {
+    structureStatus: state.status,
+    structureProblem: state.status === "failed" ? state.message : undefined,
     lab: access.lab,
     network: { id: network.id, name: network.name },
     version: { number: version.number },
@@ -67,76 +73,81 @@ export default function NewAnalysis({ loaderData: d, actionData }: Route.Compone
         </p>
       </header>
       {actionData?.problems && <Problems problems={actionData.problems} />}
-      <Form method="post" className="grid grid-cols-1 gap-8 lg:grid-cols-2">
-        <fieldset className="space-y-3">
-          <legend className="mb-2 font-semibold">Elimination order</legend>
-          <OrderEditor suggested={d.suggested} reason={d.reason} />
-          <div className="space-y-1 text-sm">
-            <p className="font-medium">Species kept free (moved to the end of the order)</p>
-            <div className="flex flex-wrap gap-3">
-              {d.species.map((s) => (
-                <label key={s} className="inline-flex items-center gap-1 font-mono">
-                  <input type="checkbox" name="free" value={s} /> {s}
+      {d.structureStatus !== "ready" ? (
+        // The form suggests an order from the conservation laws, which the worker is still computing.
+        <StructurePending status={d.structureStatus === "failed" ? "failed" : "pending"} problem={d.structureProblem} what="The structure this form needs" />
+      ) : (
+        <Form method="post" className="grid grid-cols-1 gap-8 lg:grid-cols-2">
+          <fieldset className="space-y-3">
+            <legend className="mb-2 font-semibold">Elimination order</legend>
+            <OrderEditor suggested={d.suggested} reason={d.reason} />
+            <div className="space-y-1 text-sm">
+              <p className="font-medium">Species kept free (moved to the end of the order)</p>
+              <div className="flex flex-wrap gap-3">
+                {d.species.map((s) => (
+                  <label key={s} className="inline-flex items-center gap-1 font-mono">
+                    <input type="checkbox" name="free" value={s} /> {s}
+                  </label>
+                ))}
+              </div>
+            </div>
+          </fieldset>
+          <fieldset className="space-y-3">
+            <legend className="mb-2 font-semibold">Rate constants</legend>
+            <div className="flex gap-4 text-sm">
+              <label className="inline-flex items-center gap-1">
+                <input type="radio" name="rateMode" value="numeric" defaultChecked={allValued} /> numeric values
+              </label>
+              <label className="inline-flex items-center gap-1">
+                <input type="radio" name="rateMode" value="symbolic" defaultChecked={!allValued} /> all symbolic
+              </label>
+            </div>
+            <div className="grid grid-cols-2 gap-2 sm:grid-cols-3">
+              {d.rates.map((r) => (
+                <label key={r} className="space-y-0.5 text-sm">
+                  <span className="block font-mono">{r}</span>
+                  <input className={`${input} w-full`} name={`rate.${r}`} placeholder={d.fileValues[r] ?? "value"} aria-label={`Value of ${r}`} />
                 </label>
               ))}
             </div>
-          </div>
-        </fieldset>
-        <fieldset className="space-y-3">
-          <legend className="mb-2 font-semibold">Rate constants</legend>
-          <div className="flex gap-4 text-sm">
-            <label className="inline-flex items-center gap-1">
-              <input type="radio" name="rateMode" value="numeric" defaultChecked={allValued} /> numeric values
+            <p className="text-xs text-muted">Empty fields keep the value from the network file (shown greyed). Decimals and fractions are read exactly.</p>
+          </fieldset>
+          <fieldset className="space-y-3">
+            <legend className="mb-2 font-semibold">Initial concentrations (for numeric steady states)</legend>
+            <div className="grid grid-cols-2 gap-2 sm:grid-cols-3">
+              {d.species.map((s) => (
+                <label key={s} className="space-y-0.5 text-sm">
+                  <span className="block font-mono">{s}</span>
+                  <input className={`${input} w-full`} name={`initial.${s}`} placeholder="0" defaultValue={d.storedInitial[s] ?? ""} aria-label={`Initial concentration of ${s}`} />
+                </label>
+              ))}
+            </div>
+            <p className="text-xs text-muted">
+              {Object.keys(d.storedInitial).length > 0 ? "Filled in from the values stored with this version; change them here for this analysis only. " : ""}
+              Leave all empty for a symbolic analysis only. Unlisted species start at 0; the totals of the conservation laws follow.
+            </p>
+          </fieldset>
+          <fieldset className="space-y-3">
+            <legend className="mb-2 font-semibold">Limits</legend>
+            <label className="block space-y-0.5 text-sm">
+              <span className="block">Time limit (seconds, at most {d.limits.maxTimeLimitSeconds} in this lab)</span>
+              <input className={input} name="timeLimitSeconds" type="number" min={1} max={d.limits.maxTimeLimitSeconds} defaultValue={Math.min(120, d.limits.maxTimeLimitSeconds)} />
             </label>
-            <label className="inline-flex items-center gap-1">
-              <input type="radio" name="rateMode" value="symbolic" defaultChecked={!allValued} /> all symbolic
+            <label className="block space-y-0.5 text-sm">
+              <span className="block">Size budget: largest Gröbner basis (polynomials, at most {d.limits.maxBasisSize})</span>
+              <input className={input} name="maxBasisSize" type="number" min={1} max={d.limits.maxBasisSize} defaultValue={Math.min(2000, d.limits.maxBasisSize)} />
             </label>
+            <label className="inline-flex items-center gap-2 text-sm">
+              <input type="checkbox" name="notify" /> E-mail me when it finishes or fails
+            </label>
+          </fieldset>
+          <div className="lg:col-span-2">
+            <button type="submit" disabled={busy} className="rounded-md bg-accent px-4 py-2 font-medium text-accent-ink hover:bg-accent-strong disabled:opacity-60">
+              {busy ? "Starting…" : "Start analysis"}
+            </button>
           </div>
-          <div className="grid grid-cols-2 gap-2 sm:grid-cols-3">
-            {d.rates.map((r) => (
-              <label key={r} className="space-y-0.5 text-sm">
-                <span className="block font-mono">{r}</span>
-                <input className={`${input} w-full`} name={`rate.${r}`} placeholder={d.fileValues[r] ?? "value"} aria-label={`Value of ${r}`} />
-              </label>
-            ))}
-          </div>
-          <p className="text-xs text-muted">Empty fields keep the value from the network file (shown greyed). Decimals and fractions are read exactly.</p>
-        </fieldset>
-        <fieldset className="space-y-3">
-          <legend className="mb-2 font-semibold">Initial concentrations (for numeric steady states)</legend>
-          <div className="grid grid-cols-2 gap-2 sm:grid-cols-3">
-            {d.species.map((s) => (
-              <label key={s} className="space-y-0.5 text-sm">
-                <span className="block font-mono">{s}</span>
-                <input className={`${input} w-full`} name={`initial.${s}`} placeholder="0" defaultValue={d.storedInitial[s] ?? ""} aria-label={`Initial concentration of ${s}`} />
-              </label>
-            ))}
-          </div>
-          <p className="text-xs text-muted">
-            {Object.keys(d.storedInitial).length > 0 ? "Filled in from the values stored with this version; change them here for this analysis only. " : ""}
-            Leave all empty for a symbolic analysis only. Unlisted species start at 0; the totals of the conservation laws follow.
-          </p>
-        </fieldset>
-        <fieldset className="space-y-3">
-          <legend className="mb-2 font-semibold">Limits</legend>
-          <label className="block space-y-0.5 text-sm">
-            <span className="block">Time limit (seconds, at most {d.limits.maxTimeLimitSeconds} in this lab)</span>
-            <input className={input} name="timeLimitSeconds" type="number" min={1} max={d.limits.maxTimeLimitSeconds} defaultValue={Math.min(120, d.limits.maxTimeLimitSeconds)} />
-          </label>
-          <label className="block space-y-0.5 text-sm">
-            <span className="block">Size budget: largest Gröbner basis (polynomials, at most {d.limits.maxBasisSize})</span>
-            <input className={input} name="maxBasisSize" type="number" min={1} max={d.limits.maxBasisSize} defaultValue={Math.min(2000, d.limits.maxBasisSize)} />
-          </label>
-          <label className="inline-flex items-center gap-2 text-sm">
-            <input type="checkbox" name="notify" /> E-mail me when it finishes or fails
-          </label>
-        </fieldset>
-        <div className="lg:col-span-2">
-          <button type="submit" disabled={busy} className="rounded-md bg-accent px-4 py-2 font-medium text-accent-ink hover:bg-accent-strong disabled:opacity-60">
-            {busy ? "Starting…" : "Start analysis"}
-          </button>
-        </div>
-      </Form>
+        </Form>
+      )}
     </div>
   );
 }

@@ -7,7 +7,8 @@ import { networkPath } from "~/networks/paths";
 import { analysesPath, newAnalysisPath } from "~/analyses/paths";
 import { NetworkHeader } from "~/networks/ui/network-header";
 import { NetworkSettings } from "~/networks/ui/network-settings";
-import { AtAGlance, EVIDENCE, StructureView } from "~/networks/ui/structure-view";
+import { StructurePending } from "~/networks/ui/structure-pending";
+import { AtAGlance, EVIDENCE, OdesSection, StructureView } from "~/networks/ui/structure-view";
 import { VerdictCardView } from "~/networks/ui/verdict-card";
 import { GuestNotice } from "~/labs/guest-notice";
 import { VersionList } from "~/networks/ui/version-list";
@@ -50,17 +51,24 @@ export default function NetworkPage({ loaderData, actionData }: Route.ComponentP
         </p>
       )}
       {d.guest && <GuestNotice slug={d.lab.slug} />}
-      <VerdictCardView card={d.verdict} />
+      {d.verdict ? (
+        <VerdictCardView card={d.verdict} />
+      ) : (
+        // Every line of the card and all evidence but the rate equations rest on the structure the worker is computing.
+        <StructurePending status={d.structureStatus === "failed" ? "failed" : "pending"} problem={d.structureProblem} />
+      )}
       <div className="grid gap-8 lg:grid-cols-[14rem_minmax(0,1fr)]">
         <aside className="space-y-5 lg:sticky lg:top-4 lg:self-start">
-          <div>
-            <h2 className="mb-1 text-xs font-semibold uppercase tracking-wide text-faint">At a glance</h2>
-            <AtAGlance structure={d.structure} />
-          </div>
+          {d.structure && (
+            <div>
+              <h2 className="mb-1 text-xs font-semibold uppercase tracking-wide text-faint">At a glance</h2>
+              <AtAGlance structure={d.structure} />
+            </div>
+          )}
           <nav aria-label="Evidence">
             <h2 className="mb-1 text-xs font-semibold uppercase tracking-wide text-faint">Evidence</h2>
             <ol className="flex flex-wrap gap-x-4 gap-y-1 text-sm lg:block lg:space-y-1">
-              {EVIDENCE.map(([id, label]) => (
+              {EVIDENCE.filter(([id]) => d.structure || id === "odes").map(([id, label]) => (
                 <li key={id}>
                   <a href={`#${id}`} className="text-accent-strong hover:underline">
                     {label}
@@ -76,7 +84,7 @@ export default function NetworkPage({ loaderData, actionData }: Route.ComponentP
           </nav>
         </aside>
         <div className="min-w-0 space-y-8">
-          <StructureView structure={d.structure} odes={d.odes} name={d.network.name} />
+          {d.structure ? <StructureView structure={d.structure} odes={d.odes} name={d.network.name} /> : <OdesSection odes={d.odes} />}
           <VersionList
             base={base}
             versions={d.versions}

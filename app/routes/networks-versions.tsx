@@ -5,6 +5,7 @@ import { listVersions } from "~/networks/networks.server";
 import { requireNetwork, requireVersion, versionDiff, versionJson } from "~/networks/pages.server";
 import { networkPath } from "~/networks/paths";
 import { DiffView } from "~/networks/ui/diff-view";
+import { StructurePending } from "~/networks/ui/structure-pending";
 import { requireLabRole } from "~/permissions/permissions.server";
 import { formatDateTime } from "~/shared/dates";
 
@@ -22,7 +23,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     base: networkPath(access.lab.slug, network.id),
     network: { name: network.name },
     versions: versions.map((v) => versionJson(v)),
-    comparison: versionDiff(from, to),
+    comparison: await versionDiff(db(), from, to),
   };
 }
 
@@ -57,7 +58,7 @@ export default function VersionsPage({ loaderData }: Route.ComponentProps) {
         What changed from version {comparison.from.number} ({comparison.from.author ?? "former member"}) to version {comparison.to.number} ({comparison.to.author ?? "former member"}
         {comparison.to.changeNote ? `: “${comparison.to.changeNote}”` : ""}).
       </p>
-      <DiffView diff={comparison.diff} />
+      {comparison.diff ? <DiffView diff={comparison.diff} /> : <StructurePending status="pending" what="The comparison" />}
       <section className="space-y-2">
         <h2 className="text-lg font-semibold">All versions</h2>
         <div className="relative overflow-x-auto">

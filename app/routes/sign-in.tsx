@@ -1,5 +1,6 @@
 import { data, Form, redirect, useNavigation } from "react-router";
 import type { Route } from "./+types/sign-in";
+import { clientKey } from "~/auth/client-key.server";
 import { requestSignInCode } from "~/auth/sign-in.server";
 import { safeReturnTo } from "~/auth/session.server";
 import { getOptionalUser } from "~/permissions/permissions.server";
@@ -19,8 +20,8 @@ export async function loader({ request }: Route.LoaderArgs) {
   };
 }
 
-export async function action({ request }: Route.ActionArgs) {
-  const refusal = await requestSignInCode(request);
+export async function action({ request, context }: Route.ActionArgs) {
+  const refusal = await requestSignInCode(request, clientKey(context));
   return data(refusal, { status: refusal.status });
 }
 

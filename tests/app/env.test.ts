@@ -54,4 +54,11 @@ describe("loadEnv", () => {
       expect(problems.join("\n")).toMatch(/TOTP_SECRET/);
     }
   });
+
+  it("sizes the database pools from DB_POOL_MAX / WORKER_DB_POOL_MAX, with defaults and bounds", () => {
+    expect(loadEnv({ DATA_DIR: tmp }).dbPool).toEqual({ max: 20, waitMs: 10_000, workerMax: 4, exposeStats: false });
+    expect(loadEnv({ DATA_DIR: tmp, DB_POOL_MAX: "40", WORKER_DB_POOL_MAX: "6", DB_POOL_WAIT_MS: "2000", DB_POOL_STATS: "1" }).dbPool).toEqual({ max: 40, waitMs: 2000, workerMax: 6, exposeStats: true });
+    expect(() => loadEnv({ DATA_DIR: tmp, DB_POOL_MAX: "0" })).toThrow(/DB_POOL_MAX: expected a whole number from 1 to 500/);
+    expect(() => loadEnv({ DATA_DIR: tmp, DB_POOL_MAX: "lots" })).toThrow(/DB_POOL_MAX/);
+  });
 });

@@ -165,8 +165,16 @@ describe.skipIf(!hasApp)("networks in headless chromium", () => {
     for (let i = 1; i <= 9; i++) rows.push(`S${i} + F <-> S${i}F,e${i},f${i}`, `S${i}F -> S${i - 1} + F,g${i},`);
     const created = await editor.context.request.post(`/api${LAB}/networks`, { data: { name: `Nine-site chain ${Date.now().toString(36)}`, csv: rows.join("\n") + "\n" } });
     expect(created.status()).toBe(201);
-    const body = (await created.json()) as { network: { id: string }; structure: { complexes: string[] } };
-    expect(body.structure.complexes).toHaveLength(38);
+    const body = (await created.json()) as { network: { id: string } };
+    // The worker computes the structure; the API says "pending" until then.
+    let structure: { complexes: string[] } | null = null;
+    for (let i = 0; i < 60 && !structure; i++) {
+      const read = (await (await editor.context.request.get(`/api${LAB}/networks/${body.network.id}`)).json()) as { structure: { complexes: string[] } | null; structureStatus: string };
+      expect(["pending", "ready"]).toContain(read.structureStatus);
+      structure = read.structure;
+      if (!structure) await new Promise((r) => setTimeout(r, 250));
+    }
+    expect(structure?.complexes).toHaveLength(38);
     const { page } = await editor.page(`${LAB}/networks/${body.network.id}`);
     const graph = page.getByTestId("complex-graph");
     await graph.scrollIntoViewIfNeeded();

@@ -4,46 +4,27 @@ import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { appListener, setClientAddress } from "../../scripts/serve";
+import type { Application, RequestHandler } from "express";
+import { createApp, clientAddressOf, parseTrustProxy } from "../../scripts/serve";
+import { gunzipSync } from "node:zlib";
 import { BODY_LIMITS, bodyLimitFor } from "../../scripts/lib/request-guards";
 import { MAX_CSV_BYTES } from "~/networks/grid";
 import { hasTestDatabase, type TestDatabase } from "../app/support/test-db";
 import { run, setUpAccountsDb, tearDownAccountsDb } from "../app/auth/fixtures";
 
-/** A fake incoming request: only what setClientAddress reads. */
-function fakeRequest(remoteAddress: string | undefined, rawHeaders: string[]) {
-  const headers: Record<string, string> = {};
-  for (let i = 0; i < rawHeaders.length; i += 2) headers[rawHeaders[i].toLowerCase()] = rawHeaders[i + 1];
-  return { socket: { remoteAddress }, rawHeaders: [...rawHeaders], headers } as unknown as http.IncomingMessage;
-}
-
-describe("setClientAddress", () => {
-  it("replaces any client-sent X-Forwarded-For with the socket address", () => {
-    const req = fakeRequest("::ffff:127.0.0.2", ["Host", "x", "X-Forwarded-For", "10.0.0.1", "x-forwarded-for", "10.0.0.2"]);
-    setClientAddress(req, false);
-    expect(req.rawHeaders).toEqual(["Host", "x", "X-Forwarded-For", "127.0.0.2"]);
-    expect(req.headers["x-forwarded-for"]).toBe("127.0.0.2");
-  });
-
-  it("keeps a trusted proxy's header, and fills it in when the proxy sent none", () => {
-    const proxied = fakeRequest("127.0.0.1", ["X-Forwarded-For", "203.0.113.9, 198.51.100.7"]);
-    setClientAddress(proxied, true);
-    expect(proxied.rawHeaders).toEqual(["X-Forwarded-For", "203.0.113.9, 198.51.100.7"]);
-    const direct = fakeRequest("::1", ["Host", "x"]);
-    setClientAddress(direct, true);
-    expect(direct.rawHeaders).toEqual(["Host", "x", "X-Forwarded-For", "::1"]);
-  });
-
-  it("drops the header when the socket address is unknown", () => {
-    const req = fakeRequest(undefined, ["X-Forwarded-For", "10.0.0.1"]);
-    setClientAddress(req, false);
-    expect(req.rawHeaders).toEqual([]);
-    expect(req.headers["x-forwarded-for"]).toBeUndefined();
+describe("parseTrustProxy", () => {
+  it("reads TRUST_PROXY as express's trust proxy setting, refusing 'believe everyone'", () => {
+    expect(parseTrustProxy(undefined)).toBe(false);
+    expect(parseTrustProxy("")).toBe(false);
+    expect(parseTrustProxy("0")).toBe(false);
+    expect(parseTrustProxy("1")).toBe(1);
+    expect(parseTrustProxy("loopback, 10.0.0.0/8")).toBe("loopback, 10.0.0.0/8");
+    expect(() => parseTrustProxy("true")).toThrow(/choose its own address/);
   });
 });
 
 /** Starts `listener` on 127.0.0.1 and sends requests from a chosen loopback source address. */
-async function listen(listener: http.RequestListener) {
+async function listen(listener: http.RequestListener | Application) {
   const server = http.createServer(listener);
   await new Promise<void>((resolve) => server.listen(0, "127.0.0.1", resolve));
   const port = (server.address() as AddressInfo).port;
@@ -51,20 +32,22 @@ async function listen(listener: http.RequestListener) {
     target: string,
     opts: { method?: string; from?: string; headers?: Record<string, string>; body?: string } = {},
   ) =>
-    new Promise<{ status: number; headers: http.IncomingHttpHeaders; body: string }>((resolve, reject) => {
+    new Promise<{ status: number; headers: http.IncomingHttpHeaders; body: string; raw: Buffer }>((resolve, reject) => {
       const req = http.request(
         { host: "127.0.0.1", port, path: target, method: opts.method ?? "GET", localAddress: opts.from, headers: opts.headers },
         (res) => {
-          let body = "";
-          res.setEncoding("utf8");
-          res.on("data", (c: string) => (body += c));
-          res.on("end", () => resolve({ status: res.statusCode ?? 0, headers: res.headers, body }));
+          const chunks: Buffer[] = [];
+          res.on("data", (c: Buffer) => chunks.push(c));
+          res.on("end", () => {
+            const raw = Buffer.concat(chunks);
+            resolve({ status: res.statusCode ?? 0, headers: res.headers, body: raw.toString("utf8"), raw });
+          });
         },
       );
       req.on("error", reject);
       req.end(opts.body);
     });
-  return { send, close: () => new Promise<void>((resolve) => server.close(() => resolve())) };
+  return { send, port, close: () => new Promise<void>((resolve) => server.close(() => resolve())) };
 }
 
 describe("static files", () => {
@@ -76,9 +59,12 @@ describe("static files", () => {
     writeFileSync(path.join(dir, "client", "favicon.svg"), "<svg/>");
     writeFileSync(path.join(dir, "secret.txt"), "outside");
     server = await listen(
-      appListener({
+      createApp({
         clientDir: path.join(dir, "client"),
-        handle: (req, res) => res.writeHead(200, { "Content-Type": "text/plain" }).end(`app ${req.method} ${req.url}`),
+        handle: (req, res) => {
+          if (req.url === "/big") return res.writeHead(200, { "Content-Type": "text/html" }).end("<p>stillpoint</p>".repeat(2000));
+          res.writeHead(200, { "Content-Type": "text/plain" }).end(`app ${req.method} ${req.url}`);
+        },
       }),
     );
   });
@@ -91,11 +77,25 @@ describe("static files", () => {
     const asset = await server.send("/assets/root-Ab12.js");
     expect(asset.status).toBe(200);
     expect(asset.body).toBe("export {};");
-    expect(asset.headers["content-type"]).toMatch(/^text\/javascript/);
+    expect(asset.headers["content-type"]).toMatch(/^(text|application)\/javascript/);
     expect(asset.headers["cache-control"]).toBe("public, max-age=31536000, immutable");
     const icon = await server.send("/favicon.svg");
     expect(icon.headers["content-type"]).toBe("image/svg+xml");
     expect(icon.headers["cache-control"]).toBe("public, max-age=0");
+    expect(icon.headers.etag).toBeTruthy();
+    const again = await server.send("/favicon.svg", { headers: { "If-None-Match": String(icon.headers.etag) } });
+    expect(again.status).toBe(304);
+  });
+
+  it("compresses pages for clients that accept gzip, and only those", async () => {
+    const page = "<p>stillpoint</p>".repeat(2000);
+    const zipped = await server.send("/big", { headers: { "Accept-Encoding": "gzip" } });
+    expect(zipped.headers["content-encoding"]).toBe("gzip");
+    expect(zipped.raw.length).toBeLessThan(page.length / 10);
+    expect(gunzipSync(zipped.raw).toString("utf8")).toBe(page);
+    const plain = await server.send("/big", { headers: { "Accept-Encoding": "identity" } });
+    expect(plain.headers["content-encoding"]).toBeUndefined();
+    expect(plain.body).toBe(page);
   });
 
   it("hands everything else to the app, including paths that try to leave the folder", async () => {
@@ -111,7 +111,7 @@ describe("request guards: body limits, NUL characters, security headers", () => 
   let reached = 0;
   beforeAll(async () => {
     server = await listen(
-      appListener({
+      createApp({
         clientDir: path.join(os.tmpdir(), "stillpoint-no-client"),
         handle: (req, res) => {
           reached++;
@@ -172,10 +172,10 @@ describe("request guards: body limits, NUL characters, security headers", () => 
 
   it("keeps every Set-Cookie line the app writes (the sign-in sets several) alongside the security headers", async () => {
     const cookies = await listen(
-      appListener({
+      createApp({
         clientDir: path.join(os.tmpdir(), "stillpoint-no-client"),
-        // As @react-router/node writes a response: one raw array, Set-Cookie repeated.
-        handle: (_req, res) => res.writeHead(302, ["Location", "/next", "Set-Cookie", "a=1", "Set-Cookie", "b=2", "Set-Cookie", "c=3"]).end(),
+        // As @react-router/express writes a response: res.append per header, Set-Cookie repeated.
+        handle: (_req, res) => res.status(302).append("Location", "/next").append("Set-Cookie", "a=1").append("Set-Cookie", "b=2").append("Set-Cookie", "c=3").end(),
       }),
     );
     try {
@@ -199,17 +199,19 @@ describe("request guards: body limits, NUL characters, security headers", () => 
   });
 });
 
-/** The app side of the listener for this test: the real sign-in action behind a Fetch Request. */
-function signInHandler(action: Parameters<typeof run>[0]): http.RequestListener {
+/**
+ * The app side for this test: the real sign-in action behind a Fetch Request, with the load
+ * context serve.ts builds (the client address after `trust proxy`).
+ */
+function signInHandler(action: Parameters<typeof run>[0]): RequestHandler {
   return (req, res) => {
     const chunks: Buffer[] = [];
     req.on("data", (c: Buffer) => chunks.push(c));
     req.on("end", async () => {
-      // Headers from rawHeaders, as @react-router/node builds them.
       const headers = new Headers();
-      for (let i = 0; i < req.rawHeaders.length; i += 2) headers.append(req.rawHeaders[i], req.rawHeaders[i + 1]);
+      for (let i = 0; i < req.rawHeaders.length; i += 2) headers.append(req.rawHeaders[i]!, req.rawHeaders[i + 1]!);
       const request = new Request(`http://127.0.0.1${req.url}`, { method: req.method, headers, body: Buffer.concat(chunks) });
-      const out = await run(action, request);
+      const out = await run(action, request, {}, { clientAddress: clientAddressOf(req) });
       res.writeHead(out.status).end();
     });
   };
@@ -226,7 +228,7 @@ describe.skipIf(!hasTestDatabase)("per-client sign-in allowance over real connec
     restoreMail = (await import("~/mail/mailer.server")).captureMail().restore;
     maxPerClient = (await import("~/auth/login-codes.server")).SIGN_IN_POLICY.maxRequestsPerClient;
     const signIn = await import("~/routes/sign-in");
-    server = await listen(appListener({ clientDir: path.join(os.tmpdir(), "stillpoint-no-client"), handle: signInHandler(signIn.action) }));
+    server = await listen(createApp({ clientDir: path.join(os.tmpdir(), "stillpoint-no-client"), handle: signInHandler(signIn.action) }));
   });
   afterAll(async () => {
     await server?.close();
@@ -250,5 +252,92 @@ describe.skipIf(!hasTestDatabase)("per-client sign-in allowance over real connec
     expect((await ask("one-more@lab.test", "127.0.0.1")).status).toBe(302);
     const rows = await t.db.selectFrom("login_codes").select("client_key").execute();
     expect(new Set(rows.map((r) => r.client_key))).toEqual(new Set(["ip:127.0.0.2", "ip:127.0.0.1"]));
+  });
+});
+
+describe("the client address under TRUST_PROXY", () => {
+  const seen = async (trustProxy: false | number | string, from: string, headers: Record<string, string> = {}) => {
+    const server = await listen(
+      createApp({ clientDir: path.join(os.tmpdir(), "stillpoint-no-client"), trustProxy, handle: (req, res) => res.end(clientAddressOf(req) ?? "none") }),
+    );
+    try {
+      return (await server.send("/labs", { from, headers })).body;
+    } finally {
+      await server.close();
+    }
+  };
+
+  it("is the socket address, whatever X-Forwarded-For says, when no proxy is trusted", async () => {
+    expect(await seen(false, "127.0.0.2", { "X-Forwarded-For": "10.0.0.1" })).toBe("127.0.0.2");
+  });
+
+  it("is the proxy's own appended entry with one trusted hop (earlier entries are client-supplied)", async () => {
+    expect(await seen(1, "127.0.0.1", { "X-Forwarded-For": "203.0.113.9, 198.51.100.7" })).toBe("198.51.100.7");
+    expect(await seen(1, "127.0.0.3")).toBe("127.0.0.3");
+  });
+
+  it("believes only the listed proxies", async () => {
+    expect(await seen("127.0.0.1", "127.0.0.1", { "X-Forwarded-For": "198.51.100.7" })).toBe("198.51.100.7");
+    expect(await seen("127.0.0.1", "127.0.0.4", { "X-Forwarded-For": "198.51.100.7" })).toBe("127.0.0.4");
+  });
+});
+
+describe("same-origin check on every write, not only the API's", () => {
+  let server: Awaited<ReturnType<typeof listen>>;
+  let origin: string;
+  const reached: string[] = [];
+  beforeAll(async () => {
+    server = await listen(
+      createApp({
+        clientDir: path.join(os.tmpdir(), "stillpoint-no-client"),
+        appOrigins: ["https://stillpoint.example"],
+        handle: (req, res) => {
+          req.resume();
+          req.on("end", () => {
+            reached.push(`${req.method} ${req.url}`);
+            res.writeHead(200, { "Content-Type": "text/plain" }).end("app");
+          });
+        },
+      }),
+    );
+    origin = `http://127.0.0.1:${server.port}`;
+  });
+  afterAll(async () => server.close());
+
+  const form = { "Content-Type": "application/x-www-form-urlencoded" };
+  // One request of each class a browser can send with the session cookie attached.
+  const classes: { what: string; path: string; headers: Record<string, string>; body: string }[] = [
+    { what: "a page's form post (lab settings)", path: "/labs/alpha", headers: form, body: "intent=rename&name=X" },
+    { what: "a page's multipart upload (new network)", path: "/labs/alpha/networks/new", headers: { "Content-Type": "multipart/form-data; boundary=XX" }, body: '--XX\r\nContent-Disposition: form-data; name="name"\r\n\r\nN\r\n--XX--\r\n' },
+    { what: "a client-side submission (React Router .data)", path: "/labs/alpha/networks/n1.data", headers: form, body: "intent=archive" },
+    { what: "an anonymous form (sign-in)", path: "/sign-in", headers: form, body: "email=a%40b.test" },
+    { what: "sign-out", path: "/sign-out", headers: form, body: "" },
+    { what: "a cookie API write", path: "/api/labs", headers: { "Content-Type": "application/json" }, body: '{"name":"L"}' },
+    { what: "a text/plain post", path: "/labs/alpha/members", headers: { "Content-Type": "text/plain" }, body: "x" },
+  ];
+
+  for (const c of classes) {
+    it(`refuses ${c.what} from another origin with 403, before the app sees it; accepts it from ours`, async () => {
+      const before = reached.length;
+      const foreign = await server.send(c.path, { method: "POST", headers: { ...c.headers, Origin: "http://127.0.0.1:4000" }, body: c.body });
+      expect(foreign.status).toBe(403);
+      expect(JSON.parse(foreign.body).error).toMatchObject({ code: "cross_origin", details: { origin: "http://127.0.0.1:4000" } });
+      const fetchSite = await server.send(c.path, { method: "POST", headers: { ...c.headers, "Sec-Fetch-Site": "same-site" }, body: c.body });
+      expect(fetchSite.status).toBe(403);
+      expect(reached.length).toBe(before);
+
+      const own = await server.send(c.path, { method: "POST", headers: { ...c.headers, Origin: origin, "Sec-Fetch-Site": "same-origin" }, body: c.body });
+      expect(own.status).toBe(200);
+      const proxied = await server.send(c.path, { method: "POST", headers: { ...c.headers, Origin: "https://stillpoint.example" }, body: c.body });
+      expect(proxied.status).toBe(200);
+      expect(reached.length).toBe(before + 2);
+    });
+  }
+
+  it("lets reads, scripts without Origin and API-token clients through", async () => {
+    expect((await server.send("/labs/alpha", { headers: { Origin: "http://127.0.0.1:4000" } })).status).toBe(200);
+    expect((await server.send("/labs/alpha", { method: "POST", headers: form, body: "name=x" })).status).toBe(200);
+    const token = await server.send("/api/labs", { method: "POST", headers: { "Content-Type": "application/json", Authorization: "Bearer stp_x", Origin: "http://127.0.0.1:4000" }, body: "{}" });
+    expect(token.status).toBe(200);
   });
 });

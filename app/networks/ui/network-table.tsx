@@ -27,7 +27,8 @@ export interface NetworkTableRow {
   species: string[];
   speciesCount: number;
   reactionCount: number;
-  deficiency: number;
+  /** Null while the worker computes the structure. */
+  deficiency: number | null;
   lastChange: string;
   author: string;
   version: number;
@@ -86,7 +87,15 @@ const columns = column.columns([
     ),
   }),
   column.accessor("reactionCount", { header: "Reactions", sortFn: "basic", cell: (info) => <span className="tabular-nums">{info.getValue()}</span> }),
-  column.accessor("deficiency", { header: "Deficiency", sortFn: "basic", filterFn: "equals", cell: (info) => <span className="tabular-nums">{info.getValue()}</span> }),
+  column.accessor("deficiency", {
+    header: "Deficiency",
+    sortFn: "basic",
+    filterFn: "equals",
+    cell: (info) => {
+      const value = info.getValue();
+      return value === null ? <span className="text-muted" title="Being computed in the background">…</span> : <span className="tabular-nums">{value}</span>;
+    },
+  }),
   column.accessor("lastChange", {
     header: "Last change",
     sortFn: "alphanumeric",
@@ -101,7 +110,7 @@ const columns = column.columns([
 
 export function NetworkTable({ rows }: { rows: NetworkTableRow[] }) {
   const table = useTable({ features, columns, data: rows, initialState: { sorting: [{ id: "lastChange", desc: true }] } });
-  const deficiencies = [...new Set(rows.map((r) => r.deficiency))].sort((a, b) => a - b);
+  const deficiencies = [...new Set(rows.map((r) => r.deficiency).filter((d): d is number => d !== null))].sort((a, b) => a - b);
   const [deficiency, setDeficiency] = useState("");
   const visible = table.getRowModel().rows;
   return (

@@ -1,15 +1,15 @@
-import katex from "katex";
 import "katex/dist/katex.min.css";
 import type { SpeciesOde } from "@domain/steady-state/ode-terms";
+import { katexHtml } from "~/components/render-cache";
 import { odesAlignedLatex, odeToText } from "../odes";
 
 /**
  * The ODEs typeset by KaTeX in one aligned block (fonts come from node_modules through Vite; no
  * CDN). Rendered to an HTML+MathML string, the same on the server and in the browser; the
- * plain-text forms follow for copying and screen readers.
+ * plain-text forms follow for copying and screen readers. The HTML is remembered by formula.
  */
 export function OdesView({ odes }: { odes: readonly SpeciesOde[] }) {
-  const html = katex.renderToString(odesAlignedLatex(odes), { displayMode: true, throwOnError: false, output: "htmlAndMathml" });
+  const html = katexHtml(odesAlignedLatex(odes), true);
   return (
     <div data-testid="odes">
       {/* KaTeX escapes every symbol it is given; names come from the validated CSV. */}

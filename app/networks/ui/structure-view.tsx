@@ -238,10 +238,17 @@ export function StructureView({ structure, odes, name }: { structure: NetworkStr
         </div>
       </Section>
 
-      <Section id="odes" title={title.odes} help={GLOSSARY.odes}>
-        <OdesView odes={odes} />
-      </Section>
+      <OdesSection odes={odes} />
     </div>
+  );
+}
+
+/** The rate equations: from the file alone, so the page shows them also while the structure is pending. */
+export function OdesSection({ odes }: { odes: readonly SpeciesOde[] }) {
+  return (
+    <Section id="odes" title={EVIDENCE.find(([id]) => id === "odes")![1]} help={GLOSSARY.odes}>
+      <OdesView odes={odes} />
+    </Section>
   );
 }
 

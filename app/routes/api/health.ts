@@ -1,14 +1,17 @@
-import { db } from "~/db.server";
+import { db, poolStats } from "~/db.server";
+import { getEnv } from "~/env.server";
 import { checkHealth } from "~/health.server";
 import pkg from "../../../package.json";
 
 /**
  * GET /api/health — for load balancers and people: 200 when the database answers and every
- * migration is applied, 503 otherwise (the body says which).
+ * migration is applied, 503 otherwise (the body says which). With DB_POOL_STATS=1 (the load
+ * bench sets it) the body also has the pool's counters: how often requests queued for a connection.
  */
 export async function loader() {
   const health = await checkHealth(db(), pkg.version);
-  return Response.json(health, {
+  const body = getEnv().dbPool.exposeStats ? { ...health, pool: poolStats() } : health;
+  return Response.json(body, {
     status: health.ok ? 200 : 503,
     headers: { "Cache-Control": "no-store" },
   });

@@ -1,7 +1,7 @@
 import type { Route } from "./+types/networks-version";
 import { db } from "~/db.server";
-import { requireNetwork, requireVersion, versionJson } from "~/networks/pages.server";
-import { structureOf } from "~/networks/structure.server";
+import { requireNetwork, requireVersion, structureFields, versionJson } from "~/networks/pages.server";
+import { structureState } from "~/networks/structure-store.server";
 import { requireApiLabRole } from "~/permissions/permissions.server";
 
 /** GET /api/labs/:labSlug/networks/:networkId/versions/:number — one version with its CSV and structure. */
@@ -9,5 +9,5 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const access = await requireApiLabRole(request, params.labSlug, "viewer");
   const network = await requireNetwork(db(), access, params.networkId, true);
   const version = await requireVersion(db(), network, params.number, true);
-  return Response.json({ version: versionJson(version, { csv: true }), structure: structureOf(version.csv) });
+  return Response.json({ version: versionJson(version, { csv: true }), ...structureFields(await structureState(db(), version.csv)) });
 }

@@ -2,9 +2,9 @@ import type { Route } from "./+types/networks-versions";
 import { db } from "~/db.server";
 import { readNetworkPayload, saveFailureResponse } from "~/networks/api.server";
 import { listVersions } from "~/networks/networks.server";
-import { requireNetwork, versionJson } from "~/networks/pages.server";
+import { requireNetwork, structureFields, versionJson } from "~/networks/pages.server";
 import { saveVersion } from "~/networks/save.server";
-import { structureOf } from "~/networks/structure.server";
+import { structureState } from "~/networks/structure-store.server";
 import { apiError } from "~/permissions/api-errors";
 import { requireApiLabRole } from "~/permissions/permissions.server";
 
@@ -24,5 +24,5 @@ export async function action({ request, params }: Route.ActionArgs) {
   const payload = await readNetworkPayload(request, "version");
   const result = await saveVersion(db(), network, { authorId: access.user.id, csv: payload.csv, changeNote: payload.changeNote });
   if (!result.ok) return saveFailureResponse(result);
-  return Response.json({ version: versionJson(result.version, { csv: true }), structure: structureOf(result.version.csv) }, { status: 201 });
+  return Response.json({ version: versionJson(result.version, { csv: true }), ...structureFields(await structureState(db(), result.version.csv)) }, { status: 201 });
 }

@@ -1,9 +1,9 @@
 import type { Route } from "./+types/networks";
 import { db } from "~/db.server";
 import { readNetworkPayload, saveFailureResponse } from "~/networks/api.server";
-import { networkJson, networkTableRows, versionJson } from "~/networks/pages.server";
+import { networkJson, networkTableRows, structureFields, versionJson } from "~/networks/pages.server";
 import { createNetwork } from "~/networks/save.server";
-import { structureOf } from "~/networks/structure.server";
+import { structureState } from "~/networks/structure-store.server";
 import { apiError } from "~/permissions/api-errors";
 import { requireApiLabRole } from "~/permissions/permissions.server";
 
@@ -36,7 +36,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const result = await createNetwork(db(), { labId: access.lab.id, authorId: access.user.id, ...payload, csv: payload.csv });
   if (!result.ok) return saveFailureResponse(result);
   return Response.json(
-    { network: networkJson(result.network), version: versionJson(result.version, { csv: true }), structure: structureOf(result.version.csv) },
+    { network: networkJson(result.network), version: versionJson(result.version, { csv: true }), ...structureFields(await structureState(db(), result.version.csv)) },
     { status: 201, headers: { Location: `/api/labs/${access.lab.slug}/networks/${result.network.id}` } },
   );
 }

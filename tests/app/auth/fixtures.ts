@@ -4,6 +4,7 @@
  * to .data/), users with sessions, and helpers that call route loaders/actions directly with
  * constructed Requests and report what HTTP status the server would send.
  */
+import type { ServerLoadContext } from "~/load-context";
 import type { Kysely } from "kysely";
 import type { Database, LabRole } from "~/db/schema";
 import { createTestDatabase, type TestDatabase } from "../support/test-db";
@@ -110,10 +111,10 @@ type Handler = (args: any) => unknown;
  * Runs a loader or action the way React Router would and reports the HTTP outcome: thrown or
  * returned Responses as they are, `data(value, { status })` with its status, plain values as 200.
  */
-export async function run(handler: Handler, request: Request, params: Record<string, string> = {}): Promise<Outcome> {
+export async function run(handler: Handler, request: Request, params: Record<string, string> = {}, context: ServerLoadContext = {}): Promise<Outcome> {
   let value: unknown;
   try {
-    value = await handler({ request, params, context: {} });
+    value = await handler({ request, params, context });
   } catch (thrown) {
     value = thrown;
     if (!(thrown instanceof Response) && !isData(thrown)) throw thrown;

@@ -1,6 +1,7 @@
 import { createHash } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { analyseStructure, parseNetworkCsv } from "@domain/network/index";
+import { computePendingStructures } from "~/networks/structure-store.server";
 import { hasTestDatabase, type TestDatabase } from "../support/test-db";
 import { APP_URL, makeLab, makeRequest, makeUser, run, sessionCookieFor, setUpAccountsDb, tearDownAccountsDb } from "../auth/fixtures";
 
@@ -67,9 +68,16 @@ describe.skipIf(!hasTestDatabase)("networks API", () => {
     expect(body.network.name).toBe("Enzyme");
     expect(body.network.tags).toEqual(["enzyme", "test"]);
     expect(body.version).toMatchObject({ number: 1, contentHash: sha(CSV), csv: CSV, changeNote: "from the bench", author: "editor" });
-    expect(body.structure).toEqual(JSON.parse(JSON.stringify(analyseStructure(parseNetworkCsv(CSV)))));
+    // The upload request computes no structure: it is requested, and the worker computes it.
+    expect(body).toMatchObject({ structure: null, structureStatus: "pending" });
     expect(res.response?.headers.get("Location")).toBe(`/api/labs/alpha/networks/${body.network.id}`);
     networkId = body.network.id;
+    const pending = await run(item.loader, makeRequest(`${LIST}/${networkId}`, { bearer: tokens.editor }), { ...alpha, networkId });
+    expect(pending.body).toMatchObject({ structure: null, structureStatus: "pending" });
+    expect(await computePendingStructures(t.db)).toBe(1);
+    const ready = await run(item.loader, makeRequest(`${LIST}/${networkId}`, { bearer: tokens.editor }), { ...alpha, networkId });
+    expect(ready.body).toMatchObject({ structureStatus: "ready" });
+    expect((ready.body as { structure: unknown }).structure).toEqual(JSON.parse(JSON.stringify(analyseStructure(parseNetworkCsv(CSV)))));
   });
 
   it("reads the network back with its structure, lists and reads versions (viewer token and cookie)", async () => {
@@ -99,7 +107,10 @@ describe.skipIf(!hasTestDatabase)("networks API", () => {
   it("creates from a JSON body and from a text/csv body", async () => {
     const json = await run(api.action, makeRequest(LIST, { bearer: tokens.owner, json: { name: "Cycle", csv: "reaction\nA <-> B\nB <-> C\nC <-> A\n" } }), alpha);
     expect(json.status).toBe(201);
-    expect((json.body as { structure: { weaklyReversible: boolean } }).structure.weaklyReversible).toBe(true);
+    await computePendingStructures(t.db);
+    const cycleId = (json.body as { network: { id: string } }).network.id;
+    const cycle = await run(item.loader, makeRequest(`${LIST}/${cycleId}`, { bearer: tokens.owner }), { ...alpha, networkId: cycleId });
+    expect((cycle.body as { structure: { weaklyReversible: boolean } }).structure.weaklyReversible).toBe(true);
     const raw = new Request(new URL(`${LIST}?name=Decay`, APP_URL), { method: "POST", body: "reaction\nX -> 0\n", headers: { "Content-Type": "text/csv", Authorization: `Bearer ${tokens.editor}` } });
     const text = await run(api.action, raw, alpha);
     expect(text.status).toBe(201);

@@ -6,6 +6,16 @@ const s = (csv: string) => analyseStructure(parseNetworkCsv(csv));
 const overlap = (a: LaidOutNode, b: LaidOutNode) => Math.abs(a.x - b.x) * 2 < a.width + b.width && Math.abs(a.y - b.y) * 2 < a.height + b.height;
 
 describe("layoutComplexGraph", () => {
+  it("remembers the layout of a graph it has laid out, and lays out a changed graph afresh", () => {
+    const csv = "reaction,rate,reverse_rate\nE + S <-> C,k1,k2\nC -> E + P,k3,\n";
+    const first = layoutComplexGraph(s(csv));
+    // A structure computed again from the same file is a new object with the same graph.
+    expect(layoutComplexGraph(s(csv))).toBe(first);
+    const renamed = layoutComplexGraph(s(csv.replace("k3", "k9")));
+    expect(renamed).not.toBe(first);
+    expect(renamed.edges.map((e) => e.label)).toContain("k9");
+  });
+
   it("draws one node per complex and one line per reaction pair, two-way for reversible pairs", () => {
     const layout = layoutComplexGraph(s("reaction,rate,reverse_rate\nE + S <-> C,k1,k2\nC -> E + P,k3,\n"));
     expect(layout.nodes.map((n) => n.label).sort()).toEqual(["C", "E + P", "E + S"]);

@@ -4,6 +4,7 @@ import { makeLab, makeRequest, makeUser, run, sessionCookieFor, setUpAccountsDb,
 import { analysisParams, makeJob, makeNetwork } from "../jobs/fixtures";
 import { computeJob } from "~/jobs/compute";
 import { stopBosses } from "~/jobs/queue.server";
+import { computePendingStructures } from "~/networks/structure-store.server";
 import type { VerdictCard } from "~/networks/verdict";
 
 /**
@@ -32,12 +33,26 @@ describe.skipIf(!hasTestDatabase)("network page verdict from the newest analysis
     await tearDownAccountsDb(t);
   });
 
-  const verdict = async () => {
+  const load = async () => {
     const page = await import("~/routes/networks-show");
     const out = await run(page.loader, makeRequest(`/labs/alpha/networks/${x.networkId}`, { cookie }), { labSlug: "alpha", networkId: x.networkId });
     expect(out.status).toBe(200);
-    return (out.body as { verdict: VerdictCard }).verdict;
+    return out.body as { verdict: VerdictCard | null; structureStatus: string; odes: { species: string }[] };
   };
+  const verdict = async () => {
+    const card = (await load()).verdict;
+    expect(card).not.toBeNull();
+    return card!;
+  };
+
+  it("has no card while the worker has not computed the structure (every line rests on it), but the rate equations", async () => {
+    const pending = await load();
+    expect(pending).toMatchObject({ verdict: null, structureStatus: "pending" });
+    // The rate equations come from the file, so the page has them meanwhile (A and B are held: X only).
+    expect(pending.odes.map((o) => o.species)).toEqual(["X"]);
+    await computePendingStructures(t.db);
+    expect((await load()).structureStatus).toBe("ready");
+  });
 
   it("before any analysis the structure leaves the count open and offers to start one", async () => {
     const card = await verdict();

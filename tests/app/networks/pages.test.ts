@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { computePendingStructures } from "~/networks/structure-store.server";
 import { hasTestDatabase, type TestDatabase } from "../support/test-db";
 import { makeLab, makeRequest, makeUser, run, sessionCookieFor, setUpAccountsDb, tearDownAccountsDb } from "../auth/fixtures";
 
@@ -63,7 +64,21 @@ describe.skipIf(!hasTestDatabase)("network pages", () => {
     expect(same.status).toBe(409);
   });
 
+  it("shows a pending structure (no algebra on the request), then the worker's result", async () => {
+    const before = await run(show.loader, makeRequest(page(), { cookie: cookies.viewer }), { ...lab, networkId });
+    expect(before.body).toMatchObject({ structure: null, structureStatus: "pending" });
+    const rows = await run(list.loader, makeRequest("/labs/alpha/networks", { cookie: cookies.viewer }), lab);
+    expect((rows.body as { rows: { name: string; deficiency: number | null; speciesCount: number }[] }).rows).toEqual([expect.objectContaining({ name: "Chain", deficiency: null, speciesCount: 3 })]);
+    const tex = await run(download.loader, makeRequest(`${page()}/download/odes.tex`, { cookie: cookies.viewer }), { ...lab, networkId, file: "odes.tex" });
+    expect(tex.status).toBe(503);
+    expect(tex.response?.headers.get("Retry-After")).toMatch(/^\d+$/);
+    expect(await computePendingStructures(t.db)).toBeGreaterThanOrEqual(1);
+    const after = await run(show.loader, makeRequest(page(), { cookie: cookies.viewer }), { ...lab, networkId });
+    expect(after.body).toMatchObject({ structureStatus: "ready", structure: { species: ["A", "B", "C"] } });
+  });
+
   it("lets a viewer read the page, the list and the downloads", async () => {
+    await computePendingStructures(t.db);
     const data = await run(show.loader, makeRequest(page(), { cookie: cookies.viewer }), { ...lab, networkId });
     expect(data.status).toBe(200);
     const d = data.body as { canEdit: boolean; version: { number: number }; structure: { species: string[] }; versions: unknown[] };
