@@ -7,7 +7,7 @@
  */
 import type { Page } from "playwright-core";
 import pg from "pg";
-import { maildevUrl } from "./support/browser";
+import { type E2EBrowser, maildevUrl, openBrowser } from "./support/browser";
 
 interface CaughtMail {
   id: string;
@@ -78,4 +78,13 @@ export async function signInWithCode(page: Page, email: string, displayName = "E
     await page.getByRole("button", { name: "Create my account" }).click();
     await userMenu.waitFor();
   }
+}
+
+/** A fresh browser already signed in as `email` (the beforeAll of most browser test files). */
+export async function openSignedInBrowser(email: string, displayName?: string): Promise<E2EBrowser> {
+  const browser = await openBrowser();
+  const { page } = await browser.page("/sign-in");
+  await signInWithCode(page, email, displayName);
+  await page.close();
+  return browser;
 }

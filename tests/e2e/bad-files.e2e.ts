@@ -1,8 +1,8 @@
 import { mkdirSync } from "node:fs";
 import { gzipSync } from "node:zlib";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { type E2EBrowser, hasApp, openBrowser } from "./support/browser";
-import { signInWithCode } from "./accounts-helpers";
+import { type E2EBrowser, hasApp } from "./support/browser";
+import { openSignedInBrowser } from "./accounts-helpers";
 
 /**
  * Files the editor cannot use, uploaded in the browser: a binary file gives one located line (not
@@ -16,10 +16,7 @@ describe.skipIf(!hasApp)("bad network files in the editor, headless chromium", (
   let editor: E2EBrowser;
   beforeAll(async () => {
     mkdirSync(SHOTS, { recursive: true });
-    editor = await openBrowser();
-    const { page } = await editor.page("/sign-in");
-    await signInWithCode(page, "editor@halvorsen.test");
-    await page.close();
+    editor = await openSignedInBrowser("editor@halvorsen.test");
   }, 60_000);
   afterAll(async () => {
     await editor?.close();

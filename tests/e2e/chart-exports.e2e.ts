@@ -1,8 +1,8 @@
 import { mkdirSync, readFileSync, writeFileSync } from "node:fs";
 import type { BrowserContext, Locator, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { type E2EBrowser, hasApp, openBrowser } from "./support/browser";
-import { signInWithCode } from "./accounts-helpers";
+import { type E2EBrowser, hasApp } from "./support/browser";
+import { openSignedInBrowser } from "./accounts-helpers";
 
 /**
  * Every plot's three exports in the browser, on a 2× screen: the scan's branches (with fold
@@ -69,10 +69,7 @@ describe.skipIf(!hasApp)("chart exports in headless chromium", () => {
   let hiDpi: BrowserContext;
   beforeAll(async () => {
     mkdirSync(SHOTS, { recursive: true });
-    editor = await openBrowser();
-    const { page } = await editor.page("/sign-in");
-    await signInWithCode(page, "editor@halvorsen.test");
-    await page.close();
+    editor = await openSignedInBrowser("editor@halvorsen.test");
     hiDpi = await editor.browser.newContext({ baseURL: process.env.E2E_BASE_URL, viewport: { width: 1366, height: 900 }, deviceScaleFactor: 2, acceptDownloads: true, storageState: await editor.context.storageState() });
   }, 60_000);
   afterAll(async () => {

@@ -1,7 +1,7 @@
 import { mkdirSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { type E2EBrowser, hasApp, openBrowser } from "./support/browser";
-import { signInWithCode } from "./accounts-helpers";
+import { type E2EBrowser, hasApp } from "./support/browser";
+import { openSignedInBrowser } from "./accounts-helpers";
 
 /**
  * Constant species in the browser, as the demo lab's editor: start from the fed-switch demo, see its
@@ -18,10 +18,7 @@ describe.skipIf(!hasApp)("constant species in headless chromium", () => {
 
   beforeAll(async () => {
     mkdirSync(SHOTS, { recursive: true });
-    editor = await openBrowser();
-    const { page } = await editor.page("/sign-in");
-    await signInWithCode(page, "editor@halvorsen.test");
-    await page.close();
+    editor = await openSignedInBrowser("editor@halvorsen.test");
   });
   afterAll(async () => {
     await editor?.close();

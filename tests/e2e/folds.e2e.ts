@@ -1,8 +1,8 @@
 import { mkdirSync } from "node:fs";
 import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { type E2EBrowser, hasApp, openBrowser } from "./support/browser";
-import { signInWithCode } from "./accounts-helpers";
+import { type E2EBrowser, hasApp } from "./support/browser";
+import { openSignedInBrowser } from "./accounts-helpers";
 
 /**
  * A scan through a bistable window in the browser: the one-species cubic switch
@@ -24,10 +24,7 @@ describe.skipIf(!hasApp)("exact fold points of a scan in headless chromium", () 
   let editor: E2EBrowser;
   beforeAll(async () => {
     mkdirSync(SHOTS, { recursive: true });
-    editor = await openBrowser();
-    const { page } = await editor.page("/sign-in");
-    await signInWithCode(page, "editor@halvorsen.test");
-    await page.close();
+    editor = await openSignedInBrowser("editor@halvorsen.test");
   }, 60_000);
   afterAll(async () => {
     await editor?.close();

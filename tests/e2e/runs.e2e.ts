@@ -1,8 +1,8 @@
 import { readFileSync } from "node:fs";
 import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { type E2EBrowser, hasApp, openBrowser } from "./support/browser";
-import { resetSignInLimits, signInWithCode } from "./accounts-helpers";
+import { type E2EBrowser, hasApp } from "./support/browser";
+import { openSignedInBrowser } from "./accounts-helpers";
 
 /**
  * Runs one can keep track of, in the browser, as the demo lab's owner: a run of a network that is
@@ -24,11 +24,7 @@ describe.skipIf(!hasApp)("runs: partial results, names, filters, archive, audit"
   let networkId = "";
 
   beforeAll(async () => {
-    owner = await openBrowser();
-    await resetSignInLimits("owner@halvorsen.test");
-    const { page } = await owner.page("/sign-in");
-    await signInWithCode(page, "owner@halvorsen.test");
-    await page.close();
+    owner = await openSignedInBrowser("owner@halvorsen.test");
   }, 60_000);
   afterAll(async () => {
     await owner?.close();
