@@ -383,68 +383,38 @@ export function NetworkEditor({
         </button>
       </div>
 
-      <div className="space-y-1">
-        <label className="block space-y-1 text-sm font-medium">
-          Constant species
-          <input
-            aria-describedby="constants-hint"
-            value={constants}
-            onChange={(e) => {
-              setConstants(e.target.value);
-              setEditedAfter(failure);
-            }}
-            placeholder="A = 2, B"
-            aria-invalid={check.constants.length > 0}
-            className={`${inputCls} ${check.constants.length > 0 ? "border-danger" : ""}`}
-            data-testid="constants-input"
-          />
-        </label>
-        {/* Kept outside the label so the field's accessible name stays "Constant species". */}
-        <p id="constants-hint" className="text-xs text-muted">
-          Species held at a fixed concentration, such as a feed or a buffered cofactor: <code>A = 2, ATP</code>. Without a value the concentration stays symbolic, like a rate constant.
-        </p>
-        {check.constants.length > 0 && (
-          <ul className="text-xs text-danger" data-testid="constants-problems">
-            {check.constants.map((p, i) => (
-              <li key={i}>
-                {p.message}
-                {p.expected ? ` — expected ${p.expected}` : ""}
-              </li>
-            ))}
-          </ul>
-        )}
-      </div>
-
-      <div className="space-y-1">
-        <label className="block space-y-1 text-sm font-medium">
-          Initial concentrations
-          <input
-            aria-describedby="initial-hint"
-            value={initial}
-            onChange={(e) => {
-              setInitial(e.target.value);
-              setEditedAfter(failure);
-            }}
-            placeholder="S = 10, E = 1, C = 0"
-            aria-invalid={check.initial.length > 0}
-            className={`${inputCls} ${check.initial.length > 0 ? "border-danger" : ""}`}
-            data-testid="initial-input"
-          />
-        </label>
-        <p id="initial-hint" className="text-xs text-muted">
-          Stored with the version as a <code># initial: S = 10, E = 1</code> line: the starting point that analyses and time courses offer (you can still change it there). Values ≥ 0, decimals or fractions; held species take their value from the field above.
-        </p>
-        {check.initial.length > 0 && (
-          <ul className="text-xs text-danger" data-testid="initial-problems">
-            {check.initial.map((p, i) => (
-              <li key={i}>
-                {p.message}
-                {p.expected ? ` — expected ${p.expected}` : ""}
-              </li>
-            ))}
-          </ul>
-        )}
-      </div>
+      <DirectiveField
+        id="constants"
+        label="Constant species"
+        value={constants}
+        onChange={(v) => {
+          setConstants(v);
+          setEditedAfter(failure);
+        }}
+        placeholder="A = 2, B"
+        problems={check.constants}
+        hint={
+          <>
+            Species held at a fixed concentration, such as a feed or a buffered cofactor: <code>A = 2, ATP</code>. Without a value the concentration stays symbolic, like a rate constant.
+          </>
+        }
+      />
+      <DirectiveField
+        id="initial"
+        label="Initial concentrations"
+        value={initial}
+        onChange={(v) => {
+          setInitial(v);
+          setEditedAfter(failure);
+        }}
+        placeholder="S = 10, E = 1, C = 0"
+        problems={check.initial}
+        hint={
+          <>
+            Stored with the version as a <code># initial: S = 10, E = 1</code> line: the starting point that analyses and time courses offer (you can still change it there). Values ≥ 0, decimals or fractions; held species take their value from the field above.
+          </>
+        }
+      />
 
       <input type="hidden" name="csv" value={check.csv} />
       <div className="flex flex-wrap items-end gap-4 border-t border-line pt-4">
@@ -457,5 +427,49 @@ export function NetworkEditor({
         </button>
       </div>
     </Form>
+  );
+}
+
+/**
+ * One `# constant:` / `# initial:` line of the file as a text field, with its hint and located
+ * problems. The hint sits outside the label so the field's accessible name stays the label.
+ */
+function DirectiveField({ id, label, value, onChange, placeholder, problems, hint }: {
+  id: "constants" | "initial";
+  label: string;
+  value: string;
+  onChange: (value: string) => void;
+  placeholder: string;
+  problems: readonly NetworkFileProblem[];
+  hint: React.ReactNode;
+}) {
+  return (
+    <div className="space-y-1">
+      <label className="block space-y-1 text-sm font-medium">
+        {label}
+        <input
+          aria-describedby={`${id}-hint`}
+          value={value}
+          onChange={(e) => onChange(e.target.value)}
+          placeholder={placeholder}
+          aria-invalid={problems.length > 0}
+          className={`${inputCls} ${problems.length > 0 ? "border-danger" : ""}`}
+          data-testid={`${id}-input`}
+        />
+      </label>
+      <p id={`${id}-hint`} className="text-xs text-muted">
+        {hint}
+      </p>
+      {problems.length > 0 && (
+        <ul className="text-xs text-danger" data-testid={`${id}-problems`}>
+          {problems.map((p, i) => (
+            <li key={i}>
+              {p.message}
+              {p.expected ? ` — expected ${p.expected}` : ""}
+            </li>
+          ))}
+        </ul>
+      )}
+    </div>
   );
 }
