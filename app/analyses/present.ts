@@ -13,8 +13,11 @@ export interface ParametrisationRow {
   tex: string;
   dependsOn: string[];
   degree: number;
-  /** Every coefficient of numerator and denominator is positive (no minus sign in the expanded form). */
-  positive: boolean;
+  /**
+   * Numerator and denominator each of one sign, as the engine decided it on the exact expression;
+   * null for results stored before the engine reported it per species (not guessed from the text).
+   */
+  positive: boolean | null;
 }
 
 export interface ResultView {
@@ -64,7 +67,7 @@ export function presentResult(r: AnalysisResult, params: Pick<AnalysisParams, "i
             tex: `${toTex(species)} = ${toTex(expression)}`,
             dependsOn: namesIn(expression),
             degree: degreeIn(expression, free),
-            positive: !expression.includes("-"),
+            positive: r.parametrisation?.positiveSpecies ? r.parametrisation.positiveSpecies.includes(species) : null,
           })),
         }
       : null,

@@ -25,9 +25,13 @@ type AddedLater =
   | "deficiencyZeroTheorem"
   | "deficiencyOneTheorem";
 
-export type AnalysisResult = Omit<AnalysisResultJson, AddedLater | "steadyStates"> &
+type Parametrisation = NonNullable<AnalysisResultJson["parametrisation"]>;
+
+export type AnalysisResult = Omit<AnalysisResultJson, AddedLater | "steadyStates" | "parametrisation"> &
   Partial<Pick<AnalysisResultJson, AddedLater>> & {
     steadyStates: StoredSteadyState[] | null;
+    /** `positiveSpecies` came later: absent in older results. */
+    parametrisation: (Omit<Parametrisation, "positiveSpecies"> & Partial<Pick<Parametrisation, "positiveSpecies">>) | null;
     /** Added by the worker beside the analysis object; absent in older results. */
     multistationarity?: MultistationarityJson;
   };

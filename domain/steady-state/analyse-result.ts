@@ -12,7 +12,7 @@ import type { NumericSteadyState } from "./numeric-steady-states";
 import type { defaultOrder } from "./order";
 import type { computeParametrisation } from "./parametrisation";
 import { primitive, signPattern } from "../algebra/poly-tools";
-import { formatExpression } from "./rational-expression";
+import { formatExpression, isPositiveExpression } from "./rational-expression";
 import type { RelationResult } from "./relation";
 import type { steadyStateSystem } from "./system";
 import { genericConditions, triangularForm } from "./triangular";
@@ -97,6 +97,7 @@ export function assemble(x: Parts): SteadyStateAnalysis {
           free: [...param.parametrisation.free],
           expressions: Object.fromEntries(param.parametrisation.expressions.map((e) => [e.species, formatExpression(e.expression, param.pivots)])),
           positive: param.parametrisation.positive,
+          positiveSpecies: param.parametrisation.expressions.filter((e) => isPositiveExpression(e.expression)).map((e) => e.species),
         }
       : null,
     rootsNeeded: param ? param.rootsNeeded.map((r) => ({ species: r.species, polynomial: fmt(r.polynomial), degree: r.degree })) : [],

@@ -65,7 +65,13 @@ export interface SteadyStateAnalysis {
   readonly ordering: string;
   readonly genericConditions: string[];
   readonly triangularForm: { readonly species: string | null; readonly polynomials: string[] }[];
-  readonly parametrisation: { readonly free: string[]; readonly expressions: Record<string, string>; readonly positive: boolean } | null;
+  readonly parametrisation: {
+    readonly free: string[];
+    readonly expressions: Record<string, string>;
+    readonly positive: boolean;
+    /** The species whose expression has numerator and denominator of one sign each (positive for positive inputs). */
+    readonly positiveSpecies: string[];
+  } | null;
   readonly rootsNeeded: { readonly species: string; readonly polynomial: string; readonly degree: number }[];
   readonly nonVanishing: string[];
   readonly acr: AcrSpecies[];

@@ -47,7 +47,7 @@ const columns = column.columns([
   }),
   column.accessor((r) => r.dependsOn.join(", "), { id: "dependsOn", header: "Depends on", filterFn: "dependsOnIncludes", sortFn: "alphanumeric", cell: (i) => <span className="font-mono text-xs">{i.getValue()}</span> }),
   column.accessor("degree", { header: "Degree", sortFn: "basic", cell: (i) => <span className="tabular-nums">{i.getValue()}</span> }),
-  column.accessor((r) => (r.positive ? "yes" : "no"), { id: "positive", header: "Positive", sortFn: "alphanumeric", filterFn: "equals" }),
+  column.accessor((r) => (r.positive === null ? "not recorded" : r.positive ? "yes" : "no"), { id: "positive", header: "Positive", sortFn: "alphanumeric", filterFn: "equals" }),
 ]);
 
 /** The parametrisation, one row per dependent species; sortable by every column but the formula, filterable. */

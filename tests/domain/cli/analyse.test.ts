@@ -41,7 +41,7 @@ describe("cli analyse --json", () => {
     const csv = "reaction,rate\nA + B -> 2B,k1\nB -> A,k2\n";
     const r = await cli(["analyse", "n.csv", "--json", "--order", "A,B"], { "n.csv": csv });
     const j = JSON.parse(r.out);
-    expect(j.parametrisation).toEqual({ free: ["B"], expressions: { A: "k2/k1" }, positive: true });
+    expect(j.parametrisation).toEqual({ free: ["B"], expressions: { A: "k2/k1" }, positive: true, positiveSpecies: ["A"] });
     expect(j.acr).toEqual([{ species: "A", value: "k2/k1" }]);
     expect(j.order.species).toEqual(["A", "B"]);
     // The parametrisation answers, so the full basis is computed only on request.

@@ -36,6 +36,6 @@ describe("partial results as stages finish (onPartial)", () => {
     expect(partials[0]!.parametrisation).toBeNull();
     expect(partials[0]!.unfinished).toEqual([{ stage: "parametrisation", reason: NOT_REACHED }]);
     expect(partials[0]!.odes).toEqual(done.odes);
-    expect(done.parametrisation).toEqual({ free: ["B"], expressions: { A: "B*k2/k1" }, positive: true });
+    expect(done.parametrisation).toEqual({ free: ["B"], expressions: { A: "B*k2/k1" }, positive: true, positiveSpecies: ["A"] });
   });
 });

@@ -1,0 +1,26 @@
+import { describe, expect, it } from "vitest";
+import { parseNetworkCsv } from "@domain/network/index";
+import { analyseNetwork } from "@domain/steady-state/index";
+import { analysisResultJson } from "@domain/steady-state/result";
+import { presentResult } from "~/analyses/present";
+import type { AnalysisResult } from "~/analyses/result-types";
+
+/**
+ * Positivity of each parametrisation row comes from the engine's decision on the exact rational
+ * expression (one sign in numerator and denominator), never from the printed text.
+ */
+describe("presentResult: positivity per species", () => {
+  it("marks each species as the engine decided it; older stored results say 'not recorded'", () => {
+    // A <-> B with k1, k2: B = k1*A/k2 in the free species A, positive (Horn and Jackson 1972: a
+    // deficiency-zero, weakly reversible network has one positive steady state per class).
+    const r = analysisResultJson(analyseNetwork(parseNetworkCsv("reaction,rate,reverse_rate\nA <-> B,k1,k2\n"), { skipFullBasis: true }));
+    expect(r.parametrisation?.positiveSpecies).toEqual(Object.keys(r.parametrisation!.expressions));
+    const fresh = presentResult(r as unknown as AnalysisResult, { initial: null });
+    expect(fresh.parametrisation!.rows.every((row) => row.positive === true)).toBe(true);
+    // A stored row whose text has a minus sign but which the engine found positive stays positive.
+    const stored = { ...r, parametrisation: { ...r.parametrisation!, expressions: { B: "(-k1*A)/(-k2)" }, positiveSpecies: ["B"] } };
+    expect(presentResult(stored as unknown as AnalysisResult, { initial: null }).parametrisation!.rows[0]!.positive).toBe(true);
+    const old = { ...r, parametrisation: { free: r.parametrisation!.free, expressions: r.parametrisation!.expressions, positive: true } };
+    expect(presentResult(old as unknown as AnalysisResult, { initial: null }).parametrisation!.rows[0]!.positive).toBeNull();
+  });
+});
