@@ -22,6 +22,7 @@ import { buildApp, buildIsStale, startAppServer, startWorkerIfPresent } from "..
 import { migrate } from "../scripts/migrate";
 import { seed } from "../scripts/seed";
 import { DEMO_LAB } from "../seeds/demo-data";
+import type { PoolStats } from "../app/db.server";
 import { closedLoop, makeTarget, send, type RouteSummary, type Step, summarise } from "./lib/load-generator";
 
 interface LoadOptions {
@@ -232,14 +233,8 @@ async function cancelAll(control: ReturnType<typeof makeTarget>, lab: string, co
   }
 }
 
-interface PoolCounters {
-  max: number;
-  acquisitions: number;
-  queued: number;
-  queuedMsTotal: number;
-  maxWaitMs: number;
-  failed: number;
-}
+/** The pool counters /api/health reports with DB_POOL_STATS=1 (the server's own type). */
+type PoolCounters = PoolStats;
 type PoolDelta = PoolCounters;
 
 async function poolCounters(control: ReturnType<typeof makeTarget>): Promise<PoolCounters> {

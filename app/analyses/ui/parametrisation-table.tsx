@@ -14,6 +14,7 @@ import {
 } from "@tanstack/react-table";
 import type { ParametrisationRow } from "~/analyses/present";
 import { Tex } from "./tex";
+import { SortableHeader } from "./sortable-header";
 
 const dependsOnIncludes: FilterFn<any, ParametrisationRow> = (row, _id, value: string) => {
   const needle = value.trim();
@@ -83,23 +84,11 @@ export function ParametrisationTable({ rows }: { rows: ParametrisationRow[] }) {
           <thead className="border-b border-line bg-sunken text-xs uppercase tracking-wide text-muted">
             {table.getHeaderGroups().map((g) => (
               <tr key={g.id}>
-                {g.headers.map((h) => {
-                  const sorted = h.column.getIsSorted();
-                  return (
-                    <th key={h.id} className="px-3 py-2 font-medium" aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : "none"}>
-                      {h.column.getCanSort() ? (
-                        <button type="button" className="inline-flex items-center gap-1 uppercase hover:text-ink" onClick={h.column.getToggleSortingHandler()}>
-                          <table.FlexRender header={h} />
-                          <span aria-hidden="true" className="w-3 text-accent">
-                            {sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : ""}
-                          </span>
-                        </button>
-                      ) : (
-                        <table.FlexRender header={h} />
-                      )}
-                    </th>
-                  );
-                })}
+                {g.headers.map((h) => (
+                  <SortableHeader key={h.id} header={h} className="px-3 py-2 font-medium" buttonClassName="uppercase">
+                    <table.FlexRender header={h} />
+                  </SortableHeader>
+                ))}
               </tr>
             ))}
           </thead>

@@ -1,6 +1,7 @@
 import { useMemo } from "react";
 import { createColumnHelper, createSortedRowModel, rowSortingFeature, sortFn_alphanumeric, sortFn_basic, tableFeatures, useTable } from "@tanstack/react-table";
 import type { ResultView } from "~/analyses/present";
+import { SortableHeader } from "./sortable-header";
 
 type State = NonNullable<ResultView["steadyStates"]>[number];
 
@@ -44,22 +45,12 @@ export function SteadyStatesTable({ states, species }: { states: State[]; specie
           {table.getHeaderGroups().map((g) => (
             <tr key={g.id}>
               {g.headers.map((h) => {
-                const sorted = h.column.getIsSorted();
                 // Species names keep their case (they are identifiers, not labels).
                 const isSpecies = h.column.id.startsWith("conc-");
                 return (
-                  <th key={h.id} className={`px-3 py-2 ${isSpecies ? "font-mono normal-case" : ""}`} aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : "none"}>
-                    {h.column.getCanSort() ? (
-                      <button type="button" className={`inline-flex items-center gap-1 hover:text-ink ${isSpecies ? "" : "uppercase"}`} onClick={h.column.getToggleSortingHandler()} data-testid={`sort-${h.column.id}`}>
-                        <table.FlexRender header={h} />
-                        <span aria-hidden="true" className="w-3 text-accent">
-                          {sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : ""}
-                        </span>
-                      </button>
-                    ) : (
-                      <table.FlexRender header={h} />
-                    )}
-                  </th>
+                  <SortableHeader key={h.id} header={h} className={`px-3 py-2 ${isSpecies ? "font-mono normal-case" : ""}`} buttonClassName={isSpecies ? "" : "uppercase"} testId={`sort-${h.column.id}`}>
+                    <table.FlexRender header={h} />
+                  </SortableHeader>
                 );
               })}
             </tr>
