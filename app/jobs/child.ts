@@ -4,6 +4,7 @@
  * separate process is what lets the worker stop it hard (time limit, cancel) even inside a long
  * Gröbner step, and a crash here cannot take the worker down.
  */
+import { jobErrorText } from "~/analyses/input-problems";
 import { computeJob, type JobPayload } from "./compute";
 
 export type ChildMessage =
@@ -31,6 +32,6 @@ process.once("message", (raw) => {
     finish({ type: "result", result });
   } catch (e) {
     const err = e as Error & { code?: string };
-    finish({ type: "error", message: err.message ?? String(e), code: typeof err.code === "string" ? err.code : undefined });
+    finish({ type: "error", message: jobErrorText(e), code: typeof err.code === "string" ? err.code : undefined });
   }
 });

@@ -11,6 +11,7 @@ import { foldScan } from "@domain/steady-state/folds";
 import { multistationarity } from "@domain/steady-state/multistationarity";
 import { testRelationOnNetwork } from "@domain/steady-state/relation";
 import { analysisResultJson, multistationarityJson, type MultistationarityJson } from "@domain/steady-state/result";
+import { jobErrorText } from "~/analyses/input-problems";
 import { suggestedOrder } from "~/analyses/suggested-order";
 import type { AnalysisParams, RelationParams, ScanParams, TimeCourseParams } from "~/analyses/params";
 import type { ExactScan, FreshAnalysisResult } from "~/analyses/result-types";
@@ -167,7 +168,7 @@ function computeScan(payload: Extract<JobPayload, { kind: "scan" }>, options: Co
     });
     exact = { folds: f.folds, windows: f.windows, curve: f.points, eliminant: f.eliminant, assumptions: f.assumptions, warnings: f.warnings };
   } catch (e) {
-    exactNote = `Exact fold points not computed: ${(e as Error).message}`;
+    exactNote = `Exact fold points not computed: ${jobErrorText(e)}`;
   }
   const points: ScanPoint[] = [];
   let species: readonly string[] = [];
@@ -198,7 +199,7 @@ function computeScan(payload: Extract<JobPayload, { kind: "scan" }>, options: Co
         ...(complete ? {} : { note: r.steadyStateSet === "continuum" ? "a continuum of steady states" : "not finished" }),
       });
     } catch (e) {
-      points.push({ value, states: null, note: (e as Error).message });
+      points.push({ value, states: null, note: jobErrorText(e) });
     }
   });
   return { parameter: params.parameter, spacing: params.spacing, species: [...species], points, exact, exactNote };

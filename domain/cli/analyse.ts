@@ -1,9 +1,8 @@
-import { AlgebraError } from "../algebra/index";
 import { parseRational, sign, type Rational } from "../algebra/rational";
-import { NetworkFileError } from "../network/index";
-import { analyseNetwork, SteadyStateInputError, type SteadyStateAnalysis } from "../steady-state/index";
+import { analyseNetwork, type SteadyStateAnalysis } from "../steady-state/index";
 import { analysisResultJson } from "../steady-state/result";
 import type { CliIO, CommandModule } from "./io";
+import { cliInputError } from "./input-errors";
 import { CliError, parseArgs } from "./io";
 import { formatInitial, readNetworkFile } from "./network-input";
 
@@ -124,8 +123,7 @@ export function run(args: readonly string[], io: CliIO): number {
     if (!initial && start) io.stderr(`note: initial concentrations from the file: ${formatInitial(start)}\n`);
     result = analyseNetwork(doc.network, { order, initial: start, relations, timeoutMs: timeout * 1000, fullBasis });
   } catch (e) {
-    if (e instanceof NetworkFileError || e instanceof SteadyStateInputError || e instanceof AlgebraError) throw new CliError(e.message);
-    throw e;
+    throw cliInputError(e) ?? e;
   }
   io.stdout(json ? JSON.stringify(analysisResultJson(result), null, 2) + "\n" : toReport(result));
   return 0;

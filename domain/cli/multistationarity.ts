@@ -1,9 +1,8 @@
-import { AlgebraError } from "../algebra/index";
-import { NetworkFileError, parseNetworkCsv } from "../network/index";
+import { parseNetworkCsv } from "../network/index";
 import { multistationarity, type MultistationarityResult } from "../steady-state/multistationarity";
-import { SteadyStateInputError } from "../steady-state/index";
 import { multistationarityJson } from "../steady-state/result";
 import type { CliIO, CommandModule } from "./io";
+import { cliInputError } from "./input-errors";
 import { CliError, parseArgs, readInput } from "./io";
 
 const USAGE = "usage: multistationarity NETWORK.csv [--timeout SECONDS] [--json]";
@@ -32,8 +31,7 @@ export function run(args: readonly string[], io: CliIO): number {
   try {
     result = multistationarity(parseNetworkCsv(readInput(io, positionals[0])), { timeoutMs: timeout * 1000 });
   } catch (e) {
-    if (e instanceof NetworkFileError || e instanceof SteadyStateInputError || e instanceof AlgebraError) throw new CliError(e.message);
-    throw e;
+    throw cliInputError(e) ?? e;
   }
   io.stdout(json ? JSON.stringify(multistationarityJson(result), null, 2) + "\n" : report(result));
   return 0;

@@ -1,10 +1,9 @@
-import { AlgebraError } from "../algebra/index";
 import { parseRational, sign } from "../algebra/rational";
-import { NetworkFileError, parseNetworkCsv } from "../network/index";
+import { parseNetworkCsv } from "../network/index";
 import { foldScan, type FoldScan } from "../steady-state/folds";
-import { SteadyStateInputError } from "../steady-state/index";
 import { parseInitial } from "./analyse";
 import type { CliIO, CommandModule } from "./io";
+import { cliInputError } from "./input-errors";
 import { CliError, parseArgs, readInput } from "./io";
 
 const USAGE = "usage: scan NETWORK.csv --vary NAME --from A --to B [--initial S=1,E=0.1] [--points N] [--timeout SECONDS] [--json]";
@@ -56,8 +55,7 @@ export function run(args: readonly string[], io: CliIO): number {
     const network = parseNetworkCsv(readInput(io, positionals[0]));
     result = foldScan(network, { parameter: flags.get("vary")!, from, to, initial, points, timeoutMs: timeout * 1000 });
   } catch (e) {
-    if (e instanceof NetworkFileError || e instanceof SteadyStateInputError || e instanceof AlgebraError) throw new CliError(e.message);
-    throw e;
+    throw cliInputError(e) ?? e;
   }
   io.stdout(json ? JSON.stringify(scanToJson(result), null, 2) + "\n" : report(result));
   return 0;

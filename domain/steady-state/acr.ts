@@ -3,12 +3,24 @@ import { mapToRing, monomialOf, saturate } from "./ideal";
 import type { KineticsRing, QPoly } from "./kinetics";
 import type { ParametrisationResult } from "./parametrisation";
 import { coefficientsIn, degreeIn, variablesOf } from "../algebra/poly-tools";
-import { formatExpression, simplifyFraction } from "./rational-expression";
+import { formatExpression, simplifyFraction, type RationalExpression } from "./rational-expression";
 
 export interface AcrSpecies {
   readonly species: string;
   /** Its common value at every positive steady state, in the rate constants (text). */
   readonly value: string;
+}
+
+/** An ACR species with its value as an exact expression, and the factors to write it with (the pivots). */
+export interface AcrFinding {
+  readonly species: string;
+  readonly value: RationalExpression;
+  readonly factors: readonly QPoly[];
+}
+
+/** The finding as the result reports it: the value as text. */
+export function acrText(f: AcrFinding): AcrSpecies {
+  return { species: f.species, value: formatExpression(f.value, f.factors) };
 }
 
 /**
@@ -19,12 +31,12 @@ export interface AcrSpecies {
  * then holds `species − value(rate constants)` after clearing the denominator.
  * Example: A + B -> 2B (k1), B -> A (k2) has ACR in A with value k2/k1.
  */
-export function acrSpecies(kin: KineticsRing, param: ParametrisationResult): AcrSpecies[] {
+export function acrSpecies(kin: KineticsRing, param: ParametrisationResult): AcrFinding[] {
   if (param.infeasible) return [];
   const isSpecies = (k: number) => k < kin.species.length;
   return param.eliminated
     .filter((e) => ![...variablesOf(e.expression.num), ...variablesOf(e.expression.den)].some(isSpecies))
-    .map((e) => ({ species: e.species, value: formatExpression(e.expression, param.pivots) }))
+    .map((e) => ({ species: e.species, value: e.expression, factors: param.pivots }))
     .sort((a, b) => kin.species.indexOf(a.species) - kin.species.indexOf(b.species));
 }
 
@@ -35,7 +47,7 @@ export function acrSpecies(kin: KineticsRing, param: ParametrisationResult): Acr
  * x = b/a for generic parameters (elimination theorem, Cox, Little & O'Shea ch. 3 §1; Shinar & Feinberg 2010).
  * Example: for A + B -> 2B (k1), B -> A (k2) and x = A it finds k1*A − k2.
  */
-export function acrByGroebner(kin: KineticsRing, odeRows: readonly QPoly[], species: string, options: GroebnerOptions): AcrSpecies | null {
+export function acrByGroebner(kin: KineticsRing, odeRows: readonly QPoly[], species: string, options: GroebnerOptions): AcrFinding | null {
   const ns = kin.species.length;
   const others = kin.species.filter((s) => s !== species);
   const params = kin.ring.vars.slice(ns);
@@ -54,8 +66,7 @@ export function acrByGroebner(kin: KineticsRing, odeRows: readonly QPoly[], spec
     const vars = [...variablesOf(g)].filter((k) => k < ns);
     if (vars.length !== 1 || vars[0] !== x || degreeIn(g, x) !== 1) continue;
     const [b, a] = coefficientsIn(g, x);
-    const value = simplifyFraction(neg(b), a);
-    return { species, value: formatExpression(value) };
+    return { species, value: simplifyFraction(neg(b), a), factors: [] };
   }
   return null;
 }

@@ -2,49 +2,36 @@
  * The analysis result object, assembled from what the stages of analyseNetwork produced so far:
  * the final result once every stage has run, or a partial one (AnalyseOptions.onPartial).
  */
-import type { Network, NetworkStructure } from "../network/index";
-import type { AcrSpecies } from "./acr";
+import type { Network } from "../network/index";
+import { acrText } from "./acr";
 import type { AnalyseOptions, SteadyStateAnalysis, UnfinishedStage } from "./analyse";
 import { consistencyProblems } from "./consistency";
-import type { QPoly } from "./kinetics";
-import type { kineticsRing } from "./kinetics";
 import type { NumericSteadyState } from "./numeric-steady-states";
-import type { defaultOrder } from "./order";
 import type { computeParametrisation } from "./parametrisation";
 import { primitive, signPattern } from "../algebra/poly-tools";
 import { formatExpression, isPositiveExpression } from "./rational-expression";
-import type { RelationResult } from "./relation";
-import type { steadyStateSystem } from "./system";
+import type { ParametrisationPart } from "./stages/parametrisation";
+import type { RelationsPart } from "./stages/relations";
+import type { RobustnessPart } from "./stages/robustness";
+import type { SteadyStatesPart } from "./stages/steady-states";
+import type { StructurePart } from "./stages/structure";
+import type { SystemPart } from "./stages/system";
+import type { TriangularPart } from "./stages/triangular";
 import { genericConditions, triangularForm } from "./triangular";
 
-export interface Parts {
-  network: Network;
-  options: AnalyseOptions;
-  structure: NetworkStructure;
-  species: string[];
-  suggested: ReturnType<typeof defaultOrder>;
-  kin: ReturnType<typeof kineticsRing>;
-  kinT: ReturnType<typeof kineticsRing>;
-  noTotals: ReturnType<typeof steadyStateSystem>;
-  withTotals: ReturnType<typeof steadyStateSystem>;
-  laws: bigint[][];
-  numericRates: boolean;
-  classGiven: boolean;
-  basis: QPoly[] | null;
-  basisStatus: SteadyStateAnalysis["groebnerBasisStatus"];
-  param: ReturnType<typeof computeParametrisation> | null;
-  wholeRing: boolean;
-  acr: AcrSpecies[];
-  relations: RelationResult[];
-  steadyStates: NumericSteadyState[] | null;
-  steadyStatesReason: string | null;
-  eliminant: SteadyStateAnalysis["eliminant"];
-  steadyStateSet: SteadyStateAnalysis["steadyStateSet"];
-  zeroDimensionalBasis: boolean;
-  positivePoint: Record<string, number> | null;
-  unfinished: UnfinishedStage[];
-  warnings: string[];
-}
+/** Every stage's part (stages/), with the options and what the stages reported so far. */
+export type Parts = StructurePart &
+  SystemPart &
+  ParametrisationPart &
+  TriangularPart &
+  SteadyStatesPart &
+  RobustnessPart &
+  RelationsPart & {
+    network: Network;
+    options: AnalyseOptions;
+    unfinished: UnfinishedStage[];
+    warnings: string[];
+  };
 
 /** The result object from what the stages produced so far (the whole result once every stage has run). */
 export function assemble(x: Parts): SteadyStateAnalysis {
@@ -102,7 +89,7 @@ export function assemble(x: Parts): SteadyStateAnalysis {
       : null,
     rootsNeeded: param ? param.rootsNeeded.map((r) => ({ species: r.species, polynomial: fmt(r.polynomial), degree: r.degree })) : [],
     nonVanishing,
-    acr: [...x.acr],
+    acr: x.acr.map(acrText),
     relations: [...x.relations],
     steadyStates: x.steadyStates,
     steadyStatesReason: x.steadyStatesReason,

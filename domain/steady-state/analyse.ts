@@ -1,19 +1,18 @@
-import { AlgebraError } from "../algebra/index";
 import type { Rational } from "../algebra/index";
-import { analyseStructure, type NetworkStructure } from "../network/index";
-import type { Network } from "../network/index";
-import { acrByGroebner, acrSpecies, type AcrSpecies } from "./acr";
-import { Budget, type BudgetOptions, isOutOfBudget } from "./budget";
-import { monomialOf, saturate } from "./ideal";
-import { kineticsRing, type QPoly } from "./kinetics";
-import { numericSteadyStates, steadyStatesFromBasis, type NumericSteadyState } from "./numeric-steady-states";
-import { defaultOrder, resolveOrder, SteadyStateInputError } from "./order";
-import { computeParametrisation } from "./parametrisation";
-import { testRelation, type RelationResult } from "./relation";
-import { steadyStateSystem, totalsFromInitial } from "./system";
-import { genericConditions, leadingSpecies } from "./triangular";
+import type { Network, NetworkStructure } from "../network/index";
+import type { AcrSpecies } from "./acr";
 import { assemble } from "./analyse-result";
-import { signPattern, isNonZeroConstant } from "../algebra/poly-tools";
+import { Budget, type BudgetOptions } from "./budget";
+import type { NumericSteadyState } from "./numeric-steady-states";
+import type { RelationResult } from "./relation";
+import { parametrisationStage, type ParametrisationPart } from "./stages/parametrisation";
+import { relationsStage, type RelationsPart } from "./stages/relations";
+import { robustnessNeedsBases, robustnessStage, type RobustnessPart } from "./stages/robustness";
+import type { StageReport } from "./stages/stage";
+import { steadyStatesStage, type SteadyStatesPart } from "./stages/steady-states";
+import { structureStage } from "./stages/structure";
+import { systemStage } from "./stages/system";
+import { triangularStage, wantsFullBasis, type TriangularPart } from "./stages/triangular";
 
 export interface AnalyseOptions extends BudgetOptions {
   /** Elimination order: species eliminated first … species kept free last (partial lists allowed). */
@@ -113,6 +112,9 @@ export interface SteadyStateAnalysis {
  * triangular form; ACR species (Shinar & Feinberg 2010); relation tests; and, with initial
  * concentrations, every positive steady state of the class with its stability.
  * Phases that run out of time or size become warnings; cancellation (AbortSignal) throws.
+ * The stages are in stages/ (structure, steady-state system, parametrisation, triangular form,
+ * steady states, robustness, relations), each returning its typed part with its warnings and
+ * unfinished phases; this function runs them in order and sends the partial results between them.
  *
  * Example: analyseNetwork(parseNetworkCsv("reaction,rate,reverse_rate\nA <-> B,k1,k2\n")).parametrisation
  * is { free: ["B"], expressions: { A: "B*k2/k1" }, positive: true }.
@@ -121,210 +123,63 @@ export function analyseNetwork(network: Network, options: AnalyseOptions = {}): 
   const budget = new Budget(options);
   const warnings: string[] = [];
   const unfinished: UnfinishedStage[] = [];
-  const ranOut = (stage: UnfinishedStage["stage"], e: unknown) => unfinished.push({ stage, reason: (e as Error).message });
+  const take = <T extends StageReport>(r: T): T => {
+    warnings.push(...r.warnings);
+    unfinished.push(...r.unfinished);
+    return r;
+  };
 
-  // Stage: structure and the steady-state system without totals.
   budget.progress("structure", "structure of the network");
-  const structure = analyseStructure(network);
-  warnings.push(...structure.warnings);
-  const suggested = defaultOrder(network, structure.conservationLaws);
-  const species = options.order ? resolveOrder(options.order, suggested.order) : suggested.order;
-  if (options.initial)
-    for (const s of options.initial.keys())
-      if (!network.species.includes(s)) throw new SteadyStateInputError(`--initial: '${s}' is not a species of the network (species: ${network.species.join(", ")})`);
-  const laws = structure.conservationLaws.map((law) => network.species.map((s) => BigInt(law[s] ?? 0)));
-  const kin = kineticsRing(network, { speciesOrder: species });
-  const noTotals = steadyStateSystem(network, kin, laws, null);
-  const odeRows = noTotals.keptRows.map((i) => noTotals.odes[i]);
-  const fmt = (p: Parameters<typeof kin.ring.format>[0]) => kin.ring.format(p);
-  warnings.push(
-    "Only positive steady states are analysed: the steady-state ideal is saturated by the product of the species, which removes every solution with a zero concentration.",
-  );
+  const structure = take(structureStage(network, options));
+  const system = take(systemStage(network, options, structure));
 
-  // The class: fixed by the initial concentrations, or the whole space when nothing is conserved
-  // (an open network's steady states do not depend on where it starts).
-  const numericRates = kin.rateParameters.length === 0;
-  const totals = options.initial ? totalsFromInitial(laws, network.species, options.initial) : laws.length === 0 ? [] : null;
-  const classGiven = totals !== null;
-  const numericClass = classGiven && numericRates;
-  const kinT = totals ? kin : kineticsRing(network, { speciesOrder: species, totalCount: laws.length });
-  const withTotals = steadyStateSystem(network, kinT, laws, totals);
+  // What the later stages produce, empty until they ran, so a partial result can be assembled after any of them.
+  let param: ParametrisationPart = { param: null };
+  let triangular: TriangularPart = { basis: null, basisStatus: "skipped", wholeRing: false };
+  let states: SteadyStatesPart = { steadyStates: null, steadyStatesReason: null, eliminant: null, steadyStateSet: null, zeroDimensionalBasis: false, positivePoint: null };
+  let robust: RobustnessPart = { acr: [] };
+  let related: RelationsPart = { relations: [] };
 
-  // What the stages produce, declared up front so a partial result can be assembled after any of them.
-  let basis: QPoly[] | null = null;
-  let basisStatus: SteadyStateAnalysis["groebnerBasisStatus"] = "skipped";
-  let wholeRing = false;
-  let steadyStates: NumericSteadyState[] | null = null;
-  let steadyStatesReason: string | null = null;
-  let eliminant: SteadyStateAnalysis["eliminant"] = null;
-  let steadyStateSet: SteadyStateAnalysis["steadyStateSet"] = null;
-  let zeroDimensionalBasis = false;
-  let positivePoint: Record<string, number> | null = null;
-  let acr: AcrSpecies[] = [];
-  const relations: RelationResult[] = [];
-  let param: ReturnType<typeof computeParametrisation> | null = null;
-  // The stages still to run, for partial results.
-  // Before the parametrisation only the stages that surely follow are known; the plan is settled after it.
-  let plan: AnalysisStage[] = [
-    "parametrisation",
-    ...(numericRates && classGiven ? (["steady-states"] as const) : []),
-    ...((options.relations ?? []).length > 0 ? (["relations"] as const) : []),
-  ];
-  const planAfterParametrisation = (wantBasis: boolean): AnalysisStage[] => [
-    ...(withTotals.equations.length > 0 && wantBasis ? (["groebner"] as const) : []),
-    ...(numericRates && classGiven && !param?.infeasible ? (["steady-states"] as const) : []),
-    ...(param && param.complete && !param.parametrisation && !param.infeasible && param.unknowns.length > 0 ? (["acr"] as const) : []),
-    ...((options.relations ?? []).length > 0 ? (["relations"] as const) : []),
-  ];
-  const snapshot = (done: AnalysisStage | null): SteadyStateAnalysis => {
-    const pending = done === null ? plan : plan.slice(plan.indexOf(done) + 1);
-    return assemble({
-      network, options, structure, species, suggested, kin, kinT, noTotals, withTotals, laws, numericRates, classGiven, basis, basisStatus, param,
-      wholeRing, acr, relations, steadyStates, steadyStatesReason, eliminant, steadyStateSet, zeroDimensionalBasis, positivePoint,
-      unfinished: [...unfinished, ...pending.filter((st) => !unfinished.some((u) => u.stage === st)).map((stage) => ({ stage, reason: NOT_REACHED }))],
+  // The stages still to run, for partial results. Before the parametrisation only the stages that
+  // surely follow are known; the plan is settled after it.
+  const relationsPlanned = (options.relations ?? []).length > 0;
+  const listsStates = system.numericRates && system.classGiven;
+  let plan: AnalysisStage[] = ["parametrisation", ...(listsStates ? (["steady-states"] as const) : []), ...(relationsPlanned ? (["relations"] as const) : [])];
+  const assembleNow = (extraUnfinished: UnfinishedStage[]) =>
+    assemble({
+      network, options, ...structure, ...system, ...param, ...triangular, ...states, ...robust, ...related,
+      unfinished: [...unfinished, ...extraUnfinished],
       warnings: [...warnings],
     });
-  };
   const partial = (done: AnalysisStage | null) => {
     // Only while some stage is still to come: after the last one the result itself follows.
-    const left = done === null ? plan.length : plan.length - 1 - plan.indexOf(done);
-    if (options.onPartial && left > 0) options.onPartial(snapshot(done));
+    const pending = done === null ? plan : plan.slice(plan.indexOf(done) + 1);
+    if (!options.onPartial || pending.length === 0) return;
+    options.onPartial(assembleNow(pending.filter((st) => !unfinished.some((u) => u.stage === st)).map((stage) => ({ stage, reason: NOT_REACHED }))));
   };
   // The structure, ODEs and steady-state system are in: the first partial result.
   partial(null);
-  // Stage: parametrisation (no totals: one parametrisation serves every class).
-  try {
-    param = computeParametrisation(kin, odeRows, budget);
-    if (param.infeasible) warnings.push(`No positive steady state: ${param.infeasible}.`);
-    if (!param.complete) unfinished.push({ stage: "parametrisation", reason: "the lex Gröbner basis after linear elimination was not finished" });
-  } catch (e) {
-    if (!isOutOfBudget(e)) throw e;
-    ranOut("parametrisation", e);
-    warnings.push(`Parametrisation not finished: ${(e as Error).message}.`);
-  }
 
-  const wantBasis = !options.skipFullBasis && (options.fullBasis === true || numericClass || !param?.parametrisation);
-  plan = ["parametrisation", ...planAfterParametrisation(wantBasis)];
+  param = take(parametrisationStage(structure, budget));
+  const wantBasis = wantsFullBasis(options, system, param);
+  plan = [
+    "parametrisation",
+    ...(system.withTotals.equations.length > 0 && wantBasis ? (["groebner"] as const) : []),
+    ...(listsStates && !param.param?.infeasible ? (["steady-states"] as const) : []),
+    ...(robustnessNeedsBases(param) ? (["acr"] as const) : []),
+    ...(relationsPlanned ? (["relations"] as const) : []),
+  ];
   partial("parametrisation");
 
-  // Stage: full lex basis, only where it is the answer (no parametrisation), the route to a numeric
-  // class's steady states, or asked for.
-  if (withTotals.equations.length === 0) {
-    basis = [];
-    basisStatus = "complete";
-  } else if (wantBasis) {
-    try {
-      budget.progress("groebner", "lex Gröbner basis of the saturated steady-state ideal");
-      basis = saturate(withTotals.equations, monomialOf(kinT.ring, kinT.species.map((_, i) => i)), budget.groebner(0.25));
-      basisStatus = "complete";
-    } catch (e) {
-      if (!isOutOfBudget(e)) throw e;
-      basisStatus = "unfinished";
-      ranOut("groebner", e);
-      warnings.push(
-        `The lex Gröbner basis of the full steady-state system was not finished within the budget (${(e as Error).message}); ` +
-          (param?.parametrisation ? "the parametrisation from linear elimination describes the steady states instead." : "try another order or fewer symbolic constants."),
-      );
-    }
-  } else if (!options.skipFullBasis)
-    warnings.push("The full lex Gröbner basis was not computed: the parametrisation from linear elimination already describes every positive steady state (ask for the full basis to see it).");
+  triangular = take(triangularStage(options, system, param, wantBasis, budget));
   if (plan.includes("groebner")) partial("groebner");
-  const conditions = basis ? genericConditions(basis, kinT) : [];
-  if (conditions.length > 0)
-    warnings.push(`The basis holds for generic parameter values: these leading coefficients must not vanish: ${conditions.join("; ")} (one with all coefficients of one sign never vanishes for positive parameters).`);
 
-  wholeRing = basis !== null && basis.length === 1 && isNonZeroConstant(basis[0]);
-  const parameterOnly = basis && !wholeRing ? basis.filter((g) => leadingSpecies(g, kinT) === null) : [];
-  if (wholeRing) warnings.push("The saturated steady-state ideal is the whole ring (its basis is [1]): there is no positive steady state.");
-  if (parameterOnly.length > 0)
-    warnings.push(
-      `The saturated ideal contains polynomials in the parameters alone (${parameterOnly.map((g) => kinT.ring.format(g)).join("; ")}): for parameter values where they do not vanish there is no positive steady state.`,
-    );
-
-  // Stage: the positive steady states of the class.
-  if (!numericRates) {
-    const heldSymbolic = (network.constants ?? []).some((c) => kin.rateParameters.includes(c.name));
-    steadyStatesReason = `Listing steady states needs a value for every rate constant${heldSymbolic ? " and constant species" : ""}; missing: ${kin.rateParameters.join(", ")}.`;
-    if (options.initial) warnings.push(steadyStatesReason);
-  } else if (!classGiven) {
-    steadyStatesReason = `The steady states depend on the totals of the conservation laws (${structure.conservationLaws.map(lawText).join("; ")}): give the initial concentrations to fix them.`;
-  } else if (param?.infeasible || wholeRing) {
-    steadyStates = [];
-    steadyStateSet = "finite";
-  } else {
-    try {
-      let numeric: ReturnType<typeof steadyStatesFromBasis> | null = null;
-      if (basis) numeric = steadyStatesFromBasis(network, withTotals, basis, budget);
-      else if (param) {
-        // A pivot of mixed sign might vanish at a positive steady state, which the reduction would
-        // then miss: for the complete list, eliminate only through pivots of one sign.
-        const complete = param.pivots.some((p) => signPattern(p) === "mixed")
-          ? computeParametrisation(kin, odeRows, budget, { definitePivotsOnly: true })
-          : param;
-        numeric = numericSteadyStates(network, withTotals, complete, budget);
-      } else steadyStatesReason = "Not computed: neither the parametrisation nor the full basis was finished within the budget.";
-      if (numeric) {
-        zeroDimensionalBasis = basis !== null && numeric.status === "finite";
-        steadyStateSet = numeric.status === "finite" ? "finite" : "continuum";
-        steadyStates = numeric.status === "finite" ? numeric.states : null;
-        eliminant = numeric.eliminant;
-        positivePoint = numeric.positivePoint ?? null;
-        warnings.push(...numeric.warnings);
-        if (steadyStateSet === "continuum")
-          steadyStatesReason = "The class's steady states form a continuum (its saturated steady-state ideal has positive dimension): there is no finite list.";
-      }
-    } catch (e) {
-      if (!isOutOfBudget(e) && !(e instanceof AlgebraError && e.code === "domain")) throw e;
-      ranOut("steady-states", e);
-      steadyStatesReason = `Not finished: ${(e as Error).message}.`;
-      warnings.push(`Numeric steady states not finished: ${(e as Error).message}.`);
-    }
-  }
-
+  states = take(steadyStatesStage(network, options, structure, system, param, triangular, budget));
   if (plan.includes("steady-states")) partial("steady-states");
 
-  // Stage: robustness (ACR).
-  acr = param ? acrSpecies(kin, param) : [];
-  // Species the elimination left as unknowns without a parametrisation: one block-order basis each.
-  if (param && param.complete && !param.parametrisation && !param.infeasible)
-    for (const s of param.unknowns) {
-      try {
-        budget.progress("acr", `testing ${s} for absolute concentration robustness`);
-        const found = acrByGroebner(kin, odeRows, s, budget.groebner(0.2, "acr"));
-        if (found) acr.push(found);
-      } catch (e) {
-        if (!isOutOfBudget(e)) throw e;
-        ranOut("acr", e);
-        warnings.push(`ACR of ${s} not decided: ${(e as Error).message}.`);
-      }
-    }
-  acr.sort((a, b) => network.species.indexOf(a.species) - network.species.indexOf(b.species));
+  robust = take(robustnessStage(network, structure, param, budget));
   if (plan.includes("acr")) partial("acr");
 
-  // Stage: relation tests.
-  for (const text of options.relations ?? []) {
-    try {
-      budget.progress("relations", `testing ${text}`);
-      const totalNames = kineticsRing(network, { speciesOrder: species, totalCount: laws.length }).totals;
-      const relationTotals = laws.length > 0 ? { names: totalNames, laws: noTotals.conservationLaws, values: totals && totals.length > 0 ? totals : null } : undefined;
-      relations.push(testRelation(text, kin, odeRows, budget.groebner(0.5, "relations"), relationTotals));
-    } catch (e) {
-      if (e instanceof AlgebraError && e.code === "parse") throw new SteadyStateInputError(`relation '${text}': ${e.message}`);
-      if (!isOutOfBudget(e)) throw e;
-      ranOut("relations", e);
-      warnings.push(`Relation ${text} not decided: ${(e as Error).message}.`);
-    }
-  }
-
-  return assemble({
-    network, options, structure, species, suggested, kin, kinT, noTotals, withTotals, laws, numericRates, classGiven, basis, basisStatus, param,
-    wholeRing, acr, relations, steadyStates, steadyStatesReason, eliminant, steadyStateSet, zeroDimensionalBasis, positivePoint, unfinished, warnings,
-  });
-}
-
-/** "E + C" for a conservation law given as species → coefficient. */
-function lawText(law: Record<string, number>): string {
-  return Object.entries(law)
-    .map(([s, c], i) => `${c < 0 ? (i === 0 ? "-" : " - ") : i === 0 ? "" : " + "}${Math.abs(c) === 1 ? "" : Math.abs(c)}${s}`)
-    .join("");
+  related = take(relationsStage(network, options, structure, system, budget));
+  return assembleNow([]);
 }

@@ -103,8 +103,8 @@ export interface FoldScan {
 export function foldScan(network: Network, options: FoldScanOptions): FoldScan {
   const budget = new Budget(options);
   const warnings: string[] = [];
-  if (compare(options.from, options.to) >= 0) throw new SteadyStateInputError(`--from must be below --to`);
-  if (options.from.num < 0n) throw new SteadyStateInputError(`--from must not be negative (rate constants, totals and concentrations are positive)`);
+  if (compare(options.from, options.to) >= 0) throw new SteadyStateInputError({ kind: "scan-range", problem: "from-not-below-to" });
+  if (options.from.num < 0n) throw new SteadyStateInputError({ kind: "scan-range", problem: "from-negative" });
   const structure = analyseStructure(network);
   const lawsRec = structure.conservationLaws;
   const laws = lawsRec.map((law) => network.species.map((s) => BigInt(law[s] ?? 0)));
@@ -113,16 +113,14 @@ export function foldScan(network: Network, options: FoldScanOptions): FoldScan {
   const name = options.parameter;
   const kind: ScanParameterKind | null = rates.has(name) ? "rate" : network.species.includes(name) ? "initial" : totalNames.includes(name) ? "total" : null;
   if (!kind)
-    throw new SteadyStateInputError(
-      `--vary: '${name}' is neither a rate constant (${[...rates.keys()].join(", ")}), a species (its initial concentration) nor a total (${totalNames.join(", ") || "no conservation laws"})`,
-    );
+    throw new SteadyStateInputError({ kind: "scan-parameter", name, rates: [...rates.keys()], totals: totalNames });
   const missing = [...rates.entries()].filter(([k, v]) => k !== name && !v).map(([k]) => k);
-  if (missing.length > 0) throw new SteadyStateInputError(`a scan needs a value for every other rate constant; missing: ${missing.join(", ")}`);
+  if (missing.length > 0) throw new SteadyStateInputError({ kind: "scan-rates-missing", missing });
   if (laws.length > 0 && !options.initial && !(kind === "total" && laws.length === 1))
-    throw new SteadyStateInputError(`the network has conservation laws (${totalNames.join(", ")}): give --initial so their totals are known`);
+    throw new SteadyStateInputError({ kind: "scan-totals-needed", totals: totalNames });
   if (options.initial)
     for (const s of options.initial.keys())
-      if (!network.species.includes(s)) throw new SteadyStateInputError(`--initial: '${s}' is not a species of the network (species: ${network.species.join(", ")})`);
+      if (!network.species.includes(s)) throw new SteadyStateInputError({ kind: "unknown-species", input: "initial", name: s, species: network.species });
 
   const varied: Network = kind === "rate" ? { ...network, reactions: network.reactions.map((r) => (r.rate === name ? { ...r, rateValue: undefined } : r)) } : network;
   const suggested = defaultOrder(network, lawsRec).order;
@@ -146,7 +144,7 @@ export function foldScan(network: Network, options: FoldScanOptions): FoldScan {
         last = new Error(analysis.reason);
         continue;
       }
-      if (analysis.kind === "continuum") throw new SteadyStateInputError(`the steady states form a continuum for generic ${name}: no finite count exists`);
+      if (analysis.kind === "continuum") throw new SteadyStateInputError({ kind: "scan-continuum", name, at: null });
       const withReduced = { ...full, reduced: r };
       if (analysis.kind === "none") return finish(withReduced, varied, options, budget, [], analysis.note, warnings, name, kind, { variable: uo[uo.length - 1], polynomial: "1" });
       return finish(withReduced, varied, options, budget, analysis.polys, null, warnings, name, kind, analysis.eliminant);
@@ -162,7 +160,7 @@ export function foldScan(network: Network, options: FoldScanOptions): FoldScan {
       last = new Error(analysis.reason);
       continue;
     }
-    if (analysis.kind === "continuum") throw new SteadyStateInputError(`the steady states form a continuum for generic ${name}: no finite count exists`);
+    if (analysis.kind === "continuum") throw new SteadyStateInputError({ kind: "scan-continuum", name, at: null });
     if (analysis.kind === "none")
       return finish(built, varied, options, budget, [], analysis.note, warnings, name, kind, { variable: order[order.length - 1], polynomial: "1" });
     return finish(built, varied, options, budget, analysis.polys, null, warnings, name, kind, analysis.eliminant);
@@ -476,7 +474,7 @@ function finish(
   const counts = gaps.map(([a, b]) => {
     const s = compare(a, b) < 0 ? simpleRationalBetween(a, b) : a;
     const st = statesAt(s);
-    if (!st) throw new SteadyStateInputError(`the steady states form a continuum at ${name} = ${fmtQ(s)}`);
+    if (!st) throw new SteadyStateInputError({ kind: "scan-continuum", name, at: fmtQ(s) });
     return { sample: s, count: st.length };
   });
   const folds: FoldPoint[] = [];

@@ -6,7 +6,7 @@
  */
 export { analyseNetwork, type AnalyseOptions, type SteadyStateAnalysis } from "./analyse";
 export { type AnalysisProgress, type BudgetOptions } from "./budget";
-export { SteadyStateInputError, defaultOrder, resolveOrder, nonInteractingSpecies } from "./order";
+export { SteadyStateInputError, inputProblemText, PLAIN_INPUT_NAMES, defaultOrder, resolveOrder, nonInteractingSpecies, type SteadyStateInputProblem, type InputName } from "./order";
 export { kineticsRing, massActionOdes, type KineticsRing, type QPoly, type QRing } from "./kinetics";
 export { massActionTerms, type OdeTerm, type SpeciesOde } from "./ode-terms";
 export { odeJulia, odePython, type OdeCodeOptions } from "./ode-code";
@@ -15,7 +15,7 @@ export { linearElimination, type LinearEliminationResult, type EliminatedSpecies
 export { computeParametrisation, type Parametrisation, type ParametrisationResult } from "./parametrisation";
 export { positiveSolutions, isZeroDimensional, type ZeroDimensionalSolution } from "./zero-dimensional";
 export { numericSteadyStates, type NumericSteadyState } from "./numeric-steady-states";
-export { acrSpecies, acrByGroebner, type AcrSpecies } from "./acr";
+export { acrSpecies, acrByGroebner, acrText, type AcrSpecies, type AcrFinding } from "./acr";
 export { testRelation, type RelationResult } from "./relation";
 export { saturate } from "./ideal";
 export { triangularForm, genericConditions } from "./triangular";

@@ -1,7 +1,66 @@
 import type { Network } from "../network/index";
 
+/**
+ * What was wrong with an input of an analysis or a scan, as data: the domain names the input and
+ * the problem, and each edge words it for its own users (the CLI names its options, the web its
+ * form fields; see `inputProblemText` for wording that names neither).
+ */
+export type SteadyStateInputProblem =
+  | { readonly kind: "unknown-species"; readonly input: "order" | "initial"; readonly name: string; readonly species: readonly string[] }
+  | { readonly kind: "listed-twice"; readonly input: "order"; readonly name: string }
+  | { readonly kind: "relation-syntax"; readonly relation: string; readonly detail: string }
+  | { readonly kind: "scan-range"; readonly problem: "from-not-below-to" | "from-negative" }
+  | { readonly kind: "scan-parameter"; readonly name: string; readonly rates: readonly string[]; readonly totals: readonly string[] }
+  | { readonly kind: "scan-rates-missing"; readonly missing: readonly string[] }
+  | { readonly kind: "scan-totals-needed"; readonly totals: readonly string[] }
+  | { readonly kind: "scan-continuum"; readonly name: string; readonly at: string | null };
+
+/** The inputs a problem can be about, as the edges name them (an option, a form field). */
+export type InputName = "order" | "initial" | "from" | "to" | "vary";
+
+/**
+ * A problem in words, with `name` wording each input (the CLI passes `--initial`, the web page
+ * "initial concentrations"). Example: an unknown species Z in the order reads
+ * `<order>: 'Z' is not a species of the network (species: E, S)`.
+ */
+export function inputProblemText(p: SteadyStateInputProblem, name: (input: InputName) => string): string {
+  switch (p.kind) {
+    case "unknown-species":
+      return `${name(p.input)}: '${p.name}' is not a species of the network (species: ${p.species.join(", ")})`;
+    case "listed-twice":
+      return `${name(p.input)}: '${p.name}' is listed twice`;
+    case "relation-syntax":
+      return `relation '${p.relation}': ${p.detail}`;
+    case "scan-range":
+      return p.problem === "from-not-below-to"
+        ? `${name("from")} must be below ${name("to")}`
+        : `${name("from")} must not be negative (rate constants, totals and concentrations are positive)`;
+    case "scan-parameter":
+      return `${name("vary")}: '${p.name}' is neither a rate constant (${p.rates.join(", ")}), a species (its initial concentration) nor a total (${p.totals.join(", ") || "no conservation laws"})`;
+    case "scan-rates-missing":
+      return `a scan needs a value for every other rate constant; missing: ${p.missing.join(", ")}`;
+    case "scan-totals-needed":
+      return `the network has conservation laws (${p.totals.join(", ")}): give ${name("initial")} so their totals are known`;
+    case "scan-continuum":
+      return p.at === null ? `the steady states form a continuum for generic ${p.name}: no finite count exists` : `the steady states form a continuum at ${p.name} = ${p.at}`;
+  }
+}
+
+/** Input names in plain words, for messages that name no edge (logs, other callers of the domain). */
+export const PLAIN_INPUT_NAMES: Record<InputName, string> = {
+  order: "elimination order",
+  initial: "initial concentrations",
+  from: "the start of the range",
+  to: "its end",
+  vary: "scanned parameter",
+};
+
+/** Bad input to an analysis or scan: `problem` is the typed reason; the message words it without naming any edge. */
 export class SteadyStateInputError extends Error {
   override name = "SteadyStateInputError";
+  constructor(readonly problem: SteadyStateInputProblem) {
+    super(inputProblemText(problem, (n) => PLAIN_INPUT_NAMES[n]));
+  }
 }
 
 /**
@@ -53,8 +112,8 @@ export function defaultOrder(network: Network, laws: readonly Record<string, num
 export function resolveOrder(user: readonly string[], fallback: readonly string[]): string[] {
   const seen = new Set<string>();
   for (const s of user) {
-    if (!fallback.includes(s)) throw new SteadyStateInputError(`--order: '${s}' is not a species of the network (species: ${fallback.join(", ")})`);
-    if (seen.has(s)) throw new SteadyStateInputError(`--order: '${s}' is listed twice`);
+    if (!fallback.includes(s)) throw new SteadyStateInputError({ kind: "unknown-species", input: "order", name: s, species: [...fallback] });
+    if (seen.has(s)) throw new SteadyStateInputError({ kind: "listed-twice", input: "order", name: s });
     seen.add(s);
   }
   return [...user, ...fallback.filter((s) => !seen.has(s))];

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { parseNetworkCsv } from "@domain/network/index";
-import { defaultOrder, nonInteractingSpecies, resolveOrder, SteadyStateInputError } from "@domain/steady-state/order";
+import { defaultOrder, inputProblemText, nonInteractingSpecies, resolveOrder, SteadyStateInputError } from "@domain/steady-state/order";
 import { TWO_SITE_SYMBOLIC } from "./helpers";
 
 describe("elimination order", () => {
@@ -22,5 +22,18 @@ describe("elimination order", () => {
     expect(resolveOrder(["S"], ["C", "E", "S", "P"])).toEqual(["S", "C", "E", "P"]);
     expect(() => resolveOrder(["Q"], ["A"])).toThrow(SteadyStateInputError);
     expect(() => resolveOrder(["A", "A"], ["A"])).toThrow(/twice/);
+  });
+  it("gives bad input as a typed reason whose default words name no command-line option", () => {
+    let caught: unknown;
+    try {
+      resolveOrder(["Q"], ["A", "B"]);
+    } catch (e) {
+      caught = e;
+    }
+    expect(caught).toBeInstanceOf(SteadyStateInputError);
+    const e = caught as SteadyStateInputError;
+    expect(e.problem).toEqual({ kind: "unknown-species", input: "order", name: "Q", species: ["A", "B"] });
+    expect(e.message).toBe("elimination order: 'Q' is not a species of the network (species: A, B)");
+    expect(inputProblemText(e.problem, (n) => `--${n}`)).toBe("--order: 'Q' is not a species of the network (species: A, B)");
   });
 });
