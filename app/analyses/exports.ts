@@ -2,9 +2,9 @@
  * Downloads of a finished analysis: the whole result as JSON, tables as CSV (papaparse, formula-safe cells), formulas
  * as a LaTeX document. Pure functions of the stored result, so a share link exports the same.
  */
+import { nameTex } from "@domain/algebra/format-tex";
 import type { AnalysisResult, ScanResult } from "./result-types";
-import { toTex } from "./latex";
-import { csvTable, texCommentText } from "~/downloads/escape";
+import { csvTable, latexText, texCommentText } from "~/downloads/escape";
 
 export type ExportFile = "result.json" | "parametrisation.csv" | "steady-states.csv" | "formulas.tex";
 export const EXPORT_FILES: readonly ExportFile[] = ["result.json", "parametrisation.csv", "steady-states.csv", "formulas.tex"];
@@ -39,26 +39,37 @@ export function exportAnalysis(file: ExportFile, r: AnalysisResult, meta: Export
 }
 
 function latexDocument(r: AnalysisResult, meta: ExportMeta): string {
+  // The engine's TeX (written from the exact values); a result stored before it wrote TeX gets its
+  // formulas as typewriter text, and the document says so.
+  const tex = r.tex ?? null;
+  const asText = (text: string) => `\\texttt{${latexText(text)}}`;
   const lines = [
     `% Steady-state analysis exported from Stillpoint: ${texCommentText(meta.network)}, version ${meta.version}, engine ${texCommentText(meta.engineVersion)}.`,
     "% Mass-action kinetics, positive concentrations, generic values of the symbolic parameters.",
     "\\documentclass{article}",
     "\\usepackage{amsmath}",
     "\\begin{document}",
+    ...(tex ? [] : ["This result was stored by an older engine version, which kept its formulas as text only: they are shown as text.", ""]),
     "\\section*{Triangular system (lex Gr\\\"obner basis)}",
   ];
   if (r.triangularForm.length === 0) lines.push("Not computed within the budget.");
   else {
     lines.push("\\begin{align*}");
-    lines.push(r.triangularForm.flatMap((b) => b.polynomials.map((p) => `${toTex(p)} &= 0`)).join(" \\\\\n"));
+    lines.push(r.triangularForm.flatMap((b, i) => b.polynomials.map((p, j) => `${tex?.triangularForm[i]?.[j] ?? asText(p)} &= 0`)).join(" \\\\\n"));
     lines.push("\\end{align*}");
   }
   if (r.parametrisation) {
-    lines.push("\\section*{Parametrisation}", `Free: $${r.parametrisation.free.map(toTex).join(", ")}$.`, "\\begin{align*}");
-    lines.push(Object.entries(r.parametrisation.expressions).map(([s, e]) => `${toTex(s)} &= ${toTex(e)}`).join(" \\\\\n"));
+    lines.push("\\section*{Parametrisation}", `Free: $${r.parametrisation.free.map(nameTex).join(", ")}$.`, "\\begin{align*}");
+    lines.push(Object.entries(r.parametrisation.expressions).map(([s, e]) => `${nameTex(s)} &= ${tex?.parametrisation?.[s] ?? asText(e)}`).join(" \\\\\n"));
     lines.push("\\end{align*}");
   }
-  if (r.acr.length > 0) lines.push("\\section*{Absolute concentration robustness}", "\\begin{align*}", r.acr.map((a) => `${toTex(a.species)} &= ${toTex(a.value)}`).join(" \\\\\n"), "\\end{align*}");
+  if (r.acr.length > 0)
+    lines.push(
+      "\\section*{Absolute concentration robustness}",
+      "\\begin{align*}",
+      r.acr.map((a) => `${nameTex(a.species)} &= ${tex?.acr[a.species] ?? asText(a.value)}`).join(" \\\\\n"),
+      "\\end{align*}",
+    );
   lines.push("\\end{document}", "");
   return lines.join("\n");
 }

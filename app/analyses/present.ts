@@ -1,18 +1,23 @@
 /**
- * Turns a stored result into what the pages show: rows for the tables, LaTeX for the formulas,
- * conservation laws as sums with their totals. Server side (mathjs parses the formulas once).
+ * Turns a stored result into what the pages show: rows for the tables, the formulas' TeX,
+ * conservation laws as sums with their totals. The TeX and the degrees are the engine's, written
+ * from the exact values when the result was made (`tex`, `parametrisationDegrees`); nothing here
+ * parses a formula. Results stored before the engine wrote them have neither: their formulas are
+ * shown as text (`typeset: false`, and the page says so) and their degrees as not recorded.
  */
+import { nameTex } from "@domain/algebra/format-tex";
 import { parseRational } from "@domain/algebra/rational";
 import type { AnalysisParams } from "./params";
 import type { AnalysisResult } from "./result-types";
-import { degreeIn, namesIn, toTex } from "./latex";
 
 export interface ParametrisationRow {
   species: string;
   expression: string;
-  tex: string;
+  /** `species = expression` in TeX; null for a result stored before the engine wrote TeX (show `expression`). */
+  tex: string | null;
   dependsOn: string[];
-  degree: number;
+  /** Degree in the free species; null for a result stored before the engine reported it. */
+  degree: number | null;
   /**
    * Numerator and denominator each of one sign, as the engine decided it on the exact expression;
    * null for results stored before the engine reported it per species (not guessed from the text).
@@ -21,10 +26,12 @@ export interface ParametrisationRow {
 }
 
 export interface ResultView {
-  triangular: { species: string | null; tex: string[]; text: string[] }[];
+  /** false for a result stored before the engine wrote TeX: every `tex` below is null and the text stands in. */
+  typeset: boolean;
+  triangular: { species: string | null; tex: string[] | null; text: string[] }[];
   parametrisation: { free: string[]; positive: boolean; rows: ParametrisationRow[] } | null;
   conservation: { text: string; total: string | null }[];
-  acr: { species: string; value: string; tex: string }[];
+  acr: { species: string; value: string; tex: string | null }[];
   steadyStates: { index: number; concentrations: Record<string, number>; verdict: string; eigenvalues: string[] }[] | null;
   species: string[];
 }
@@ -52,11 +59,19 @@ const gcd = (a: bigint, b: bigint): bigint => (b === 0n ? (a === 0n ? 1n : a) : 
 export const formatEigenvalue = (e: number | { re: number; im: number }) =>
   typeof e === "number" ? e.toPrecision(6) : `${e.re.toPrecision(6)} ${e.im < 0 ? "−" : "+"} ${Math.abs(e.im).toPrecision(6)}i`;
 
+/** Names (species and parameters) in an expression's text, in order of first use. Example: "k1*A/(k2 + A)" gives [k1, A, k2]. */
+export function namesIn(expression: string): string[] {
+  return [...new Set(expression.match(/[A-Za-z_][A-Za-z0-9_]*/g) ?? [])];
+}
+
 export function presentResult(r: AnalysisResult, params: Pick<AnalysisParams, "initial">): ResultView {
   const free = r.parametrisation?.free ?? [];
+  const tex = r.tex ?? null;
+  const equation = (species: string, t: string | undefined) => (t === undefined ? null : `${nameTex(species)} = ${t}`);
   return {
+    typeset: tex !== null,
     species: r.species,
-    triangular: r.triangularForm.map((b) => ({ species: b.species, tex: b.polynomials.map((p) => `${toTex(p)} = 0`), text: b.polynomials })),
+    triangular: r.triangularForm.map((b, i) => ({ species: b.species, tex: tex ? (tex.triangularForm[i] ?? []).map((t) => `${t} = 0`) : null, text: b.polynomials })),
     parametrisation: r.parametrisation
       ? {
           free,
@@ -64,15 +79,15 @@ export function presentResult(r: AnalysisResult, params: Pick<AnalysisParams, "i
           rows: Object.entries(r.parametrisation.expressions).map(([species, expression]) => ({
             species,
             expression,
-            tex: `${toTex(species)} = ${toTex(expression)}`,
+            tex: equation(species, tex?.parametrisation?.[species]),
             dependsOn: namesIn(expression),
-            degree: degreeIn(expression, free),
+            degree: r.parametrisationDegrees?.[species] ?? null,
             positive: r.parametrisation?.positiveSpecies ? r.parametrisation.positiveSpecies.includes(species) : null,
           })),
         }
       : null,
     conservation: r.conservationLaws.map((law) => ({ text: lawText(law), total: params.initial ? totalOf(law, params.initial) : null })),
-    acr: r.acr.map((a) => ({ ...a, tex: `${toTex(a.species)} = ${toTex(a.value)}` })),
+    acr: r.acr.map((a) => ({ ...a, tex: equation(a.species, tex?.acr[a.species]) })),
     steadyStates:
       r.steadyStates?.map((s, i) => ({ index: i + 1, concentrations: s.concentrations, verdict: s.verdict, eigenvalues: s.eigenvalues.map(formatEigenvalue) })) ?? null,
   };

@@ -23,7 +23,9 @@ type AddedLater =
   | "steadyStateSystem"
   | "minimalSemiPositiveConservationLaws"
   | "deficiencyZeroTheorem"
-  | "deficiencyOneTheorem";
+  | "deficiencyOneTheorem"
+  | "tex"
+  | "parametrisationDegrees";
 
 type Parametrisation = NonNullable<AnalysisResultJson["parametrisation"]>;
 

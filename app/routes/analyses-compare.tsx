@@ -6,7 +6,7 @@ import { findJob, jobJson } from "~/analyses/repository.server";
 import type { AnalysisParams } from "~/analyses/params";
 import { presentResult } from "~/analyses/present";
 import type { AnalysisResult } from "~/analyses/result-types";
-import { Tex } from "~/analyses/ui/tex";
+import { Formula } from "~/analyses/ui/tex";
 import { requireLabRole } from "~/permissions/permissions.server";
 import { notFound } from "~/shared/responses";
 import { formatDateTime } from "~/shared/dates";
@@ -57,7 +57,7 @@ function Column({ s, labSlug }: { s: Side; labSlug: string }) {
       ) : (
         <>
           <h3 className="font-semibold">Parametrisation</h3>
-          {s.view.parametrisation ? s.view.parametrisation.rows.map((row) => <div key={row.species}><Tex tex={row.tex} /></div>) : <p className="text-sm text-muted">none</p>}
+          {s.view.parametrisation ? s.view.parametrisation.rows.map((row) => <div key={row.species}><Formula tex={row.tex} text={`${row.species} = ${row.expression}`} /></div>) : <p className="text-sm text-muted">none</p>}
           <h3 className="font-semibold">Triangular system</h3>
           <p className="text-sm">{r.groebnerBasisComplete ? `${r.groebnerBasis.length} polynomials` : r.groebnerBasisStatus === "skipped" ? "not computed (the parametrisation answers)" : "not finished"}</p>
           <h3 className="font-semibold">ACR</h3>

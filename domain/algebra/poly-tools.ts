@@ -25,6 +25,21 @@ export function degreeIn(p: QPoly, k: number): number {
   return d;
 }
 
+/**
+ * Total degree of p in the variables `among` (the others count as coefficients); −1 for zero.
+ * Example: totalDegreeIn(x^2*y*k + k^3, [x, y]) = 3.
+ */
+export function totalDegreeIn(p: QPoly, among: readonly number[]): number {
+  const S = p.ring.stride;
+  let d = -1;
+  for (let i = 0; i < p.coeffs.length; i++) {
+    let t = 0;
+    for (const k of among) t += p.exps[i * S + 1 + k];
+    d = Math.max(d, t);
+  }
+  return d;
+}
+
 /** The variables (0-based indices) that occur in p. */
 export function variablesOf(p: QPoly): Set<number> {
   const S = p.ring.stride;

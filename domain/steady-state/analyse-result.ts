@@ -9,7 +9,8 @@ import { consistencyProblems } from "./consistency";
 import type { NumericSteadyState } from "./numeric-steady-states";
 import type { computeParametrisation } from "./parametrisation";
 import { primitive, signPattern } from "../algebra/poly-tools";
-import { formatExpression, isPositiveExpression } from "./rational-expression";
+import { polynomialTex } from "../algebra/format-tex";
+import { expressionDegree, expressionTex, formatExpression, isPositiveExpression } from "./rational-expression";
 import type { ParametrisationPart } from "./stages/parametrisation";
 import type { RelationsPart } from "./stages/relations";
 import type { RobustnessPart } from "./stages/robustness";
@@ -37,6 +38,9 @@ export type Parts = StructurePart &
 export function assemble(x: Parts): SteadyStateAnalysis {
   const { network, options, structure, species, suggested, kin, kinT, noTotals, withTotals, laws, numericRates, classGiven, basis, param } = x;
   const fmt = (p: Parameters<typeof kin.ring.format>[0]) => kin.ring.format(p);
+  const blocks = basis ? triangularForm(basis, kinT) : [];
+  const expressions = param?.parametrisation?.expressions ?? null;
+  const freeIndices = param?.parametrisation ? param.parametrisation.free.map((s) => kin.ring.indexOf(s)) : [];
   // A pivot whose coefficients all have one sign never vanishes at positive species and rate
   // constants; only the others restrict where the parametrisation is valid.
   const nonVanishing = param
@@ -78,7 +82,7 @@ export function assemble(x: Parts): SteadyStateAnalysis {
     groebnerBasisStatus: x.basisStatus,
     ordering: `${kinT.ring.vars.join(" > ")} (${kinT.ring.orderName})`,
     genericConditions: basis ? genericConditions(basis, kinT) : [],
-    triangularForm: basis ? triangularForm(basis, kinT).map((b) => ({ species: b.species, polynomials: b.polynomials.map((p) => kinT.ring.format(p)) })) : [],
+    triangularForm: blocks.map((b) => ({ species: b.species, polynomials: b.polynomials.map((p) => kinT.ring.format(p)) })),
     parametrisation: param?.parametrisation
       ? {
           free: [...param.parametrisation.free],
@@ -100,6 +104,12 @@ export function assemble(x: Parts): SteadyStateAnalysis {
     unfinished: [...x.unfinished],
     contradictions,
     warnings: [...x.warnings, ...(param?.notes ?? [])],
+    tex: {
+      triangularForm: blocks.map((b) => b.polynomials.map(polynomialTex)),
+      parametrisation: expressions && Object.fromEntries(expressions.map((e) => [e.species, expressionTex(e.expression, param!.pivots)])),
+      acr: Object.fromEntries(x.acr.map((a) => [a.species, expressionTex(a.value, a.factors)])),
+    },
+    parametrisationDegrees: expressions && Object.fromEntries(expressions.map((e) => [e.species, expressionDegree(e.expression, freeIndices)])),
   };
 }
 

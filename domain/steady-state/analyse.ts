@@ -102,6 +102,18 @@ export interface SteadyStateAnalysis {
   /** Contradictions between the result and the theorems it cites (always empty unless there is a bug). */
   readonly contradictions: string[];
   readonly warnings: string[];
+  /**
+   * The formulas above in TeX, written from the exact values (never parsed back from the text):
+   * each triangular block's polynomials, each parametrisation expression (null without one), each
+   * ACR value, keyed by species.
+   */
+  readonly tex: {
+    readonly triangularForm: string[][];
+    readonly parametrisation: Record<string, string> | null;
+    readonly acr: Record<string, string>;
+  };
+  /** Each parametrisation expression's degree in the free species (of numerator or denominator, the larger); null without one. */
+  readonly parametrisationDegrees: Record<string, number> | null;
 }
 
 /**

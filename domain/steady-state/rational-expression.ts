@@ -1,7 +1,8 @@
-import { equals as equalsPoly, fromTerms, isZeroPoly, mul, scale, terms } from "../algebra/index";
+import { equals as equalsPoly, fromTerms, isZeroPoly, mul, neg, scale, terms } from "../algebra/index";
+import { polynomialTex } from "../algebra/format-tex";
 import { div } from "../algebra/rational";
 import type { QPoly } from "./kinetics";
-import { exactQuotient, primitive, signPattern, substituteFraction } from "../algebra/poly-tools";
+import { exactQuotient, isNonZeroConstant, primitive, signPattern, substituteFraction, totalDegreeIn } from "../algebra/poly-tools";
 
 /** A quotient of polynomials of the kinetics ring; den ≠ 0, den primitive with positive leading coefficient. */
 export interface RationalExpression {
@@ -61,8 +62,8 @@ export function isPositiveExpression(e: RationalExpression): boolean {
  * S0*E*k1*k3*(k11 + k12)/(k2 + k3).
  */
 export function formatExpression(e: RationalExpression, factors: readonly QPoly[] = []): string {
-  const num = formatFactored(e.num, factors);
-  const den = formatFactored(e.den, factors);
+  const num = factoredText(factorise(e.num, factors));
+  const den = factoredText(factorise(e.den, factors));
   if (den.text === "1") return num.text;
   // "5/8/E" would need the reader to know that / groups to the left: a numerator that is itself a
   // fraction is bracketed too.
@@ -72,37 +73,83 @@ export function formatExpression(e: RationalExpression, factors: readonly QPoly[
   return `${wrappedNum}/${bareDen ? den.text : `(${den.text})`}`;
 }
 
-/** Monomial content · dividing factors · rest; `sum` tells whether the text is a bare sum needing parentheses. */
-function formatFactored(p: QPoly, factors: readonly QPoly[]): { text: string; sum: boolean } {
+/**
+ * The same expression in TeX, written with the same factors: `\frac{num}{den}` (or the numerator
+ * alone over 1), each part as rest · monomial · (factor)… like the text.
+ * Example: (k1*S0*E)/(k2 + k3) gives `\frac{\mathrm{S0}\cdot\mathrm{E}\cdot\mathrm{k1}}{\mathrm{k2}+\mathrm{k3}}`.
+ */
+export function expressionTex(e: RationalExpression, factors: readonly QPoly[] = []): string {
+  const num = factoredTex(factorise(e.num, factors));
+  if (isOne(e.den)) return num;
+  return `\\frac{${num}}{${factoredTex(factorise(e.den, factors))}}`;
+}
+
+/**
+ * Total degree in the variables `among` of the numerator or the denominator, whichever is larger
+ * (the usual degree of a rational function). Example: S0·E²·k1/(F·l3) in S0, E, F has degree 3.
+ */
+export function expressionDegree(e: RationalExpression, among: readonly number[]): number {
+  return Math.max(0, totalDegreeIn(e.num, among), totalDegreeIn(e.den, among));
+}
+
+/**
+ * A polynomial as written: either whole (`sum` when it is a bare sum that needs parentheses in a
+ * product), or rest · monomial content · the dividing factors in the order found.
+ */
+type Factored =
+  | { readonly kind: "whole"; readonly poly: QPoly; readonly sum: boolean }
+  | { readonly kind: "product"; readonly rest: QPoly; readonly mono: QPoly | null; readonly factors: readonly QPoly[] };
+
+function factorise(p: QPoly, factors: readonly QPoly[]): Factored {
   const ring = p.ring;
-  if (p.coeffs.length <= 1) return { text: ring.format(p), sum: false };
+  if (p.coeffs.length <= 1) return { kind: "whole", poly: p, sum: false };
   const ts = terms(p);
   const shift = Array.from({ length: ring.n }, (_, k) => Math.min(...ts.map((t) => t.exponents[k])));
   let rest = fromTerms(ring, ts.map((t) => ({ coeff: t.coeff, exponents: t.exponents.map((x, k) => x - shift[k]) })));
-  const parts: string[] = [];
-  const mono = fromTerms(ring, [{ coeff: { num: 1n, den: 1n }, exponents: shift }]);
-  if (shift.some((x) => x > 0)) parts.push(ring.format(mono));
+  const mono = shift.some((x) => x > 0) ? fromTerms(ring, [{ coeff: { num: 1n, den: 1n }, exponents: shift }]) : null;
+  const found: QPoly[] = [];
   const seen = new Set<string>();
   for (const f of factors) {
     if (f.coeffs.length <= 1) continue;
-    const key = ring.format(primitive(f));
+    const g = primitive(f);
+    const key = ring.format(g);
     if (seen.has(key)) continue;
     seen.add(key);
-    const g = primitive(f);
     for (;;) {
       if (rest.coeffs.length <= 1 || equalsPoly(rest, g)) break;
       const q = exactQuotient(rest, g);
       if (!q) break;
-      parts.push(`(${key})`);
+      found.push(g);
       rest = q;
     }
   }
-  if (parts.length === 0) return { text: ring.format(p), sum: true };
-  const restText = ring.format(rest);
+  if (!mono && found.length === 0) return { kind: "whole", poly: p, sum: true };
+  return { kind: "product", rest, mono, factors: found };
+}
+
+/** The text of a factored polynomial; `sum` tells whether it is a bare sum needing parentheses. */
+function factoredText(f: Factored): { text: string; sum: boolean } {
+  if (f.kind === "whole") return { text: f.poly.ring.format(f.poly), sum: f.sum };
+  const parts = [...(f.mono ? [f.mono.ring.format(f.mono)] : []), ...f.factors.map((g) => `(${g.ring.format(g)})`)];
+  const restText = f.rest.ring.format(f.rest);
   if (restText === "-1") return { text: `-${parts.join("*")}`, sum: false };
-  if (restText !== "1") parts.unshift(rest.coeffs.length > 1 ? `(${restText})` : restText);
+  if (restText !== "1") parts.unshift(f.rest.coeffs.length > 1 ? `(${restText})` : restText);
   return { text: parts.join("*"), sum: false };
 }
+
+/** The TeX of a factored polynomial, factor for factor as factoredText writes it. */
+function factoredTex(f: Factored): string {
+  if (f.kind === "whole") return polynomialTex(f.poly);
+  const parts = [...(f.mono ? [polynomialTex(f.mono)] : []), ...f.factors.map((g) => `\\left(${polynomialTex(g)}\\right)`)];
+  if (isOne(f.rest)) return parts.join("\\cdot");
+  if (isOne(neg(f.rest))) return `-${parts.join("\\cdot")}`;
+  // A number leads with a thin space (2\,x); a sum is bracketed.
+  if (f.rest.coeffs.length > 1) return [`\\left(${polynomialTex(f.rest)}\\right)`, ...parts].join("\\cdot");
+  const restTex = polynomialTex(f.rest);
+  return isNonZeroConstant(f.rest) ? `${restTex}\\,${parts.join("\\cdot")}` : [restTex, ...parts].join("\\cdot");
+}
+
+const isOne = (p: QPoly) => isNonZeroConstant(p) && p.coeffs[0].num === 1n && p.coeffs[0].den === 1n;
 
 /**
  * Substitutes x_k = num/den into a rational expression, clearing the powers of den on both parts.

@@ -64,6 +64,9 @@ export interface AnalysisResultJson {
   minimalSemiPositiveConservationLaws: S["minimalSemiPositiveConservationLaws"];
   deficiencyZeroTheorem: S["deficiencyZeroTheorem"];
   deficiencyOneTheorem: S["deficiencyOneTheorem"];
+  /** Added after the keys above (older stored results lack them): the formulas in TeX, from the exact values. */
+  tex: A["tex"];
+  parametrisationDegrees: A["parametrisationDegrees"];
 }
 
 /**
@@ -117,6 +120,8 @@ export function analysisResultJson(r: SteadyStateAnalysis): AnalysisResultJson {
     minimalSemiPositiveConservationLaws: s.minimalSemiPositiveConservationLaws,
     deficiencyZeroTheorem: s.deficiencyZeroTheorem,
     deficiencyOneTheorem: s.deficiencyOneTheorem,
+    tex: r.tex,
+    parametrisationDegrees: r.parametrisationDegrees,
   };
 }
 

@@ -39,15 +39,20 @@ const columns = column.columns([
     enableSorting: false,
     cell: (i) => (
       <div className="space-y-1">
-        <Tex tex={i.row.original.tex} />
-        <div className="font-mono text-xs text-muted" data-testid="expression-text">
+        {i.row.original.tex !== null && <Tex tex={i.row.original.tex} />}
+        <div className={`font-mono ${i.row.original.tex !== null ? "text-xs text-muted" : "text-sm"}`} data-testid="expression-text">
           {i.getValue()}
         </div>
       </div>
     ),
   }),
   column.accessor((r) => r.dependsOn.join(", "), { id: "dependsOn", header: "Depends on", filterFn: "dependsOnIncludes", sortFn: "alphanumeric", cell: (i) => <span className="font-mono text-xs">{i.getValue()}</span> }),
-  column.accessor("degree", { header: "Degree", sortFn: "basic", cell: (i) => <span className="tabular-nums">{i.getValue()}</span> }),
+  column.accessor((r) => r.degree ?? -1, {
+    id: "degree",
+    header: "Degree",
+    sortFn: "basic",
+    cell: (i) => (i.row.original.degree === null ? <span className="text-muted" title="not recorded by the engine version that made this result">—</span> : <span className="tabular-nums">{i.row.original.degree}</span>),
+  }),
   column.accessor((r) => (r.positive === null ? "not recorded" : r.positive ? "yes" : "no"), { id: "positive", header: "Positive", sortFn: "alphanumeric", filterFn: "equals" }),
 ]);
 

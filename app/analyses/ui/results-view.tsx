@@ -5,7 +5,7 @@ import type { MultistationarityJson } from "@domain/steady-state/result";
 import type { AnalysisResult } from "~/analyses/result-types";
 import { answerOf, type Answer } from "~/analyses/answer";
 import { ParametrisationTable } from "./parametrisation-table";
-import { Tex } from "./tex";
+import { Formula } from "./tex";
 
 function Block({ id, title, children }: { id: string; title: string; children: React.ReactNode }) {
   return (
@@ -56,6 +56,11 @@ export function ResultsView({ view, result }: { view: ResultView; result: Analys
   return (
     <div className="space-y-6" data-testid="results">
       <AnswerCard answer={answerOf(result)} />
+      {!view.typeset && (
+        <p className="rounded-md bg-sunken px-4 py-2 text-sm text-muted" data-testid="untypeset-note">
+          This result was stored by an older engine version, which kept its formulas as text only: they are shown as text, and the parametrisation's degrees were not recorded.
+        </p>
+      )}
       <Block id="triangular" title="Triangular system (lex Gröbner basis)">
         <p className="text-sm text-muted">
           Ring order {result.ordering}. {result.groebnerBasisComplete
@@ -67,9 +72,9 @@ export function ResultsView({ view, result }: { view: ResultView; result: Analys
         {view.triangular.map((b, i) => (
           <div key={i} className="rounded-md border border-line bg-surface px-4 py-2">
             <p className="text-xs uppercase tracking-wide text-faint">{b.species === null ? "parameters only" : `leading species ${b.species}`}</p>
-            {b.tex.map((t, j) => (
-              <div key={j} data-testid="triangular-polynomial" title={b.text[j]}>
-                <Tex tex={t} display />
+            {b.text.map((text, j) => (
+              <div key={j} data-testid="triangular-polynomial" title={text}>
+                <Formula tex={b.tex?.[j] ?? null} text={`${text} = 0`} display />
               </div>
             ))}
           </div>
@@ -122,7 +127,7 @@ export function ResultsView({ view, result }: { view: ResultView; result: Analys
           <ul data-testid="acr">
             {view.acr.map((a) => (
               <li key={a.species}>
-                <Tex tex={a.tex} /> at every positive steady state
+                <Formula tex={a.tex} text={`${a.species} = ${a.value}`} /> at every positive steady state
               </li>
             ))}
           </ul>

@@ -34,7 +34,20 @@ describe("exports and the page's view of a result", () => {
     expect(totalOf({ A: 2, B: -1 }, { A: "1" })).toBe("2");
     const view = presentResult(result, params);
     expect(view.conservation).toEqual([{ text: "E + C", total: "1/2" }]);
-    expect(view.parametrisation!.rows.every((r) => r.tex.includes("="))).toBe(true);
+    expect(view.parametrisation!.rows.every((r) => r.tex !== null && r.tex.includes("="))).toBe(true);
+  });
+
+  it("formulas.tex holds the engine's TeX; a result stored before the engine wrote TeX gets its text, escaped, and says so", () => {
+    const fresh = exportAnalysis("formulas.tex", result, meta).body;
+    // The engine's TeX for the parametrisation, written from the exact expressions.
+    for (const [s, t] of Object.entries(result.tex!.parametrisation!)) expect(fresh).toContain(`\\mathrm{${s}} &= ${t}`);
+    expect(fresh).not.toContain("\\texttt");
+    const { tex: _t, parametrisationDegrees: _d, ...old } = result;
+    const stored = { ...old, parametrisation: { ...old.parametrisation!, expressions: { k_x: "k_1*E^2/(2*C)" } } } as AnalysisResult;
+    const body = exportAnalysis("formulas.tex", stored, meta).body;
+    expect(body).toContain("older engine version");
+    // Underscore and caret are escaped in the text: the document compiles and shows the text as stored.
+    expect(body).toContain("\\mathrm{k\\_x} &= \\texttt{k\\_1*E\\textasciicircum{}2/(2*C)}");
   });
 
   it("a network name with line breaks cannot leave the TeX comment (formulas.tex, also behind share links)", () => {

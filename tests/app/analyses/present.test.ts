@@ -24,3 +24,24 @@ describe("presentResult: positivity per species", () => {
     expect(presentResult(old as unknown as AnalysisResult, { initial: null }).parametrisation!.rows[0]!.positive).toBeNull();
   });
 });
+
+describe("presentResult: formulas from the engine's TeX, older results as text", () => {
+  it("takes the TeX and degrees the engine stored; an older result shows text and no degree, and says so", () => {
+    // Binding and conversion (invented): a parametrisation in the free species, no class given.
+    const r = analysisResultJson(analyseNetwork(parseNetworkCsv("reaction,rate,reverse_rate\nA <-> B,k1,k2\nB + C <-> D,k3,k4\n"), { skipFullBasis: true }));
+    const fresh = presentResult(r as unknown as AnalysisResult, { initial: null });
+    expect(fresh.typeset).toBe(true);
+    for (const row of fresh.parametrisation!.rows) {
+      expect(row.tex).toBe(`\\mathrm{${row.species}} = ${r.tex.parametrisation![row.species]}`);
+      expect(row.degree).toBe(r.parametrisationDegrees![row.species]);
+    }
+    // D = B*C*k3/k4 up to the choice of free species: some row has degree 2 in the free species.
+    expect(Math.max(...fresh.parametrisation!.rows.map((row) => row.degree!))).toBe(2);
+    const { tex: _t, parametrisationDegrees: _d, ...old } = r;
+    const view = presentResult(old as unknown as AnalysisResult, { initial: null });
+    expect(view.typeset).toBe(false);
+    expect(view.parametrisation!.rows.every((row) => row.tex === null && row.degree === null)).toBe(true);
+    expect(view.triangular.every((b) => b.tex === null)).toBe(true);
+    expect(view.parametrisation!.rows[0]!.dependsOn.length).toBeGreaterThan(0);
+  });
+});
