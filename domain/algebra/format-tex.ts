@@ -1,3 +1,4 @@
+import { printedTerms } from "./format";
 import type { Polynomial } from "./polynomial";
 
 /**
@@ -9,28 +10,13 @@ import type { Polynomial } from "./polynomial";
  * The zero polynomial is `0`. Over Z/p coefficients are in the symmetric range, as in the text.
  */
 export function polynomialTex<C>(p: Polynomial<C>): string {
-  const { ring } = p;
-  const F = ring.field, S = ring.stride, n = ring.n;
-  if (p.coeffs.length === 0) return "0";
-  let out = "";
-  for (let i = 0; i < p.coeffs.length; i++) {
-    const c = p.coeffs[i];
-    const negative = F.isNegative(c);
-    const abs = negative ? F.neg(c) : c;
-    const factors: string[] = [];
-    for (let k = 0; k < n; k++) {
-      const e = p.exps[i * S + 1 + k];
-      if (e === 1) factors.push(nameTex(ring.vars[k]));
-      else if (e > 1) factors.push(`${nameTex(ring.vars[k])}^{${e}}`);
-    }
-    const mono = factors.join("\\cdot");
-    let body: string;
-    if (mono === "") body = numberTex(F.format(abs));
-    else if (F.isOne(abs)) body = mono;
-    else body = `${numberTex(F.format(abs))}\\,${mono}`;
-    out += negative ? `-${body}` : i === 0 ? body : `+${body}`;
-  }
-  return out;
+  return printedTerms(p)
+    .map((t, i) => {
+      const mono = t.factors.map((f) => (f.power === 1 ? nameTex(f.name) : `${nameTex(f.name)}^{${f.power}}`)).join("\\cdot");
+      const body = mono === "" ? numberTex(t.magnitude) : t.unit ? mono : `${numberTex(t.magnitude)}\\,${mono}`;
+      return t.negative ? `-${body}` : i === 0 ? body : `+${body}`;
+    })
+    .join("") || "0";
 }
 
 /** A name (species, rate constant, total) as an upright word; `_` escaped. Example: nameTex("k_on") is `\mathrm{k\_on}`. */
