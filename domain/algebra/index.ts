@@ -55,7 +55,8 @@ export {
 export type { Polynomial, Term } from "./polynomial";
 export { parsePolynomial } from "./parse";
 export type { ParseOptions } from "./parse";
-export { formatPolynomial } from "./format";
+export { formatPolynomial, printedTerms, type PrintedTerm } from "./format";
+export { polynomialTex, nameTex, numberTex } from "./format-tex";
 export { divide } from "./division";
 export type { DivisionResult } from "./division";
 export { groebnerBasis } from "./groebner";

@@ -19,4 +19,4 @@ export { acrSpecies, acrByGroebner, acrText, type AcrSpecies, type AcrFinding } 
 export { testRelation, type RelationResult } from "./relation";
 export { saturate } from "./ideal";
 export { triangularForm, genericConditions } from "./triangular";
-export { formatExpression, type RationalExpression } from "./rational-expression";
+export { formatExpression, expressionTex, expressionDegree, type RationalExpression } from "./rational-expression";
