@@ -5,7 +5,8 @@
  * here and in every reader at compile time instead of drifting in a hand-written copy.
  *
  * Polynomials and expressions travel as the domain's canonical text (parseable by the algebra
- * layer's parser); numbers from the numeric layer are floats, as everywhere for display.
+ * layer's parser) and, under `tex`, as TeX written from the same exact values, so no reader needs
+ * to parse a formula; numbers from the numeric layer are floats, as everywhere for display.
  */
 import type { NetworkStructure } from "../network/index";
 import type { SteadyStateAnalysis } from "./analyse";

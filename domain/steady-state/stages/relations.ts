@@ -20,7 +20,8 @@ export interface RelationsPart {
 export function relationsStage(network: Network, options: AnalyseOptions, s: StructurePart, sys: SystemPart, budget: Budget): RelationsPart & StageReport {
   const report = stageReport();
   const relations: RelationResult[] = [];
-  const { laws, totals } = { laws: s.laws, totals: sys.totals };
+  const { laws } = s;
+  const { totals } = sys;
   for (const text of options.relations ?? []) {
     try {
       budget.progress("relations", `testing ${text}`);

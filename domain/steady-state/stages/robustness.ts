@@ -24,7 +24,7 @@ export function robustnessStage(network: Network, s: StructurePart, p: Parametri
   const { param } = p;
   const report = stageReport();
   const acr = param ? acrSpecies(s.kin, param) : [];
-  if (param && param.complete && !param.parametrisation && !param.infeasible)
+  if (param && robustnessNeedsBases(p))
     for (const sp of param.unknowns) {
       try {
         budget.progress("acr", `testing ${sp} for absolute concentration robustness`);
