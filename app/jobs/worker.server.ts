@@ -10,7 +10,9 @@ import { pathToFileURL } from "node:url";
 import { createDb } from "~/db.server";
 import { getEnv } from "~/env.server";
 import { computePendingStructures } from "~/networks/structure-store.server";
-import { enqueue, getBoss, QUEUE, stopBosses, type JobMessage } from "./queue.server";
+import { cancelOrphanedRuns, processTask } from "./basis-tasks.server";
+import { enqueue, getBoss, IMAGE_QUEUE, QUEUE, stopBosses, type JobMessage, type TaskMessage } from "./queue.server";
+import { TaskRunner } from "./task-runner.server";
 import { processJob, stopAllChildren, type ProcessOptions } from "./process-job.server";
 import { orphanedQueuedJobs, releaseRunningJobs, sweepStaleJobs } from "./sweeper.server";
 
@@ -25,6 +27,11 @@ export interface WorkerOptions extends Partial<Omit<ProcessOptions, "workerId">>
   /** How often to look for network structures to compute (default 250 ms). */
   structuresEveryMs?: number;
   logStructures?: boolean;
+  /** Take child jobs of distributed bases from the image queue (default true). */
+  images?: boolean;
+  /** Called when this worker's task process starts a basis task (tests kill the worker then). */
+  onTaskStarted?: (taskId: string) => void;
+  logTasks?: boolean;
 }
 
 export interface RunningWorker {
@@ -57,6 +64,18 @@ export async function startWorker(options: WorkerOptions): Promise<RunningWorker
     );
   }
 
+  // Child jobs of distributed bases (coordinator.server.ts): one at a time, in this worker's task process.
+  const runner = new TaskRunner();
+  if (options.images !== false) {
+    workIds.push(
+      await boss.work<TaskMessage>(IMAGE_QUEUE, { batchSize: 1, pollingIntervalSeconds: Math.min(options.pollSeconds ?? 0.5, 0.5) }, async ([job]) => {
+        if (!job) return;
+        const what = await processTask(db, job.data, { workerId: id, runner, heartbeatMs: processOptions.heartbeatMs, onTaskStarted: options.onTaskStarted });
+        if (options.logTasks) log(what);
+      }),
+    );
+  }
+
   const sweep = async () => {
     try {
       const { requeued, failed } = await sweepStaleJobs(db, staleAfterMs);
@@ -66,6 +85,7 @@ export async function startWorker(options: WorkerOptions): Promise<RunningWorker
       }
       for (const f of failed) log(`${f}: its worker stopped responding; settled (no attempts left, or cancelled)`);
       for (const r of await orphanedQueuedJobs(db, 5 * 60_000)) await enqueue(options.databaseUrl, r.id, r.timeLimitSeconds);
+      await cancelOrphanedRuns(db, options.databaseUrl);
     } catch (e) {
       log(`sweep failed: ${(e as Error).message}`);
     }
@@ -101,6 +121,7 @@ export async function startWorker(options: WorkerOptions): Promise<RunningWorker
       // Hand running jobs back before killing their processes, so no final write can land.
       const released = await releaseRunningJobs(db, id).catch(() => []);
       stopAllChildren("the worker is stopping");
+      runner.kill();
       for (const r of released) {
         log(`${r.id}: handed back to the queue`);
         await enqueue(options.databaseUrl, r.id, r.timeLimitSeconds).catch(() => undefined);
