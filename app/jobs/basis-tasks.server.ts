@@ -37,7 +37,7 @@ export async function processTask(db: DbExecutor, message: TaskMessage, ctx: Tas
   const request =
     task.kind === "image"
       ? ({ kind: "image", runId: task.run_id, input, prime: task.prime!, deadline } as const)
-      : ({ kind: "proof", runId: task.run_id, input, candidate: run.candidate as unknown as LiftCandidate, batch: task.batch as unknown as ProofBatch, deadline } as const);
+      : ({ kind: "proof", runId: task.run_id, input, candidate: proofCandidate(task.batch, run.candidate, task.seq), batch: task.batch as unknown as ProofBatch, deadline } as const);
   let runEnded = false;
   const beat = setInterval(() => {
     void db
@@ -74,6 +74,13 @@ export async function processTask(db: DbExecutor, message: TaskMessage, ctx: Tas
   }
   await mine().set({ status: "done", ok: reply.ok, failed_step: reply.failed ?? null, compute_ms: reply.ms, finished_at: sql`now()` }).execute();
   return `proof batch ${task.seq}: ${reply.ok ? "ok" : `failed (${reply.failed})`} (${reply.ms} ms)`;
+}
+
+/** The candidate a proof batch is about: the run's, or for the early step-3 check the first image's leading monomials (kept in the batch). */
+function proofCandidate(batch: unknown, runCandidate: unknown, seq: number): LiftCandidate {
+  const leads = (batch as { leads?: string[] } | null)?.leads;
+  if (leads) return { basis: leads, primes: [], unlucky: [], checkedWith: -1 - seq };
+  return runCandidate as LiftCandidate;
 }
 
 /**

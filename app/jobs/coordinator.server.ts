@@ -18,7 +18,7 @@
 import { sql } from "kysely";
 import type { Kysely } from "kysely";
 import type { LiftCandidate, ModularImage, MultiModularInput, ProofBatch } from "@domain/algebra/f4/multimodular";
-import { ImageLifter, decodeImage, encodeImage, imageModPrime, liftPrimes, proofBatches, proveBatch } from "@domain/algebra/f4/multimodular";
+import { ImageLifter, decodeImage, encodeImage, imageModPrime, leadsCandidate, liftPrimes, proofBatches, proveBatch } from "@domain/algebra/f4/multimodular";
 import { Limits } from "@domain/algebra/groebner/limits";
 import { ENGINE_VERSION } from "~/analyses/engine-version";
 import type { Database, JsonObject } from "~/db/schema";
@@ -128,12 +128,45 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
       if (o.firstImage.image.p !== primeAt(0)) throw new Error("distributedGroebner: the first image must be modulo the first lift prime");
     }
     const imagesStart = Date.now();
+    // Step 3 of the proof on the first image's leading monomials, beside the images: when it
+    // cannot succeed (the homogenised ideal is not saturated), stop before lifting, as the
+    // single-process run does. Graded orders only; lex and block orders prove membership instead.
+    let early: { id: string; batch: ProofBatch; leads: LiftCandidate } | null = null;
+    let proofSeq = 0;
+    const batchKinds = proofBatches(input, { basis: [], primes: [], unlucky: [], checkedWith: 0 }, 1).map((b) => b.kind);
+    let aborted: string | undefined;
     while (!candidate) {
       for (let s = seq; s < seq + window; s++) await enqueueImage(s);
       const image = await waitForImage(runId, seq, () => computeLocally({ kind: "image", prime: primeAt(seq) }));
+      if (seq === 0 && batchKinds.includes("hilbert")) {
+        const leads = leadsCandidate(input, image);
+        const batch: ProofBatch = { kind: "hilbert", p: image.p };
+        const row = await db.insertInto("basis_tasks").values({ run_id: runId, kind: "proof", seq: proofSeq++, batch: { ...batch, leads: leads.basis } as unknown as JsonObject }).returning("id").executeTakeFirstOrThrow();
+        await enqueueTask(o.databaseUrl, { taskId: row.id, runId }, { priority: 2_000_001, expireInSeconds: expire * 4 });
+        early = { id: row.id, batch, leads };
+      }
+      if (early) {
+        const r = await db.selectFrom("basis_tasks").select(["status", "ok"]).where("id", "=", early.id).executeTakeFirstOrThrow();
+        if (r.status === "done" && r.ok === false) { aborted = "hilbert"; break; }
+      }
       candidate = lifter.add(image);
       seq++;
       await progress({ stage: "images", imagesDone: seq, imagesNeeded: candidate ? seq : null, proofDone: 0, proofBatches: 0 });
+    }
+    if (!candidate && aborted) {
+      await cancelRunJobs(db, o.databaseUrl, runId);
+      await db.updateTable("basis_runs").set({ status: "failed", error: `proof step failed: ${aborted} (checked on the first image, before lifting)`, finished_at: sql`now()` }).where("id", "=", runId).execute();
+      return { runId, basis: null, failed: aborted, primes: [], unlucky: [], engineVersion: ENGINE_VERSION, workers: await workers(), meanImageBytes: 0, medianWaitMs: 0, timings: { imagesMs: Date.now() - imagesStart, liftMs: lifter.liftMs, proofMs: 0 } };
+    }
+    if (!candidate) throw new Error("distributedGroebner: no candidate");
+    if (early) {
+      // The early check must pass too (it is what makes the lift worth proving).
+      const r = await waitForProof(early.id, () => computeLocally({ kind: "proof", batch: early!.batch }, early!.leads));
+      if (!r.ok) {
+        await cancelRunJobs(db, o.databaseUrl, runId);
+        await db.updateTable("basis_runs").set({ status: "failed", error: "proof step failed: hilbert (checked on the first image)", finished_at: sql`now()` }).where("id", "=", runId).execute();
+        return { runId, basis: null, failed: "hilbert", primes: [], unlucky: [], engineVersion: ENGINE_VERSION, workers: await workers(), meanImageBytes: 0, medianWaitMs: 0, timings: { imagesMs: Date.now() - imagesStart, liftMs: lifter.liftMs, proofMs: 0 } };
+      }
     }
     const imagesMs = Date.now() - imagesStart;
     // Images no longer needed: cancel those still queued (one a worker is computing finishes; its row is ignored).
@@ -147,7 +180,7 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
     await db.updateTable("basis_runs").set({ candidate: json(candidate), primes_used: json(candidate.primes), unlucky_primes: json(candidate.unlucky) }).where("id", "=", runId).execute();
     const proofIds: string[] = [];
     for (const [i, batch] of batches.entries()) {
-      const row = await db.insertInto("basis_tasks").values({ run_id: runId, kind: "proof", seq: i, batch: batch as unknown as JsonObject }).returning("id").executeTakeFirstOrThrow();
+      const row = await db.insertInto("basis_tasks").values({ run_id: runId, kind: "proof", seq: proofSeq++, batch: batch as unknown as JsonObject }).returning("id").executeTakeFirstOrThrow();
       proofIds.push(row.id);
       // Proof batches before any image of another run; the pairs (the long ones) first.
       await enqueueTask(o.databaseUrl, { taskId: row.id, runId }, { priority: 2_000_000 - i, expireInSeconds: expire * 4 });

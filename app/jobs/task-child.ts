@@ -18,17 +18,16 @@ export type TaskReply =
   | { kind: "error"; message: string };
 
 // The same input object for every task of a run, so the domain's per-input cache (ring, integer
-// generators, monomial table, parsed candidate) is reused. Only the latest few runs are kept.
-const inputs = new Map<string, { input: MultiModularInput; candidate?: LiftCandidate }>();
-function cached(runId: string, input: MultiModularInput, candidate?: LiftCandidate) {
-  let c = inputs.get(runId);
-  if (!c) {
-    c = { input };
-    inputs.set(runId, c);
-    while (inputs.size > 3) inputs.delete(inputs.keys().next().value!);
-  }
-  if (candidate && !c.candidate) c.candidate = candidate;
-  return c;
+// generators, monomial table, parsed candidate) is reused; likewise one candidate object per
+// (run, candidate) — the early step-3 check has a stand-in of its own. Only the latest runs are kept.
+const inputs = new Map<string, MultiModularInput>();
+const candidates = new Map<string, LiftCandidate>();
+function keep<T>(m: Map<string, T>, key: string, value: T): T {
+  const had = m.get(key);
+  if (had) return had;
+  m.set(key, value);
+  while (m.size > 6) m.delete(m.keys().next().value!);
+  return value;
 }
 
 process.on("disconnect", () => process.exit(1));
@@ -39,11 +38,12 @@ process.on("message", (raw) => {
   try {
     const limits = new Limits({ deadline: req.deadline });
     if (req.kind === "image") {
-      const c = cached(req.runId, req.input);
-      reply = { kind: "image", bytes: encodeImage(imageModPrime(c.input, req.prime, limits)), ms: Date.now() - t0 };
+      const input = keep(inputs, req.runId, req.input);
+      reply = { kind: "image", bytes: encodeImage(imageModPrime(input, req.prime, limits)), ms: Date.now() - t0 };
     } else {
-      const c = cached(req.runId, req.input, req.candidate);
-      const outcome = proveBatch(c.input, c.candidate!, req.batch, limits);
+      const input = keep(inputs, req.runId, req.input);
+      const candidate = keep(candidates, `${req.runId}:${req.candidate.checkedWith}`, req.candidate);
+      const outcome = proveBatch(input, candidate, req.batch, limits);
       reply = { kind: "proof", ok: outcome.ok, ...(outcome.ok ? {} : { failed: outcome.failed }), ms: Date.now() - t0 };
     }
   } catch (e) {

@@ -16,7 +16,9 @@ import { TaskRunner } from "./task-runner.server";
 import { processJob, stopAllChildren, type ProcessOptions } from "./process-job.server";
 import { orphanedQueuedJobs, releaseRunningJobs, sweepStaleJobs } from "./sweeper.server";
 
-export interface WorkerOptions extends Partial<Omit<ProcessOptions, "workerId">> {
+export interface WorkerOptions extends Partial<Omit<ProcessOptions, "workerId" | "databaseUrl" | "distributeAfterMs">> {
+  /** See ProcessOptions.distributeAfterMs; null = never distribute. Default DISTRIBUTE_AFTER_MS or 3000. */
+  distributeAfterMs?: number | null;
   databaseUrl: string;
   /** Jobs run at once by this worker (each in its own process; default 1, as the machine has 2 cores). */
   concurrency?: number;
@@ -29,9 +31,19 @@ export interface WorkerOptions extends Partial<Omit<ProcessOptions, "workerId">>
   logStructures?: boolean;
   /** Take child jobs of distributed bases from the image queue (default true). */
   images?: boolean;
+  /** Take jobs from the job queue (default true); false = an image-only worker. */
+  jobs?: boolean;
   /** Called when this worker's task process starts a basis task (tests kill the worker then). */
   onTaskStarted?: (taskId: string) => void;
   logTasks?: boolean;
+}
+
+function distributeAfter(given: number | null | undefined): number | undefined {
+  if (given === null) return undefined;
+  if (given !== undefined) return given;
+  const env = process.env.DISTRIBUTE_AFTER_MS;
+  if (env === "off") return undefined;
+  return env !== undefined && env !== "" ? Number(env) : 3000;
 }
 
 export interface RunningWorker {
@@ -50,11 +62,14 @@ export async function startWorker(options: WorkerOptions): Promise<RunningWorker
     graceMs: options.graceMs ?? 5000,
     engineDeadlineFactor: options.engineDeadlineFactor ?? 1,
     onChildStarted: options.onChildStarted,
+    databaseUrl: options.databaseUrl,
+    // A few seconds by default (DISTRIBUTE_AFTER_MS; "off" = never): shorter bases cost less alone than their coordination.
+    ...(distributeAfter(options.distributeAfterMs) !== undefined ? { distributeAfterMs: distributeAfter(options.distributeAfterMs) } : {}),
   };
   const staleAfterMs = options.staleAfterMs ?? 30_000;
 
   const workIds: string[] = [];
-  for (let i = 0; i < (options.concurrency ?? 1); i++) {
+  for (let i = 0; i < (options.jobs === false ? 0 : (options.concurrency ?? 1)); i++) {
     workIds.push(
       await boss.work<JobMessage>(QUEUE, { batchSize: 1, pollingIntervalSeconds: options.pollSeconds ?? 1 }, async ([job]) => {
         if (!job) return;
@@ -133,7 +148,12 @@ export async function startWorker(options: WorkerOptions): Promise<RunningWorker
 }
 
 if (import.meta.url === pathToFileURL(process.argv[1] ?? "").href) {
-  const worker = await startWorker({ databaseUrl: getEnv().databaseUrl, concurrency: Number(process.env.WORKER_CONCURRENCY ?? 1) });
+  // WORKER_QUEUES: "jobs,images" (default), "images" for a machine that only lends its cores to distributed bases.
+  const queues = (process.env.WORKER_QUEUES ?? "jobs,images").split(",").map((q) => q.trim());
+  const worker = await startWorker({
+    databaseUrl: getEnv().databaseUrl, concurrency: Number(process.env.WORKER_CONCURRENCY ?? 1),
+    jobs: queues.includes("jobs"), images: queues.includes("images"), logTasks: process.env.WORKER_LOG_TASKS === "1",
+  });
   const shutdown = async () => {
     await worker.stop().catch(() => undefined);
     process.exit(0);

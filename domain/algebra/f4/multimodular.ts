@@ -481,7 +481,31 @@ export function multiModularGroebnerQQ(
   return candidateBasis(input, candidate);
 }
 
-/** The early step-3 check on the first image: are its leading monomials covered by the h-free leads? */
+/**
+ * The early step-3 check on an image (graded orders; true otherwise): are its leading monomials
+ * covered by the h-free leads at its prime? When not, the proof cannot succeed, so do not lift.
+ */
+export function imagePassesHilbert(input: MultiModularInput, image: ModularImage, limits: Limits): boolean {
+  return !preparedFor(input).graded || leadsOfImageCovered(input, image, limits);
+}
+
+/**
+ * A stand-in candidate made of the image's leading monomials only: enough for the step-3 batch
+ * `{ kind: "hilbert", p: image.p }`, which looks at leading monomials alone, so that this early
+ * check (proven impossible = do not lift) can run on another machine.
+ */
+export function leadsCandidate(input: MultiModularInput, image: ModularImage): LiftCandidate {
+  const ring = preparedFor(input).ring;
+  const S = image.n + 1;
+  const basis: string[] = [];
+  let t = 0;
+  for (let e = 0; e < image.lengths.length; e++) {
+    basis.push(ring.format(normalizeTerms(ring, [QQ.one], image.exps.slice(t * S, t * S + S))));
+    t += image.lengths[e];
+  }
+  return { basis, primes: [], unlucky: [], checkedWith: image.p };
+}
+
 function leadsOfImageCovered(input: MultiModularInput, image: ModularImage, limits: Limits): boolean {
   const h = hFreeAt(preparedFor(input), image.p, limits);
   const S = image.n + 1;
