@@ -68,6 +68,8 @@ export interface DistributedOutcome {
   /** Bytes of the stored images (mean) and time from enqueue to start (median, ms), for the bench. */
   meanImageBytes: number;
   medianWaitMs: number;
+  /** Median time from "could start" (enqueued and a worker free) to start (ms): the queue's own overhead. */
+  medianPickupMs: number;
   timings: { imagesMs: number; liftMs: number; proofMs: number };
 }
 
@@ -156,7 +158,7 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
     if (!candidate && aborted) {
       await cancelRunJobs(db, o.databaseUrl, runId);
       await db.updateTable("basis_runs").set({ status: "failed", error: `proof step failed: ${aborted} (checked on the first image, before lifting)`, finished_at: sql`now()` }).where("id", "=", runId).execute();
-      return { runId, basis: null, failed: aborted, primes: [], unlucky: [], engineVersion: ENGINE_VERSION, workers: await workers(), meanImageBytes: 0, medianWaitMs: 0, timings: { imagesMs: Date.now() - imagesStart, liftMs: lifter.liftMs, proofMs: 0 } };
+      return { runId, basis: null, failed: aborted, primes: [], unlucky: [], engineVersion: ENGINE_VERSION, workers: await workers(), meanImageBytes: 0, medianWaitMs: 0, medianPickupMs: 0, timings: { imagesMs: Date.now() - imagesStart, liftMs: lifter.liftMs, proofMs: 0 } };
     }
     if (!candidate) throw new Error("distributedGroebner: no candidate");
     if (early) {
@@ -165,7 +167,7 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
       if (!r.ok) {
         await cancelRunJobs(db, o.databaseUrl, runId);
         await db.updateTable("basis_runs").set({ status: "failed", error: "proof step failed: hilbert (checked on the first image)", finished_at: sql`now()` }).where("id", "=", runId).execute();
-        return { runId, basis: null, failed: "hilbert", primes: [], unlucky: [], engineVersion: ENGINE_VERSION, workers: await workers(), meanImageBytes: 0, medianWaitMs: 0, timings: { imagesMs: Date.now() - imagesStart, liftMs: lifter.liftMs, proofMs: 0 } };
+        return { runId, basis: null, failed: "hilbert", primes: [], unlucky: [], engineVersion: ENGINE_VERSION, workers: await workers(), meanImageBytes: 0, medianWaitMs: 0, medianPickupMs: 0, timings: { imagesMs: Date.now() - imagesStart, liftMs: lifter.liftMs, proofMs: 0 } };
       }
     }
     const imagesMs = Date.now() - imagesStart;
@@ -203,7 +205,13 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
       .select([sql<number>`avg(bytes)`.as("bytes"), sql<number>`percentile_cont(0.5) WITHIN GROUP (ORDER BY extract(epoch FROM started_at - enqueued_at) * 1000)`.as("wait")])
       .where("run_id", "=", runId).where("status", "=", "done").where("worker_id", "<>", o.coordinatorId)
       .executeTakeFirst();
+    // Pick-up latency: from the moment a task could start (enqueued, and its worker free again) to its start.
+    const pickup = await sql<{ ms: number | null }>`
+      SELECT percentile_cont(0.5) WITHIN GROUP (ORDER BY extract(epoch FROM started_at - greatest(enqueued_at, coalesce(prev, enqueued_at))) * 1000) AS ms
+      FROM (SELECT started_at, enqueued_at, lag(finished_at) OVER (PARTITION BY worker_id ORDER BY started_at) AS prev
+            FROM basis_tasks WHERE run_id = ${runId} AND status = 'done' AND worker_id <> ${o.coordinatorId}) x`.execute(db);
     return {
+      medianPickupMs: Number(pickup.rows[0]?.ms ?? 0),
       runId, basis: failed ? null : [...candidate.basis], ...(failed ? { failed } : {}), primes: [...candidate.primes], unlucky: [...candidate.unlucky],
       engineVersion: ENGINE_VERSION, workers: await workers(), meanImageBytes: Number(stats?.bytes ?? 0), medianWaitMs: Number(stats?.wait ?? 0),
       timings: { imagesMs, liftMs: lifter.liftMs, proofMs },

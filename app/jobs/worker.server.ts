@@ -81,12 +81,28 @@ export async function startWorker(options: WorkerOptions): Promise<RunningWorker
 
   // Child jobs of distributed bases (coordinator.server.ts): one at a time, in this worker's task process.
   const runner = new TaskRunner();
+  let stopping = false;
   if (options.images !== false) {
     workIds.push(
-      await boss.work<TaskMessage>(IMAGE_QUEUE, { batchSize: 1, pollingIntervalSeconds: Math.min(options.pollSeconds ?? 0.5, 0.5) }, async ([job]) => {
+      await boss.work<TaskMessage>(IMAGE_QUEUE, { batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => {
         if (!job) return;
-        const what = await processTask(db, job.data, { workerId: id, runner, heartbeatMs: processOptions.heartbeatMs, onTaskStarted: options.onTaskStarted });
+        const task = (data: TaskMessage) => processTask(db, data, { workerId: id, runner, heartbeatMs: processOptions.heartbeatMs, onTaskStarted: options.onTaskStarted });
+        const what = await task(job.data);
         if (options.logTasks) log(what);
+        // pg-boss's loop waits out its polling interval even after a job (0.5 s at least), far
+        // longer than a small image takes: keep fetching (claim with expiry, complete or fail,
+        // as the loop would) while tasks are waiting.
+        while (!stopping) {
+          const [next] = (await boss.fetch<TaskMessage>(IMAGE_QUEUE, { batchSize: 1 })) ?? [];
+          if (!next) break;
+          try {
+            const more = await task(next.data);
+            await boss.complete(IMAGE_QUEUE, next.id);
+            if (options.logTasks) log(more);
+          } catch (e) {
+            await boss.fail(IMAGE_QUEUE, next.id, { message: (e as Error).message });
+          }
+        }
       }),
     );
   }
@@ -129,6 +145,7 @@ export async function startWorker(options: WorkerOptions): Promise<RunningWorker
   return {
     id,
     async stop() {
+      stopping = true;
       clearInterval(sweeper);
       clearInterval(structures);
       while (structuresBusy) await new Promise((r) => setTimeout(r, 20));
