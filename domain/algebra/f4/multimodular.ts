@@ -128,6 +128,8 @@ interface Prepared {
   readonly hFree: Map<number, HFreeLeads>;
   /** Parsed candidates, so the single-process run does not re-parse its own. */
   readonly parsed: WeakMap<LiftCandidate, Polynomial<Rational>[]>;
+  /** The same, primitive over Z and sorted, as the proof batches use them. */
+  readonly integerCandidates: WeakMap<LiftCandidate, EPoly<bigint>[]>;
 }
 
 const prepared = new WeakMap<MultiModularInput, Prepared>();
@@ -156,7 +158,7 @@ function prepare(ring: PolynomialRing<Rational>, polys: readonly Polynomial<Rati
     return mons;
   });
   const graded = isGradedOrder(ring as Polynomial<unknown>["ring"]);
-  return { ring, graded, integer, T, inputMons, reference, hFree: new Map(), parsed: new WeakMap() };
+  return { ring, graded, integer, T, inputMons, reference, hFree: new Map(), parsed: new WeakMap(), integerCandidates: new WeakMap() };
 }
 
 function preparedFor(input: MultiModularInput): Prepared {
@@ -352,12 +354,16 @@ export function proveBatch(input: MultiModularInput, candidate: LiftCandidate, b
   if (batch.kind === "hilbert") {
     return leadsCovered(G.map((g) => g.exps), hFreeAt(pr, batch.p, limits)) ? { ok: true } : { ok: false, failed: "hilbert" };
   }
-  const Gz = G.map((g) => {
-    const z = clearDenominators(toEngine(g));
-    K.normalize(z.coeffs, () => limits.checkTime()); // primitive: smaller numbers in the reductions
-    return z;
-  });
-  Gz.sort((a, b) => cmp(a.exps, 0, b.exps, 0));
+  let Gz = pr.integerCandidates.get(candidate);
+  if (!Gz) {
+    Gz = G.map((g) => {
+      const z = clearDenominators(toEngine(g));
+      K.normalize(z.coeffs, () => limits.checkTime()); // primitive: smaller numbers in the reductions
+      return z;
+    });
+    Gz.sort((a, b) => cmp(a.exps, 0, b.exps, 0));
+    pr.integerCandidates.set(candidate, Gz); // the next batch in this process starts from here
+  }
   if (batch.kind === "pairs") {
     return verifyGroebner(Gz, K, n, cmp, limits, { index: batch.index, of: batch.of }) ? { ok: true } : { ok: false, failed: "groebner" };
   }
