@@ -70,6 +70,8 @@ export interface DistributedOutcome {
   medianWaitMs: number;
   /** Median time from "could start" (enqueued and a worker free) to start (ms): the queue's own overhead. */
   medianPickupMs: number;
+  /** Tasks and compute time (ms, inside the task process) per worker: how the work was split. */
+  computeByWorker?: Record<string, { tasks: number; ms: number }>;
   timings: { imagesMs: number; liftMs: number; proofMs: number };
 }
 
@@ -210,7 +212,10 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
       SELECT percentile_cont(0.5) WITHIN GROUP (ORDER BY extract(epoch FROM started_at - greatest(enqueued_at, coalesce(prev, enqueued_at))) * 1000) AS ms
       FROM (SELECT started_at, enqueued_at, lag(finished_at) OVER (PARTITION BY worker_id ORDER BY started_at) AS prev
             FROM basis_tasks WHERE run_id = ${runId} AND status = 'done' AND worker_id <> ${o.coordinatorId}) x`.execute(db);
+    const split = await db.selectFrom("basis_tasks").select(["worker_id", sql<number>`sum(compute_ms)::int`.as("ms"), sql<number>`count(*)::int`.as("n")])
+      .where("run_id", "=", runId).where("status", "=", "done").where("worker_id", "is not", null).groupBy("worker_id").execute();
     return {
+      computeByWorker: Object.fromEntries(split.map((r) => [r.worker_id!, { tasks: r.n, ms: r.ms }])),
       medianPickupMs: Number(pickup.rows[0]?.ms ?? 0),
       runId, basis: failed ? null : [...candidate.basis], ...(failed ? { failed } : {}), primes: [...candidate.primes], unlucky: [...candidate.unlucky],
       engineVersion: ENGINE_VERSION, workers: await workers(), meanImageBytes: Number(stats?.bytes ?? 0), medianWaitMs: Number(stats?.wait ?? 0),

@@ -5,6 +5,7 @@ import { setUpAccountsDb, tearDownAccountsDb } from "../auth/fixtures";
 import { analysisParams, fixtureCsv, makeJob, makeNetwork, makeTeam, waitFor } from "./fixtures";
 import { requestCancel } from "~/analyses/repository.server";
 import { computeJob } from "~/jobs/compute";
+import { distributedRunsOf } from "~/analyses/distributed-runs.server";
 import { enqueue, IMAGE_QUEUE, stopBosses } from "~/jobs/queue.server";
 import { startWorker, type RunningWorker } from "~/jobs/worker.server";
 
@@ -65,6 +66,13 @@ describe.skipIf(!hasTestDatabase)("distributed analyses", () => {
     expect(tasks.filter((x) => x.status === "done").length).toBeGreaterThan(0);
     expect(new Set(tasks.map((x) => x.worker_id).filter((w) => w && !w.endsWith("(coordinator)"))).size).toBeGreaterThan(0);
     expect(tasks.filter((x) => x.status === "queued" || x.status === "running")).toEqual([]);
+    // What the analysis page shows: images done, who took part (names only for lab members).
+    const view = await distributedRunsOf(t.db, id, { sharedView: false });
+    expect(view.map((v) => v.imagesDone)).toEqual(runs.map((r) => r.images_done));
+    expect(view.every((v) => v.imagesDone >= 1 && v.workerCount >= 1 && v.workers.length === v.workerCount)).toBe(true);
+    expect(view.every((v) => /^proof step failed: hilbert/.test(v.error ?? ""))).toBe(true);
+    const shared = await distributedRunsOf(t.db, id, { sharedView: true });
+    expect(shared.every((v) => v.workers.length === 0 && v.workerCount >= 1)).toBe(true);
     for (const w of workers.splice(0)) await w.stop();
   }, 120_000);
 
