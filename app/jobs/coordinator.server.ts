@@ -82,6 +82,7 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
   const limits = o.limits ?? new Limits();
   const window = Math.max(1, o.window ?? 6);
   const pollMs = o.pollMs ?? 50;
+  let polls = 0;
   const expire = o.taskExpireSeconds ?? Math.max(60, 10 * ((o.firstImage?.ms ?? 5000) / 1000));
   if (o.analysisId) {
     // A run left by an earlier attempt of the same analysis (its process died): end it first.
@@ -248,8 +249,12 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
     }
   }
 
-  /** A task whose job used up its retries (pg-boss moved it to the dead letter queue). */
+  /**
+   * A task whose job used up its retries (pg-boss moved it to the dead letter queue). Looked up
+   * about once a second, not at every poll: pgboss.job has no index on the task id.
+   */
   async function deadLettered(taskId: string): Promise<boolean> {
+    if (++polls % Math.max(1, Math.round(1000 / pollMs)) !== 0) return false;
     const { rows } = await sql<{ n: number }>`SELECT count(*)::int AS n FROM pgboss.job WHERE data->>'taskId' = ${taskId} AND state = 'failed'`.execute(db);
     return (rows[0]?.n ?? 0) > 0;
   }
