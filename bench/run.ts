@@ -33,6 +33,7 @@ async function main(): Promise<number> {
   if (process.argv.includes("--truth")) return (await import("./truth")).runTruth(process.argv.slice(2));
   if (process.argv.includes("--nsite")) return (await import("./nsite")).runNSite(process.argv.slice(2), root);
   if (process.argv.includes("--load")) return (await import("./load")).runLoad(process.argv.slice(2), root);
+  if (process.argv.includes("--workers")) return (await import("./lib/distributed")).runDistributed(process.argv.slice(2), root);
   const o = parseBenchOptions(process.argv.slice(2));
   if (o.help) {
     console.log(USAGE);

@@ -6,6 +6,7 @@ import * as rateLimits from "./20261202070000_rate_limits";
 import * as publicLabs from "./20261202130000_public_labs";
 import * as analysisRuns from "./20261202131000_analysis_runs";
 import * as networkStructures from "./20261202140000_network_structures";
+import * as distributedBases from "./20261202160000_distributed_bases";
 
 /**
  * Every migration, keyed by its file name without extension, in the order they run.
@@ -20,4 +21,5 @@ export const migrations: Record<string, Migration> = {
   "20261202130000_public_labs": publicLabs,
   "20261202131000_analysis_runs": analysisRuns,
   "20261202140000_network_structures": networkStructures,
+  "20261202160000_distributed_bases": distributedBases,
 };

@@ -7,6 +7,7 @@ import { jobJson, listJobs, type JobRecord } from "./repository.server";
 import type { AnalysisResult } from "./result-types";
 import type { DbExecutor } from "~/db/schema";
 import { networkOf } from "./service.server";
+import { distributedRunsOf } from "./distributed-runs.server";
 
 export async function analysisPageData(db: DbExecutor, job: JobRecord, options: { sharedView: boolean }) {
   const children = await listJobs(db, job.lab_id, { parentId: job.id });
@@ -34,6 +35,7 @@ export async function analysisPageData(db: DbExecutor, job: JobRecord, options: 
     relations: childJson("relation"),
     scans: childJson("scan"),
     timeCourses: childJson("timecourse"),
+    distributed: await distributedRunsOf(db, job.id, options),
   };
 }
 export type AnalysisPageData = Awaited<ReturnType<typeof analysisPageData>>;

@@ -115,6 +115,49 @@ export interface NetworkStructuresTable {
   computed_at: NullableTimestamp;
 }
 
+export type BasisRunStatus = "running" | "succeeded" | "failed" | "cancelled";
+export type BasisTaskStatus = "queued" | "running" | "done" | "failed" | "cancelled";
+
+/** One distributed multi-modular basis (app/jobs/coordinator.ts); `input` is a MultiModularInput. */
+export interface BasisRunsTable {
+  id: Generated<string>;
+  analysis_id: string | null;
+  input: JSONColumnType<JsonObject, JsonObject, JsonObject>;
+  status: ColumnType<BasisRunStatus, BasisRunStatus | undefined, BasisRunStatus>;
+  coordinator: string;
+  engine_version: string;
+  images_done: ColumnType<number, number | undefined, number>;
+  images_needed: number | null;
+  primes_used: JSONColumnType<JsonObject | null, JsonObject | null | undefined, JsonObject | null>;
+  unlucky_primes: JSONColumnType<JsonObject | null, JsonObject | null | undefined, JsonObject | null>;
+  candidate: JSONColumnType<JsonObject | null, JsonObject | null | undefined, JsonObject | null>;
+  error: string | null;
+  created_at: CreatedAt;
+  finished_at: NullableTimestamp;
+}
+
+/** A child job of a basis run: one image modulo `prime`, or one proof batch (`batch`, a ProofBatch). */
+export interface BasisTasksTable {
+  id: Generated<string>;
+  run_id: string;
+  kind: "image" | "proof";
+  /** Position: the prime's index in liftPrimes order, or the batch's index. */
+  seq: number;
+  prime: number | null;
+  batch: JSONColumnType<JsonObject | null, JsonObject | null | undefined, JsonObject | null>;
+  status: ColumnType<BasisTaskStatus, BasisTaskStatus | undefined, BasisTaskStatus>;
+  worker_id: string | null;
+  attempts: ColumnType<number, number | undefined, number>;
+  image: Buffer | null;
+  bytes: number | null;
+  ok: boolean | null;
+  failed_step: string | null;
+  compute_ms: number | null;
+  enqueued_at: ColumnType<Date, Date | string | undefined, Date | string>;
+  started_at: NullableTimestamp;
+  finished_at: NullableTimestamp;
+}
+
 export interface AnalysesTable {
   id: Generated<string>;
   network_version_id: string;
@@ -235,6 +278,8 @@ export interface Database {
   network_versions: NetworkVersionsTable;
   network_structures: NetworkStructuresTable;
   analyses: AnalysesTable;
+  basis_runs: BasisRunsTable;
+  basis_tasks: BasisTasksTable;
   analysis_share_links: AnalysisShareLinksTable;
   lab_analysis_settings: LabAnalysisSettingsTable;
   api_tokens: ApiTokensTable;
@@ -265,6 +310,14 @@ export const DATABASE_COLUMNS = {
     "started_by", "created_at", "started_at", "finished_at", "kind", "parent_id", "attempts", "max_attempts",
     "heartbeat_at", "worker_id", "cancel_requested_at", "time_limit_seconds", "notify_by_email",
     "name", "note", "archived_at", "partial_result",
+  ],
+  basis_runs: [
+    "id", "analysis_id", "input", "status", "coordinator", "engine_version", "images_done", "images_needed", "primes_used",
+    "unlucky_primes", "candidate", "error", "created_at", "finished_at",
+  ],
+  basis_tasks: [
+    "id", "run_id", "kind", "seq", "prime", "batch", "status", "worker_id", "attempts", "image", "bytes", "ok", "failed_step",
+    "compute_ms", "enqueued_at", "started_at", "finished_at",
   ],
   analysis_share_links: ["id", "analysis_id", "token_hash", "created_by", "created_at", "expires_at", "revoked_at"],
   lab_analysis_settings: ["lab_id", "max_time_limit_seconds", "max_basis_size", "updated_at"],

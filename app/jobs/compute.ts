@@ -16,6 +16,7 @@ import { suggestedOrder } from "~/analyses/suggested-order";
 import type { AnalysisParams, RelationParams, ScanParams, TimeCourseParams } from "~/analyses/params";
 import type { ExactScan, FreshAnalysisResult } from "~/analyses/result-types";
 import { decimalText, effectiveOrder, scanGrid } from "~/analyses/params";
+import type { DistributionHook } from "@domain/algebra/f4/distribution";
 import { simulateTimeCourse } from "./time-course";
 
 export type JobPayload =
@@ -33,6 +34,8 @@ export interface ComputeOptions {
    * with the stages not reached in `unfinished`); the worker keeps the last one for a run stopped from outside.
    */
   onPartial?: (partial: Record<string, unknown>) => void;
+  /** An analysis' large bases over Q may be computed by many workers (child.ts, coordinator.server.ts). */
+  distribution?: DistributionHook;
 }
 
 const MULTISTATIONARITY_NOT_REACHED = { verdict: "undecided", method: "none", reason: NOT_REACHED };
@@ -93,6 +96,7 @@ export function computeJob(payload: JobPayload, options: ComputeOptions): Record
       });
       const r = analyseNetwork(network, {
         ...analysisOptions(network, payload.params, options),
+        ...(options.distribution ? { distribution: options.distribution } : {}),
         initial: initialMap(payload.params.initial),
         ...(onPartial ? { onPartial: (p: SteadyStateAnalysis) => onPartial(withPending(p)) } : {}),
       });

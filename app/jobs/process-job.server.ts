@@ -9,6 +9,7 @@ import type { AnalysisParams } from "~/analyses/params";
 import { findJobById } from "~/analyses/repository.server";
 import type { DbExecutor, JobRow, JsonObject } from "~/db/schema";
 import type { JobPayload } from "./compute";
+import { cancelBasisRuns } from "./basis-tasks.server";
 import { notifyStarter } from "./notify.server";
 import { parseProgress, type JobProgress } from "./progress";
 import { runInChild, type ChildOutcome } from "./run-child.server";
@@ -22,6 +23,13 @@ export interface ProcessOptions {
   engineDeadlineFactor: number;
   /** Called once the child runs (tests use it to crash the worker mid-run). */
   onChildStarted?: (analysisId: string, pid: number | undefined) => void;
+  /**
+   * Distributed bases (coordinator.server.ts): an analysis whose basis over Q has a first image
+   * modulo a prime slower than this (ms) spreads its images and proof over the workers. Needs
+   * `databaseUrl`; absent = every job computes alone.
+   */
+  distributeAfterMs?: number;
+  databaseUrl?: string;
 }
 
 /**
@@ -120,8 +128,10 @@ export async function processJob(db: DbExecutor, messageId: string, options: Pro
   let partialStages: string[] | null = null;
   try {
     const payload = await payloadFor(db, row);
+    const distribute = row.kind === "analysis" && options.distributeAfterMs !== undefined && options.databaseUrl !== undefined;
     const child = runInChild(payload, {
       engineTimeoutMs: limitMs * options.engineDeadlineFactor,
+      ...(distribute ? { distribution: { thresholdMs: options.distributeAfterMs!, databaseUrl: options.databaseUrl!, analysisId: id, workerId: options.workerId } } : {}),
       onProgress: (p) => {
         progress = parseProgress(p, Date.now() - started);
       },
@@ -159,6 +169,8 @@ export async function processJob(db: DbExecutor, messageId: string, options: Pro
     outcome = { kind: "crashed", message: `could not start the job: ${(e as Error).message}` };
   }
   await partialWrites;
+  // Child jobs of its distributed bases end with the job, whatever the outcome (cancelled: killed at their next heartbeat).
+  if (options.databaseUrl) await cancelBasisRuns(db, options.databaseUrl, { analysisId: id }, cancelled ? "the analysis was cancelled" : "the analysis ended").catch(() => undefined);
   if (lostRow) return null;
   const kept = (stages: string[] | null) => (stages ? ` Parts finished before that are kept; not finished: ${stages.join(", ")}.` : "");
 

@@ -6,7 +6,7 @@
 import { fork } from "node:child_process";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
-import type { ChildMessage } from "./child";
+import type { ChildMessage, ChildStart } from "./child";
 import type { JobPayload } from "./compute";
 import { reapWithParent } from "./reaper.server";
 
@@ -24,7 +24,7 @@ export interface ChildRun {
 
 const CHILD = path.join(path.dirname(fileURLToPath(import.meta.url)), "child.ts");
 
-export function runInChild(payload: JobPayload, options: { engineTimeoutMs: number; onProgress?: (p: { phase: string; message: string }) => void; onPartial?: (result: Record<string, unknown>) => void }): ChildRun {
+export function runInChild(payload: JobPayload, options: { engineTimeoutMs: number; distribution?: ChildStart["distribution"]; onProgress?: (p: { phase: string; message: string }) => void; onPartial?: (result: Record<string, unknown>) => void }): ChildRun {
   const child = fork(CHILD, [], {
     execArgv: ["--import", "tsx"],
     stdio: ["ignore", "ignore", "pipe", "ipc"],
@@ -64,7 +64,7 @@ export function runInChild(payload: JobPayload, options: { engineTimeoutMs: numb
       }
     });
   });
-  child.send({ payload, engineTimeoutMs: options.engineTimeoutMs });
+  child.send({ payload, engineTimeoutMs: options.engineTimeoutMs, ...(options.distribution ? { distribution: options.distribution } : {}) } satisfies ChildStart);
   return {
     outcome,
     pid: child.pid,

@@ -10,11 +10,15 @@ import { pathToFileURL } from "node:url";
 import { createDb } from "~/db.server";
 import { getEnv } from "~/env.server";
 import { computePendingStructures } from "~/networks/structure-store.server";
-import { enqueue, getBoss, QUEUE, stopBosses, type JobMessage } from "./queue.server";
+import { cancelOrphanedRuns, processTask } from "./basis-tasks.server";
+import { enqueue, getBoss, IMAGE_QUEUE, QUEUE, stopBosses, type JobMessage, type TaskMessage } from "./queue.server";
+import { TaskRunner } from "./task-runner.server";
 import { processJob, stopAllChildren, type ProcessOptions } from "./process-job.server";
 import { orphanedQueuedJobs, releaseRunningJobs, sweepStaleJobs } from "./sweeper.server";
 
-export interface WorkerOptions extends Partial<Omit<ProcessOptions, "workerId">> {
+export interface WorkerOptions extends Partial<Omit<ProcessOptions, "workerId" | "databaseUrl" | "distributeAfterMs">> {
+  /** See ProcessOptions.distributeAfterMs; null = never distribute. Default DISTRIBUTE_AFTER_MS or 3000. */
+  distributeAfterMs?: number | null;
   databaseUrl: string;
   /** Jobs run at once by this worker (each in its own process; default 1, as the machine has 2 cores). */
   concurrency?: number;
@@ -25,6 +29,21 @@ export interface WorkerOptions extends Partial<Omit<ProcessOptions, "workerId">>
   /** How often to look for network structures to compute (default 250 ms). */
   structuresEveryMs?: number;
   logStructures?: boolean;
+  /** Take child jobs of distributed bases from the image queue (default true). */
+  images?: boolean;
+  /** Take jobs from the job queue (default true); false = an image-only worker. */
+  jobs?: boolean;
+  /** Called when this worker's task process starts a basis task (tests kill the worker then). */
+  onTaskStarted?: (taskId: string) => void;
+  logTasks?: boolean;
+}
+
+function distributeAfter(given: number | null | undefined): number | undefined {
+  if (given === null) return undefined;
+  if (given !== undefined) return given;
+  const env = process.env.DISTRIBUTE_AFTER_MS;
+  if (env === "off") return undefined;
+  return env !== undefined && env !== "" ? Number(env) : 3000;
 }
 
 export interface RunningWorker {
@@ -43,16 +62,47 @@ export async function startWorker(options: WorkerOptions): Promise<RunningWorker
     graceMs: options.graceMs ?? 5000,
     engineDeadlineFactor: options.engineDeadlineFactor ?? 1,
     onChildStarted: options.onChildStarted,
+    databaseUrl: options.databaseUrl,
+    // A few seconds by default (DISTRIBUTE_AFTER_MS; "off" = never): shorter bases cost less alone than their coordination.
+    ...(distributeAfter(options.distributeAfterMs) !== undefined ? { distributeAfterMs: distributeAfter(options.distributeAfterMs) } : {}),
   };
   const staleAfterMs = options.staleAfterMs ?? 30_000;
 
   const workIds: string[] = [];
-  for (let i = 0; i < (options.concurrency ?? 1); i++) {
+  for (let i = 0; i < (options.jobs === false ? 0 : (options.concurrency ?? 1)); i++) {
     workIds.push(
       await boss.work<JobMessage>(QUEUE, { batchSize: 1, pollingIntervalSeconds: options.pollSeconds ?? 1 }, async ([job]) => {
         if (!job) return;
         const status = await processJob(db, job.data.analysisId, processOptions);
         if (status) log(`${job.data.analysisId}: ${status}`);
+      }),
+    );
+  }
+
+  // Child jobs of distributed bases (coordinator.server.ts): one at a time, in this worker's task process.
+  const runner = new TaskRunner();
+  let stopping = false;
+  if (options.images !== false) {
+    workIds.push(
+      await boss.work<TaskMessage>(IMAGE_QUEUE, { batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => {
+        if (!job) return;
+        const task = (data: TaskMessage) => processTask(db, data, { workerId: id, runner, heartbeatMs: processOptions.heartbeatMs, onTaskStarted: options.onTaskStarted });
+        const what = await task(job.data);
+        if (options.logTasks) log(what);
+        // pg-boss's loop waits out its polling interval even after a job (0.5 s at least), far
+        // longer than a small image takes: keep fetching (claim with expiry, complete or fail,
+        // as the loop would) while tasks are waiting.
+        while (!stopping) {
+          const [next] = (await boss.fetch<TaskMessage>(IMAGE_QUEUE, { batchSize: 1 })) ?? [];
+          if (!next) break;
+          try {
+            const more = await task(next.data);
+            await boss.complete(IMAGE_QUEUE, next.id);
+            if (options.logTasks) log(more);
+          } catch (e) {
+            await boss.fail(IMAGE_QUEUE, next.id, { message: (e as Error).message });
+          }
+        }
       }),
     );
   }
@@ -66,6 +116,7 @@ export async function startWorker(options: WorkerOptions): Promise<RunningWorker
       }
       for (const f of failed) log(`${f}: its worker stopped responding; settled (no attempts left, or cancelled)`);
       for (const r of await orphanedQueuedJobs(db, 5 * 60_000)) await enqueue(options.databaseUrl, r.id, r.timeLimitSeconds);
+      await cancelOrphanedRuns(db, options.databaseUrl);
     } catch (e) {
       log(`sweep failed: ${(e as Error).message}`);
     }
@@ -94,6 +145,7 @@ export async function startWorker(options: WorkerOptions): Promise<RunningWorker
   return {
     id,
     async stop() {
+      stopping = true;
       clearInterval(sweeper);
       clearInterval(structures);
       while (structuresBusy) await new Promise((r) => setTimeout(r, 20));
@@ -101,6 +153,7 @@ export async function startWorker(options: WorkerOptions): Promise<RunningWorker
       // Hand running jobs back before killing their processes, so no final write can land.
       const released = await releaseRunningJobs(db, id).catch(() => []);
       stopAllChildren("the worker is stopping");
+      runner.kill();
       for (const r of released) {
         log(`${r.id}: handed back to the queue`);
         await enqueue(options.databaseUrl, r.id, r.timeLimitSeconds).catch(() => undefined);
@@ -112,7 +165,12 @@ export async function startWorker(options: WorkerOptions): Promise<RunningWorker
 }
 
 if (import.meta.url === pathToFileURL(process.argv[1] ?? "").href) {
-  const worker = await startWorker({ databaseUrl: getEnv().databaseUrl, concurrency: Number(process.env.WORKER_CONCURRENCY ?? 1) });
+  // WORKER_QUEUES: "jobs,images" (default), "images" for a machine that only lends its cores to distributed bases.
+  const queues = (process.env.WORKER_QUEUES ?? "jobs,images").split(",").map((q) => q.trim());
+  const worker = await startWorker({
+    databaseUrl: getEnv().databaseUrl, concurrency: Number(process.env.WORKER_CONCURRENCY ?? 1),
+    jobs: queues.includes("jobs"), images: queues.includes("images"), logTasks: process.env.WORKER_LOG_TASKS === "1",
+  });
   const shutdown = async () => {
     await worker.stop().catch(() => undefined);
     process.exit(0);

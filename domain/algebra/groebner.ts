@@ -1,5 +1,7 @@
 import { AlgebraError } from "./errors";
 import { isPrimeField, isRationalField } from "./field";
+import type { DistributionHook } from "./f4/distribution";
+import { distributedOrLocal } from "./f4/distribution";
 import { multiModularGroebnerQQ } from "./f4/multimodular";
 import { f4GroebnerModP, f4SupportsPrime } from "./f4/prime-field";
 import type { SelectionStrategy } from "./groebner/buchberger";
@@ -37,6 +39,12 @@ export interface GroebnerOptions extends LimitOptions {
    * Buchberger's algorithm in lex).
    */
   readonly fglm?: boolean;
+  /**
+   * Over Q, degree-compatible orders (also the grevlex step of lex and block orders): a basis whose
+   * first image modulo a prime takes at least `thresholdMs` is handed to the caller to compute on
+   * many machines (f4/distribution.ts); its proven result comes back in `known`.
+   */
+  readonly distribution?: DistributionHook;
 }
 
 export function ringOf<C>(polys: readonly Polynomial<C>[], what: string): PolynomialRing<C> {
@@ -82,6 +90,10 @@ export function groebnerBasis<C>(polys: readonly Polynomial<C>[], options: Groeb
       // Positive-dimensional ideal in a lex or block order (parameters in a lower block).
       const viaBlock = blockOrderQQ(qpolys, grevlex as unknown as Polynomial<Rational>[], strategy, options, limits, method);
       if (viaBlock) return viaBlock as unknown as Polynomial<C>[];
+    }
+    if (options.distribution && isDegreeCompatible(ring)) {
+      const known = distributedOrLocal(qpolys, limits, options.distribution);
+      if (known) return known as unknown as Polynomial<C>[];
     }
     const viaF4 = method === "f4" && isDegreeCompatible(ring) ? multiModularGroebnerQQ(qpolys, limits) : null;
     const result = viaF4 ?? (method === "buchberger"

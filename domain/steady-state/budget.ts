@@ -1,5 +1,6 @@
 import { AlgebraError } from "../algebra/index";
 import type { GroebnerOptions, LimitOptions } from "../algebra/index";
+import type { DistributionHook } from "../algebra/f4/distribution";
 
 /** What analyseNetwork reports while it works. */
 export interface AnalysisProgress {
@@ -13,6 +14,8 @@ export interface BudgetOptions extends Pick<LimitOptions, "deadline" | "maxBasis
   /** Relative time limit in ms (default 30 000). */
   readonly timeoutMs?: number;
   readonly onProgress?: (p: AnalysisProgress) => void;
+  /** Large bases over Q may be computed on many machines (f4/distribution.ts); passed to every Gröbner phase. */
+  readonly distribution?: DistributionHook;
 }
 
 /**
@@ -36,6 +39,7 @@ export class Budget {
       signal: this.options.signal,
       maxBasisSize: this.options.maxBasisSize,
       maxTerms: this.options.maxTerms,
+      ...(this.options.distribution ? { distribution: this.options.distribution } : {}),
       onProgress: this.options.onProgress
         ? (p) => {
             const now = Date.now();

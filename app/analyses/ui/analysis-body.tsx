@@ -3,6 +3,7 @@ import { Assumptions, ResultsView } from "./results-view";
 import { RelationPanel, ScanPanel, TimeCoursePanel } from "./follow-ups";
 import { AnalysedNetworkView } from "./analysed-network-view";
 import { ProgressPanel } from "./progress-panel";
+import { DistributedRuns } from "./distributed-runs";
 import { StatusBadge } from "./status";
 import { isNotReached, stageLabel } from "../stages";
 
@@ -62,6 +63,7 @@ export function AnalysisBody({ d, canEdit, exportBase, scanCsvBase }: { d: Analy
         </div>
       </dl>
       <ProgressPanel job={d.job} canCancel={canEdit} />
+      <DistributedRuns runs={d.distributed} />
       {d.job.error && (
         <p role="alert" className="rounded-md border border-danger bg-danger-soft px-4 py-3 text-sm text-danger" data-testid="job-error">
           {d.job.error}

@@ -1,8 +1,11 @@
+import { AlgebraError } from "../errors";
+import { QQ } from "../field";
 import type { MonomialComparator } from "../order";
 import { makeComparator } from "../order";
 import type { Polynomial } from "../polynomial";
 import { normalizeTerms } from "../polynomial";
 import type { Rational } from "../rational";
+import { PolynomialRing } from "../ring";
 import { integerCoefficients } from "../groebner/coefficients";
 import { clearDenominators, toEngine } from "../groebner/convert";
 import type { Limits } from "../groebner/limits";
@@ -65,6 +68,346 @@ interface Group {
 }
 
 /**
+ * What every worker needs to compute one image or one proof batch, as plain data: variables,
+ * order and generators as exact text (ring.format / ring.parse round-trip exactly), and for lex
+ * and block orders the proven grevlex basis that step 3 of the proof checks membership against.
+ */
+export interface MultiModularInput {
+  readonly vars: readonly string[];
+  readonly order: string;
+  readonly polys: readonly string[];
+  readonly reference?: readonly string[];
+}
+
+/**
+ * The reduced basis modulo one prime, as plain data: element e has `lengths[e]` terms (decreasing
+ * in the order, so its first term is its leading monomial); `exps` holds their packed exponent
+ * vectors [degree, e_1..e_n] one after another, `coeffs` their residues. encodeImage makes bytes of it.
+ */
+export interface ModularImage {
+  readonly p: number;
+  readonly n: number;
+  readonly lengths: Int32Array;
+  readonly exps: Int32Array;
+  readonly coeffs: Int32Array;
+}
+
+/** A lifted basis that agreed with a fresh prime, not yet proven: the elements as exact text, and the primes used. */
+export interface LiftCandidate {
+  readonly basis: readonly string[];
+  /** Primes whose images were combined (lucky), in the order used. */
+  readonly primes: readonly number[];
+  /** Primes set aside as unlucky (another leading-monomial set). */
+  readonly unlucky: readonly number[];
+  /** The fresh prime the lift agreed with. */
+  readonly checkedWith: number;
+}
+
+/**
+ * One independent part of the exact proof (see multiModularGroebnerQQ): the S-pairs of
+ * Buchberger's criterion whose index is `index` modulo `of`; every input reduces to zero; step 3
+ * (Hilbert functions at prime `p`, or membership in the reference basis).
+ */
+export type ProofBatch =
+  | { readonly kind: "pairs"; readonly index: number; readonly of: number }
+  | { readonly kind: "inputs" }
+  | { readonly kind: "hilbert"; readonly p: number }
+  | { readonly kind: "membership" };
+
+export type ProofOutcome = { readonly ok: true } | { readonly ok: false; readonly failed: NonNullable<MultiModularStats["failed"]> };
+
+/** The input's ring, integer generators and monomial table, built once per input object and process. */
+interface Prepared {
+  readonly ring: PolynomialRing<Rational>;
+  readonly graded: boolean;
+  readonly integer: EPoly<bigint>[];
+  readonly T: MonomialTable;
+  readonly inputMons: Int32Array[];
+  readonly reference: Polynomial<Rational>[] | null;
+  /** Step 3's h-free leads per prime (the single-process run computes them with its first image). */
+  readonly hFree: Map<number, HFreeLeads>;
+  /** Parsed candidates, so the single-process run does not re-parse its own. */
+  readonly parsed: WeakMap<LiftCandidate, Polynomial<Rational>[]>;
+  /** The same, primitive over Z and sorted, as the proof batches use them. */
+  readonly integerCandidates: WeakMap<LiftCandidate, EPoly<bigint>[]>;
+}
+
+const prepared = new WeakMap<MultiModularInput, Prepared>();
+
+/** The plain-data input for `polys` (and a grevlex `reference` for lex and block orders). */
+export function multiModularInput(polys: readonly Polynomial<Rational>[], reference?: readonly Polynomial<Rational>[]): MultiModularInput {
+  const ring = polys[0].ring;
+  const nonzero = polys.filter((p) => p.coeffs.length > 0);
+  const input: MultiModularInput = {
+    vars: [...ring.vars],
+    order: ring.orderName,
+    polys: nonzero.map((p) => ring.format(p)),
+    ...(reference ? { reference: reference.map((r) => r.ring.format(r)) } : {}),
+  };
+  prepared.set(input, prepare(ring, nonzero, reference ? [...reference] : null));
+  return input;
+}
+
+function prepare(ring: PolynomialRing<Rational>, polys: readonly Polynomial<Rational>[], reference: Polynomial<Rational>[] | null): Prepared {
+  const n = ring.n;
+  const integer = polys.filter((p) => p.coeffs.length > 0).map((p) => clearDenominators(toEngine(p)));
+  const T = new MonomialTable(n);
+  const inputMons = integer.map((f) => {
+    const mons = new Int32Array(f.coeffs.length);
+    for (let t = 0; t < mons.length; t++) mons[t] = T.intern(f.exps, t * (n + 1));
+    return mons;
+  });
+  const graded = isGradedOrder(ring as Polynomial<unknown>["ring"]);
+  return { ring, graded, integer, T, inputMons, reference, hFree: new Map(), parsed: new WeakMap(), integerCandidates: new WeakMap() };
+}
+
+function preparedFor(input: MultiModularInput): Prepared {
+  let p = prepared.get(input);
+  if (!p) {
+    const ring = new PolynomialRing(input.vars, QQ, input.order);
+    const reference = input.reference ? input.reference.map((r) => ring.withOrder("grevlex").parse(r)) : null;
+    p = prepare(ring, input.polys.map((s) => ring.parse(s)), reference);
+    prepared.set(input, p);
+  }
+  return p;
+}
+
+/**
+ * Whether the input can be lifted at all: graded orders always (step 3 by Hilbert functions),
+ * others only with a reference basis.
+ */
+export function canLift(input: MultiModularInput): boolean {
+  return preparedFor(input).graded || preparedFor(input).reference !== null;
+}
+
+/**
+ * The primes to lift with, in the order every run uses them (largest first below 2^21), without
+ * those dividing a leading coefficient of an integer generator (they change a leading monomial).
+ * The same sequence on every worker, so which primes a run uses does not depend on who computed them.
+ */
+export function* liftPrimes(input: MultiModularInput): Generator<number> {
+  const { integer } = preparedFor(input);
+  for (const p of primesBelow(LIFT_PRIME_LIMIT)) {
+    const P = BigInt(p);
+    if (integer.some((f) => f.coeffs[0] % P === 0n)) continue;
+    yield p;
+  }
+}
+
+/** The reduced basis modulo p by F4 (f4.ts), as plain data. `prime` only labels progress. */
+export function imageModPrime(input: MultiModularInput, p: number, limits: Limits, prime?: { k: number; of: number }, f4stats?: F4Stats): ModularImage {
+  const pr = preparedFor(input);
+  const { T, integer, inputMons } = pr;
+  const n = pr.ring.n, S = n + 1;
+  const P = BigInt(p);
+  const polys: F4Poly[] = integer.map((f, i) => {
+    const coeffs = new Int32Array(f.coeffs.length);
+    for (let t = 0; t < coeffs.length; t++) {
+      let c = Number(f.coeffs[t] % P);
+      if (c < 0) c += p;
+      coeffs[t] = c;
+    }
+    return dropZeros(inputMons[i], coeffs);
+  });
+  const Gp = f4ModP(polys, T, p, pr.ring.cmp, { limits, sugared: !pr.graded, ...(prime ? { prime } : {}) }, f4stats ?? { matrices: 0, rows: 0, maxRows: 0, maxColumns: 0 });
+  let terms = 0;
+  for (const g of Gp) terms += g.mons.length;
+  const lengths = new Int32Array(Gp.length), exps = new Int32Array(terms * S), coeffs = new Int32Array(terms);
+  let t = 0;
+  Gp.forEach((g, e) => {
+    lengths[e] = g.mons.length;
+    for (let i = 0; i < g.mons.length; i++, t++) {
+      exps.set(T.exps.subarray(g.mons[i] * S, g.mons[i] * S + S), t * S);
+      coeffs[t] = g.coeffs[i];
+    }
+  });
+  return { p, n, lengths, exps, coeffs };
+}
+
+/** The image's elements as F4 polynomials in the input's monomial table. */
+function imagePolys(pr: Prepared, image: ModularImage): F4Poly[] {
+  const S = image.n + 1;
+  const out: F4Poly[] = [];
+  let t = 0;
+  for (let e = 0; e < image.lengths.length; e++) {
+    const len = image.lengths[e];
+    const mons = new Int32Array(len);
+    for (let i = 0; i < len; i++) mons[i] = pr.T.intern(image.exps, (t + i) * S);
+    out.push({ mons, coeffs: image.coeffs.slice(t, t + len) });
+    t += len;
+  }
+  return out;
+}
+
+/**
+ * Chinese remaindering and rational reconstruction over images that arrive in liftPrimes order
+ * (the caller adds them in that order, so the outcome is the same however many workers computed
+ * them). `add` returns the candidate once the lift agrees with the image just added (a fresh
+ * prime), else null. Images whose leading-monomial set is not the most frequent one are unlucky:
+ * kept apart, never combined with the others.
+ */
+export class ImageLifter {
+  private readonly pr: Prepared;
+  private readonly groups = new Map<string, Group & { primes: number[] }>();
+  private readonly seen: number[] = [];
+  /** Time spent combining and reconstructing (ms). */
+  liftMs = 0;
+  constructor(readonly input: MultiModularInput, private readonly tick: () => void = () => undefined) {
+    this.pr = preparedFor(input);
+  }
+
+  /** Images combined so far (the one a candidate agreed with is not). */
+  get count(): number {
+    return this.seen.length;
+  }
+
+  /** Images combined but set aside so far (not in the most frequent leading-monomial set). */
+  get unlucky(): number {
+    let best = 0;
+    for (const g of this.groups.values()) best = Math.max(best, g.count);
+    return this.seen.length - best;
+  }
+
+  add(image: ModularImage): LiftCandidate | null {
+    const t0 = Date.now();
+    try {
+      const Gp = imagePolys(this.pr, image);
+      const key = Gp.map((g) => g.mons[0]).join(",");
+      let group = this.groups.get(key);
+      if (group && group.candidate && agreesModP(group.candidate, Gp, image.p)) {
+        const { ring } = this.pr;
+        const G = group.candidate.map((g) => normalizeTerms(ring, g.coeffs, this.pr.T.packed(g.mons)));
+        G.sort((a, b) => ring.cmp(a.exps, 0, b.exps, 0));
+        const unlucky = this.seen.filter((p) => !group!.primes.includes(p));
+        const cand: LiftCandidate = { basis: G.map((g) => ring.format(g)), primes: [...group.primes], unlucky, checkedWith: image.p };
+        this.pr.parsed.set(cand, G);
+        return cand;
+      }
+      if (!group) {
+        group = { count: 0, M: 1n, elems: Gp.map(() => ({ mons: [], index: new Map(), vals: [] })), candidate: null, failedAt: [0, 0], primes: [] };
+        this.groups.set(key, group);
+      }
+      this.seen.push(image.p);
+      combine(group, Gp, image.p);
+      group.primes.push(image.p);
+      let best: Group = group;
+      for (const g of this.groups.values()) if (g.count > best.count) best = g;
+      if (best === group) group.candidate = reconstruct(group, this.tick);
+      return null;
+    } finally {
+      this.liftMs += Date.now() - t0;
+    }
+  }
+}
+
+/** The candidate from images in liftPrimes order, or null while the lift is not yet stable. */
+export function liftImages(input: MultiModularInput, images: readonly ModularImage[], tick?: () => void): LiftCandidate | null {
+  const lifter = new ImageLifter(input, tick);
+  for (const image of images) {
+    const c = lifter.add(image);
+    if (c) return c;
+  }
+  return null;
+}
+
+/**
+ * The proof of `candidate` cut into independent batches: the criterion's S-pairs in `pairBatches`
+ * strided parts (stride, not ranges: neighbouring pairs have similar degrees, so each part gets a
+ * fair share of the hard ones), the inputs, and step 3. The candidate is proven iff every batch is.
+ */
+export function proofBatches(input: MultiModularInput, candidate: LiftCandidate, pairBatches = 1): ProofBatch[] {
+  const pr = preparedFor(input);
+  const of = Math.max(1, Math.floor(pairBatches));
+  return [
+    ...Array.from({ length: of }, (_, index) => ({ kind: "pairs", index, of }) as const),
+    { kind: "inputs" } as const,
+    pr.graded ? ({ kind: "hilbert", p: liftPrimes(input).next().value as number } as const) : ({ kind: "membership" } as const),
+  ];
+}
+
+/** Step 3's h-free leads at prime p (computed once per input, prime and process). */
+function hFreeAt(pr: Prepared, p: number, limits: Limits): HFreeLeads {
+  let h = pr.hFree.get(p);
+  if (!h) {
+    h = homogenisedLeads(pr.integer, p, pr.ring.order[0].kind === "grlex", limits);
+    pr.hFree.set(p, h);
+  }
+  return h;
+}
+
+/** The candidate's elements as polynomials (parsed once per process). */
+function candidatePolys(pr: Prepared, candidate: LiftCandidate): Polynomial<Rational>[] {
+  let G = pr.parsed.get(candidate);
+  if (!G) {
+    G = candidate.basis.map((s) => pr.ring.parse(s));
+    pr.parsed.set(candidate, G);
+  }
+  return G;
+}
+
+/** Proves one batch of proofBatches exactly (see multiModularGroebnerQQ's docblock for why it suffices). */
+export function proveBatch(input: MultiModularInput, candidate: LiftCandidate, batch: ProofBatch, limits: Limits): ProofOutcome {
+  const pr = preparedFor(input);
+  const ring = pr.ring;
+  const n = ring.n, cmp = ring.cmp, K = integerCoefficients;
+  const G = candidatePolys(pr, candidate);
+  if (batch.kind === "hilbert") {
+    return leadsCovered(G.map((g) => g.exps), hFreeAt(pr, batch.p, limits)) ? { ok: true } : { ok: false, failed: "hilbert" };
+  }
+  let Gz = pr.integerCandidates.get(candidate);
+  if (!Gz) {
+    Gz = G.map((g) => {
+      const z = clearDenominators(toEngine(g));
+      K.normalize(z.coeffs, () => limits.checkTime()); // primitive: smaller numbers in the reductions
+      return z;
+    });
+    Gz.sort((a, b) => cmp(a.exps, 0, b.exps, 0));
+    pr.integerCandidates.set(candidate, Gz); // the next batch in this process starts from here
+  }
+  if (batch.kind === "pairs") {
+    return verifyGroebner(Gz, K, n, cmp, limits, { index: batch.index, of: batch.of }) ? { ok: true } : { ok: false, failed: "groebner" };
+  }
+  if (batch.kind === "inputs") {
+    const reducers = Gz.map((g) => toReducer(g, n));
+    const top = new ReductionKernel(K, n, cmp, () => limits.checkTime(), false);
+    for (const f of pr.integer) {
+      const coeffs = f.coeffs.slice();
+      if (top.reduce({ coeffs, exps: f.exps }, reducers, false).coeffs.length !== 0) return { ok: false, failed: "inputs" };
+    }
+    return { ok: true };
+  }
+  return pr.reference && allMembers(Gz, pr.reference, limits) ? { ok: true } : { ok: false, failed: "membership" };
+}
+
+/** The proven basis as polynomials of the input's ring, sorted by increasing leading monomial. */
+export function candidateBasis(input: MultiModularInput, candidate: LiftCandidate): Polynomial<Rational>[] {
+  return candidatePolys(preparedFor(input), candidate).slice();
+}
+
+/** Bytes of an image for storage: a header (p, n, elements, terms) and the three arrays, little-endian int32. */
+export function encodeImage(image: ModularImage): Uint8Array {
+  const terms = image.coeffs.length;
+  const out = new Int32Array(4 + image.lengths.length + image.exps.length + terms);
+  out[0] = image.p; out[1] = image.n; out[2] = image.lengths.length; out[3] = terms;
+  out.set(image.lengths, 4);
+  out.set(image.exps, 4 + image.lengths.length);
+  out.set(image.coeffs, 4 + image.lengths.length + image.exps.length);
+  return new Uint8Array(out.buffer);
+}
+
+export function decodeImage(bytes: Uint8Array): ModularImage {
+  const copy = new Uint8Array(bytes.byteLength);
+  copy.set(bytes);
+  const a = new Int32Array(copy.buffer);
+  const [p, n, elems, terms] = [a[0], a[1], a[2], a[3]];
+  if (a.length !== 4 + elems + terms * (n + 1) + terms) throw new AlgebraError("domain", "modular image: stored bytes do not match their header");
+  const lengths = a.slice(4, 4 + elems);
+  const exps = a.slice(4 + elems, 4 + elems + terms * (n + 1));
+  const coeffs = a.slice(4 + elems + terms * (n + 1));
+  return { p, n, lengths, exps, coeffs };
+}
+
+/**
  * Reduced Gröbner basis over Q by multi-modular F4 (Arnold, "Modular algorithms for computing
  * Gröbner bases", J. Symbolic Comput. 35, 2003; Idrees, Pfister and Steidel, "Parallelization of
  * modular algorithms", J. Symbolic Comput. 46, 2011): the reduced basis modulo primes p < 2^21 by
@@ -99,79 +442,86 @@ export function multiModularGroebnerQQ(
   limits: Limits,
   options: MultiModularOptions = {},
 ): Polynomial<Rational>[] | null {
-  const ring = polys[0].ring;
-  const n = ring.n, cmp = ring.cmp;
   const stats: MultiModularStats = options.stats ?? { primes: 0, unlucky: 0, modularMs: 0, liftMs: 0, proofMs: 0 };
   const maxPrimes = options.maxPrimes ?? 1000;
-  const graded = isGradedOrder(ring as Polynomial<unknown>["ring"]);
-  if (!graded && !options.reference) return null;
-  const integer = polys.filter((p) => p.coeffs.length > 0).map((p) => clearDenominators(toEngine(p)));
-  const T = new MonomialTable(n);
-  const inputMons = integer.map((f) => {
-    const mons = new Int32Array(f.coeffs.length);
-    for (let t = 0; t < mons.length; t++) mons[t] = T.intern(f.exps, t * (n + 1));
-    return mons;
-  });
-  const groups = new Map<string, Group>();
+  const input = multiModularInput(polys, options.reference);
+  if (!canLift(input)) return null;
+  const graded = isGradedOrder(polys[0].ring as Polynomial<unknown>["ring"]);
   const f4stats: F4Stats = { matrices: 0, rows: 0, maxRows: 0, maxColumns: 0 };
-  let result: { mons: number[]; coeffs: Rational[] }[] | null = null;
-  let hFree: HFreeLeads | null = null;
+  const lifter = new ImageLifter(input, () => limits.checkTime());
+  let candidate: LiftCandidate | null = null;
   let k = 0;
-  for (const p of primesBelow(LIFT_PRIME_LIMIT)) {
+  for (const p of liftPrimes(input)) {
     if (k >= maxPrimes) { stats.failed = "primes"; return null; }
     limits.checkTime();
-    const P = BigInt(p);
-    // A prime dividing a leading coefficient changes a leading monomial: unlucky, skip it.
-    if (integer.some((f) => f.coeffs[0] % P === 0n)) continue;
     k++;
     stats.primes = k;
     const t0 = Date.now();
-    const input: F4Poly[] = integer.map((f, i) => {
-      const coeffs = new Int32Array(f.coeffs.length);
-      for (let t = 0; t < coeffs.length; t++) {
-        let c = Number(f.coeffs[t] % P);
-        if (c < 0) c += p;
-        coeffs[t] = c;
-      }
-      return dropZeros(inputMons[i], coeffs);
-    });
-    const Gp = f4ModP(input, T, p, cmp, { limits, sugared: !graded, prime: { k, of: maxPrimes } }, f4stats);
-    if (graded && hFree === null) {
+    const image = imageModPrime(input, p, limits, { k, of: maxPrimes }, f4stats);
+    stats.modularMs += Date.now() - t0;
+    if (graded && k === 1) {
       // Step 3 first, as it needs only residues: when it cannot succeed, do not lift at all.
       const th = Date.now();
-      hFree = homogenisedLeads(integer, p, ring.order[0].kind === "grlex", limits);
+      const covered = leadsOfImageCovered(input, image, limits);
       stats.proofMs += Date.now() - th;
-      if (!leadsCovered(Gp.map((g) => T.packed([g.mons[0]])), hFree)) { stats.failed = "hilbert"; return null; }
+      if (!covered) { stats.failed = "hilbert"; return null; }
     }
-    stats.modularMs += Date.now() - t0;
-    const t1 = Date.now();
-    const key = Gp.map((g) => g.mons[0]).join(",");
-    let group = groups.get(key);
-    if (group && group.candidate && agreesModP(group.candidate, Gp, p)) {
-      result = group.candidate;
-      stats.liftMs += Date.now() - t1;
-      break;
-    }
-    if (!group) {
-      group = { count: 0, M: 1n, elems: Gp.map(() => ({ mons: [], index: new Map(), vals: [] })), candidate: null, failedAt: [0, 0] };
-      groups.set(key, group);
-    }
-    combine(group, Gp, p);
-    let best: Group = group;
-    for (const g of groups.values()) if (g.count > best.count) best = g;
-    stats.unlucky = k - best.count;
-    if (best === group) group.candidate = reconstruct(group, () => limits.checkTime());
-    stats.liftMs += Date.now() - t1;
+    candidate = lifter.add(image);
+    stats.unlucky = lifter.unlucky;
+    if (candidate) break;
   }
-  if (!result) return null;
+  stats.liftMs += lifter.liftMs;
+  if (!candidate) return null;
 
   const t2 = Date.now();
-  const G: Polynomial<Rational>[] = result.map((g) => normalizeTerms(ring, g.coeffs, T.packed(g.mons)));
-  const proven = prove(G, integer, graded ? { hFree: hFree! } : { reference: options.reference! }, limits, stats);
-  stats.proofMs += Date.now() - t2;
-  if (!proven) return null;
-  G.sort((a, b) => cmp(a.exps, 0, b.exps, 0));
-  return G;
+  try {
+    for (const batch of proofBatches(input, candidate)) {
+      const tb = Date.now();
+      const outcome = proveBatch(input, candidate, batch, limits);
+      if (batch.kind === "pairs") stats.criterionMs = (stats.criterionMs ?? 0) + Date.now() - tb;
+      if (!outcome.ok) { stats.failed = outcome.failed; return null; }
+    }
+  } finally {
+    stats.proofMs += Date.now() - t2;
+  }
+  return candidateBasis(input, candidate);
+}
+
+/**
+ * The early step-3 check on an image (graded orders; true otherwise): are its leading monomials
+ * covered by the h-free leads at its prime? When not, the proof cannot succeed, so do not lift.
+ */
+export function imagePassesHilbert(input: MultiModularInput, image: ModularImage, limits: Limits): boolean {
+  return !preparedFor(input).graded || leadsOfImageCovered(input, image, limits);
+}
+
+/**
+ * A stand-in candidate made of the image's leading monomials only: enough for the step-3 batch
+ * `{ kind: "hilbert", p: image.p }`, which looks at leading monomials alone, so that this early
+ * check (proven impossible = do not lift) can run on another machine.
+ */
+export function leadsCandidate(input: MultiModularInput, image: ModularImage): LiftCandidate {
+  const ring = preparedFor(input).ring;
+  const S = image.n + 1;
+  const basis: string[] = [];
+  let t = 0;
+  for (let e = 0; e < image.lengths.length; e++) {
+    basis.push(ring.format(normalizeTerms(ring, [QQ.one], image.exps.slice(t * S, t * S + S))));
+    t += image.lengths[e];
+  }
+  return { basis, primes: [], unlucky: [], checkedWith: image.p };
+}
+
+function leadsOfImageCovered(input: MultiModularInput, image: ModularImage, limits: Limits): boolean {
+  const h = hFreeAt(preparedFor(input), image.p, limits);
+  const S = image.n + 1;
+  const leads: Int32Array[] = [];
+  let t = 0;
+  for (let e = 0; e < image.lengths.length; e++) {
+    leads.push(image.exps.subarray(t * S, t * S + S));
+    t += image.lengths[e];
+  }
+  return leadsCovered(leads, h);
 }
 
 function dropZeros(mons: Int32Array, coeffs: Int32Array): F4Poly {
@@ -242,37 +592,6 @@ function agreesModP(cand: readonly { mons: number[]; coeffs: Rational[] }[], Gp:
     if (got.size !== g.mons.length) return false;
     for (let t = 0; t < g.mons.length; t++) if (got.get(g.mons[t]) !== g.coeffs[t]) return false;
   }
-  return true;
-}
-
-/** The three proof steps of multiModularGroebnerQQ's docblock; false when one fails. */
-function prove(
-  G: readonly Polynomial<Rational>[],
-  integer: readonly EPoly<bigint>[],
-  containment: { hFree: HFreeLeads } | { reference: readonly Polynomial<Rational>[] },
-  limits: Limits,
-  stats: MultiModularStats,
-): boolean {
-  const ring = G[0].ring;
-  const n = ring.n, cmp = ring.cmp, K = integerCoefficients;
-  const Gz = G.map((g) => {
-    const z = clearDenominators(toEngine(g));
-    K.normalize(z.coeffs, () => limits.checkTime()); // primitive: smaller numbers in the reductions
-    return z;
-  });
-  Gz.sort((a, b) => cmp(a.exps, 0, b.exps, 0));
-  const tv = Date.now();
-  if (!verifyGroebner(Gz, K, n, cmp, limits)) { stats.failed = "groebner"; return false; }
-  stats.criterionMs = Date.now() - tv;
-  const reducers = Gz.map((g) => toReducer(g, n));
-  const top = new ReductionKernel(K, n, cmp, () => limits.checkTime(), false);
-  for (const f of integer) {
-    const coeffs = f.coeffs.slice();
-    if (top.reduce({ coeffs, exps: f.exps }, reducers, false).coeffs.length !== 0) { stats.failed = "inputs"; return false; }
-  }
-  if ("hFree" in containment) {
-    if (!leadsCovered(G.map((g) => g.exps), containment.hFree)) { stats.failed = "hilbert"; return false; }
-  } else if (!allMembers(Gz, containment.reference, limits)) { stats.failed = "membership"; return false; }
   return true;
 }
 

@@ -13,7 +13,9 @@ import { sPolynomialHead } from "./buchberger";
  * Bases, 1993, p. 232) started from G in which every remaining pair reduces to zero, so its output
  * G is a Gröbner basis (ibid., Theorem 5.66 — theorem number recalled from memory). Only top
  * reduction is needed: a polynomial reduces to zero iff its head-reductions do.
- * Returns false at the first S-polynomial that does not reduce to zero.
+ * Returns false at the first S-polynomial that does not reduce to zero. With `part`, only the
+ * pairs whose position in the (deterministic) pair list is `index` modulo `of`: the parts of one
+ * G together check every pair, so they can run on different machines.
  */
 export function verifyGroebner<C>(
   G: readonly EPoly<C>[],
@@ -21,6 +23,7 @@ export function verifyGroebner<C>(
   n: number,
   cmp: MonomialComparator,
   limits: Limits = new Limits(),
+  part: { readonly index: number; readonly of: number } = { index: 0, of: 1 },
 ): boolean {
   const entries: BasisEntry[] = [];
   let pairs: CriticalPair[] = [];
@@ -30,7 +33,8 @@ export function verifyGroebner<C>(
   }
   const reducers = G.map((g, i) => ({ g, live: entries[i].live })).filter((x) => x.live).map((x) => toReducer(x.g, n));
   const kernel = new ReductionKernel(K, n, cmp, () => limits.checkTime(), false);
-  for (const pair of pairs) {
+  for (let k = part.index; k < pairs.length; k += part.of) {
+    const pair = pairs[k];
     limits.checkTime();
     const s = sPolynomialHead(G[pair.i], pair.lcm, n);
     if (kernel.reduce(s, reducers, false, G[pair.j]).coeffs.length !== 0) return false;

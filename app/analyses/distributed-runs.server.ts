@@ -1,0 +1,48 @@
+/**
+ * The distributed bases of an analysis (app/jobs/coordinator.server.ts), as the page shows them:
+ * images done and needed, primes used and set aside, the workers that computed child jobs, the
+ * engine version, and why a run was not used.
+ */
+import type { DbExecutor } from "~/db/schema";
+
+export interface DistributedRunView {
+  id: string;
+  status: string;
+  imagesDone: number;
+  /** null while the lift is not yet stable. */
+  imagesNeeded: number | null;
+  primesUsed: number[];
+  unluckyPrimes: number[];
+  proofDone: number;
+  proofBatches: number;
+  /** Worker ids (host:process:tag); on a shared view only how many. */
+  workers: string[];
+  workerCount: number;
+  engineVersion: string;
+  error: string | null;
+}
+
+export async function distributedRunsOf(db: DbExecutor, analysisId: string, options: { sharedView: boolean }): Promise<DistributedRunView[]> {
+  const runs = await db.selectFrom("basis_runs").selectAll().where("analysis_id", "=", analysisId).orderBy("created_at").execute();
+  if (runs.length === 0) return [];
+  const tasks = await db.selectFrom("basis_tasks").select(["run_id", "kind", "status", "worker_id"]).where("run_id", "in", runs.map((r) => r.id)).execute();
+  return runs.map((r) => {
+    const mine = tasks.filter((t) => t.run_id === r.id);
+    const workers = [...new Set(mine.filter((t) => t.status === "done" && t.worker_id).map((t) => t.worker_id!))].sort();
+    const proof = mine.filter((t) => t.kind === "proof");
+    return {
+      id: r.id,
+      status: r.status,
+      imagesDone: r.images_done,
+      imagesNeeded: r.images_needed,
+      primesUsed: (r.primes_used as unknown as number[] | null) ?? [],
+      unluckyPrimes: (r.unlucky_primes as unknown as number[] | null) ?? [],
+      proofDone: proof.filter((t) => t.status === "done").length,
+      proofBatches: proof.length,
+      workers: options.sharedView ? [] : workers,
+      workerCount: workers.length,
+      engineVersion: r.engine_version,
+      error: r.error,
+    };
+  });
+}

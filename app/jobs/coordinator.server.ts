@@ -1,0 +1,269 @@
+/**
+ * The coordinator of a distributed multi-modular basis over Q (issue: one big computation on many
+ * workers). It runs in the process that needs the basis (an analysis' job process, or the bench),
+ * and does only the serial part itself:
+ *
+ *   1. records a basis_runs row and keeps `window` images ahead on the image queue (one
+ *      basis_tasks row + one pg-boss job per prime, in liftPrimes order, earlier primes first);
+ *   2. adds the images to the lift strictly in prime order as they arrive (CRT + rational
+ *      reconstruction, unlucky primes set aside by their leading monomials; ImageLifter), so the
+ *      primes used and the basis are the same whoever computed which image;
+ *   3. once the lift agrees with a fresh prime, cancels the images still queued and puts the
+ *      proof on the queue as S-pair batches plus the input and Hilbert/membership steps;
+ *   4. records the primes used and the engine version with the run.
+ *
+ * Scheduling is pg-boss's (priorities, retries, expiry of a dead worker's job, dead letters); a
+ * task whose job is dead-lettered is computed here instead, so a run never waits on a lost task.
+ */
+import { sql } from "kysely";
+import type { Kysely } from "kysely";
+import type { LiftCandidate, ModularImage, MultiModularInput, ProofBatch } from "@domain/algebra/f4/multimodular";
+import { ImageLifter, decodeImage, encodeImage, imageModPrime, leadsCandidate, liftPrimes, proofBatches, proveBatch } from "@domain/algebra/f4/multimodular";
+import { Limits } from "@domain/algebra/groebner/limits";
+import { ENGINE_VERSION } from "~/analyses/engine-version";
+import type { Database, JsonObject } from "~/db/schema";
+import { cancelRunJobs } from "./basis-tasks.server";
+import { enqueueTask } from "./queue.server";
+
+export interface CoordinatorOptions {
+  db: Kysely<Database>;
+  databaseUrl: string;
+  /** Who coordinates (worker id plus "coordinator"), recorded with the run. */
+  coordinatorId: string;
+  analysisId?: string | null;
+  /** Images kept on the queue beyond the next one the lift needs (default 6). */
+  window?: number;
+  /** Proof S-pair batches (default 8: more batches than workers balance uneven batches). */
+  pairBatches?: number;
+  /** The first image, when the caller already computed it (it decided to distribute on its time). */
+  firstImage?: { image: ModularImage; ms: number };
+  /** How long an active task may take before pg-boss fails it (its worker presumed dead) and retries it. */
+  taskExpireSeconds?: number;
+  pollMs?: number;
+  /** Deadline and cancellation of the whole run. */
+  limits?: Limits;
+  onProgress?: (p: DistributedProgress) => void;
+}
+
+export interface DistributedProgress {
+  runId: string;
+  stage: "images" | "proof";
+  imagesDone: number;
+  /** Known once the lift is stable; before that, at least imagesDone + 1. */
+  imagesNeeded: number | null;
+  proofDone: number;
+  proofBatches: number;
+  workers: string[];
+}
+
+export interface DistributedOutcome {
+  runId: string;
+  /** The proven basis as exact text in the input's ring (sorted by increasing leading monomial), or null. */
+  basis: string[] | null;
+  failed?: string;
+  primes: number[];
+  unlucky: number[];
+  engineVersion: string;
+  workers: string[];
+  /** Bytes of the stored images (mean) and time from enqueue to start (median, ms), for the bench. */
+  meanImageBytes: number;
+  medianWaitMs: number;
+  /** Median time from "could start" (enqueued and a worker free) to start (ms): the queue's own overhead. */
+  medianPickupMs: number;
+  /** Tasks and compute time (ms, inside the task process) per worker: how the work was split. */
+  computeByWorker?: Record<string, { tasks: number; ms: number }>;
+  timings: { imagesMs: number; liftMs: number; proofMs: number };
+}
+
+const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
+
+export async function distributedGroebner(input: MultiModularInput, o: CoordinatorOptions): Promise<DistributedOutcome> {
+  const { db } = o;
+  const limits = o.limits ?? new Limits();
+  const window = Math.max(1, o.window ?? 6);
+  const pollMs = o.pollMs ?? 50;
+  let polls = 0;
+  const expire = o.taskExpireSeconds ?? Math.max(60, 10 * ((o.firstImage?.ms ?? 5000) / 1000));
+  if (o.analysisId) {
+    // A run left by an earlier attempt of the same analysis (its process died): end it first.
+    const { cancelBasisRuns } = await import("./basis-tasks.server");
+    await cancelBasisRuns(db, o.databaseUrl, { analysisId: o.analysisId }, "superseded by a new attempt");
+  }
+  const run = await db
+    .insertInto("basis_runs")
+    .values({ analysis_id: o.analysisId ?? null, input: input as unknown as JsonObject, coordinator: o.coordinatorId, engine_version: ENGINE_VERSION })
+    .returning("id")
+    .executeTakeFirstOrThrow();
+  const runId = run.id;
+  const primes: number[] = [];
+  const primeGen = liftPrimes(input);
+  const primeAt = (i: number) => {
+    while (primes.length <= i) primes.push(primeGen.next().value as number);
+    return primes[i];
+  };
+  const enqueued = new Map<number, string>(); // seq -> task id
+  const enqueueImage = async (seq: number) => {
+    if (enqueued.has(seq)) return;
+    const row = await db.insertInto("basis_tasks").values({ run_id: runId, kind: "image", seq, prime: primeAt(seq) }).returning("id").executeTakeFirstOrThrow();
+    enqueued.set(seq, row.id);
+    // Earlier primes first: the lift takes them in order.
+    await enqueueTask(o.databaseUrl, { taskId: row.id, runId }, { priority: 1_000_000 - seq, expireInSeconds: expire });
+  };
+  const workers = async () =>
+    (await db.selectFrom("basis_tasks").select("worker_id").distinct().where("run_id", "=", runId).where("worker_id", "is not", null).execute())
+      .map((r) => r.worker_id!)
+      .sort();
+  const progress = async (p: Omit<DistributedProgress, "runId" | "workers">) => {
+    await db.updateTable("basis_runs").set({ images_done: p.imagesDone, images_needed: p.imagesNeeded }).where("id", "=", runId).execute();
+    o.onProgress?.({ runId, ...p, workers: await workers() });
+  };
+
+  try {
+    const lifter = new ImageLifter(input, () => limits.checkTime());
+    let candidate: LiftCandidate | null = null;
+    let seq = 0;
+    if (o.firstImage) {
+      // Stored like any other image, so the page and the bench count it.
+      const bytes = Buffer.from(encodeImage(o.firstImage.image));
+      await db.insertInto("basis_tasks").values({
+        run_id: runId, kind: "image", seq: 0, prime: primeAt(0), status: "done", worker_id: o.coordinatorId, attempts: 1, image: bytes,
+        bytes: bytes.byteLength, compute_ms: o.firstImage.ms, started_at: sql`now()`, finished_at: sql`now()`,
+      }).execute();
+      enqueued.set(0, "first");
+      if (o.firstImage.image.p !== primeAt(0)) throw new Error("distributedGroebner: the first image must be modulo the first lift prime");
+    }
+    const imagesStart = Date.now();
+    // Step 3 of the proof on the first image's leading monomials, beside the images: when it
+    // cannot succeed (the homogenised ideal is not saturated), stop before lifting, as the
+    // single-process run does. Graded orders only; lex and block orders prove membership instead.
+    let early: { id: string; batch: ProofBatch; leads: LiftCandidate } | null = null;
+    let proofSeq = 0;
+    const batchKinds = proofBatches(input, { basis: [], primes: [], unlucky: [], checkedWith: 0 }, 1).map((b) => b.kind);
+    let aborted: string | undefined;
+    while (!candidate) {
+      for (let s = seq; s < seq + window; s++) await enqueueImage(s);
+      const image = await waitForImage(runId, seq, () => computeLocally({ kind: "image", prime: primeAt(seq) }));
+      if (seq === 0 && batchKinds.includes("hilbert")) {
+        const leads = leadsCandidate(input, image);
+        const batch: ProofBatch = { kind: "hilbert", p: image.p };
+        const row = await db.insertInto("basis_tasks").values({ run_id: runId, kind: "proof", seq: proofSeq++, batch: { ...batch, leads: leads.basis } as unknown as JsonObject }).returning("id").executeTakeFirstOrThrow();
+        await enqueueTask(o.databaseUrl, { taskId: row.id, runId }, { priority: 2_000_001, expireInSeconds: expire * 4 });
+        early = { id: row.id, batch, leads };
+      }
+      if (early) {
+        const r = await db.selectFrom("basis_tasks").select(["status", "ok"]).where("id", "=", early.id).executeTakeFirstOrThrow();
+        if (r.status === "done" && r.ok === false) { aborted = "hilbert"; break; }
+      }
+      candidate = lifter.add(image);
+      seq++;
+      await progress({ stage: "images", imagesDone: seq, imagesNeeded: candidate ? seq : null, proofDone: 0, proofBatches: 0 });
+    }
+    if (!candidate && aborted) {
+      await cancelRunJobs(db, o.databaseUrl, runId);
+      await db.updateTable("basis_runs").set({ status: "failed", error: `proof step failed: ${aborted} (checked on the first image, before lifting)`, finished_at: sql`now()` }).where("id", "=", runId).execute();
+      return { runId, basis: null, failed: aborted, primes: [], unlucky: [], engineVersion: ENGINE_VERSION, workers: await workers(), meanImageBytes: 0, medianWaitMs: 0, medianPickupMs: 0, timings: { imagesMs: Date.now() - imagesStart, liftMs: lifter.liftMs, proofMs: 0 } };
+    }
+    if (!candidate) throw new Error("distributedGroebner: no candidate");
+    if (early) {
+      // The early check must pass too (it is what makes the lift worth proving).
+      const r = await waitForProof(early.id, () => computeLocally({ kind: "proof", batch: early!.batch }, early!.leads));
+      if (!r.ok) {
+        await cancelRunJobs(db, o.databaseUrl, runId);
+        await db.updateTable("basis_runs").set({ status: "failed", error: "proof step failed: hilbert (checked on the first image)", finished_at: sql`now()` }).where("id", "=", runId).execute();
+        return { runId, basis: null, failed: "hilbert", primes: [], unlucky: [], engineVersion: ENGINE_VERSION, workers: await workers(), meanImageBytes: 0, medianWaitMs: 0, medianPickupMs: 0, timings: { imagesMs: Date.now() - imagesStart, liftMs: lifter.liftMs, proofMs: 0 } };
+      }
+    }
+    const imagesMs = Date.now() - imagesStart;
+    // Images no longer needed: cancel those still queued (one a worker is computing finishes; its row is ignored).
+    const extra = [...enqueued.entries()].filter(([s]) => s >= seq).map(([, id]) => id);
+    await cancelRunJobs(db, o.databaseUrl, runId, extra);
+
+    const proofStart = Date.now();
+    const batches = proofBatches(input, candidate, o.pairBatches ?? 8);
+    // Arrays as JSON text: pg would send a JS array as a Postgres array.
+    const json = (x: unknown) => JSON.stringify(x) as unknown as JsonObject;
+    await db.updateTable("basis_runs").set({ candidate: json(candidate), primes_used: json(candidate.primes), unlucky_primes: json(candidate.unlucky) }).where("id", "=", runId).execute();
+    const proofIds: string[] = [];
+    for (const [i, batch] of batches.entries()) {
+      const row = await db.insertInto("basis_tasks").values({ run_id: runId, kind: "proof", seq: proofSeq++, batch: batch as unknown as JsonObject }).returning("id").executeTakeFirstOrThrow();
+      proofIds.push(row.id);
+      // Proof batches before any image of another run; the pairs (the long ones) first.
+      await enqueueTask(o.databaseUrl, { taskId: row.id, runId }, { priority: 2_000_000 - i, expireInSeconds: expire * 4 });
+    }
+    let failed: string | undefined;
+    let done = 0;
+    for (const [i, batch] of batches.entries()) {
+      const r = await waitForProof(proofIds[i], () => computeLocally({ kind: "proof", batch }, candidate!));
+      done++;
+      await progress({ stage: "proof", imagesDone: seq, imagesNeeded: seq, proofDone: done, proofBatches: batches.length });
+      if (!r.ok) {
+        failed = r.failed;
+        break;
+      }
+    }
+    const proofMs = Date.now() - proofStart;
+    await cancelRunJobs(db, o.databaseUrl, runId); // anything left (a failed proof stops early)
+    await db.updateTable("basis_runs").set({ status: failed ? "failed" : "succeeded", error: failed ? `proof step failed: ${failed}` : null, finished_at: sql`now()` }).where("id", "=", runId).execute();
+    const stats = await db.selectFrom("basis_tasks")
+      .select([sql<number>`avg(bytes)`.as("bytes"), sql<number>`percentile_cont(0.5) WITHIN GROUP (ORDER BY extract(epoch FROM started_at - enqueued_at) * 1000)`.as("wait")])
+      .where("run_id", "=", runId).where("status", "=", "done").where("worker_id", "<>", o.coordinatorId)
+      .executeTakeFirst();
+    // Pick-up latency: from the moment a task could start (enqueued, and its worker free again) to its start.
+    const pickup = await sql<{ ms: number | null }>`
+      SELECT percentile_cont(0.5) WITHIN GROUP (ORDER BY extract(epoch FROM started_at - greatest(enqueued_at, coalesce(prev, enqueued_at))) * 1000) AS ms
+      FROM (SELECT started_at, enqueued_at, lag(finished_at) OVER (PARTITION BY worker_id ORDER BY started_at) AS prev
+            FROM basis_tasks WHERE run_id = ${runId} AND status = 'done' AND worker_id <> ${o.coordinatorId}) x`.execute(db);
+    const split = await db.selectFrom("basis_tasks").select(["worker_id", sql<number>`sum(compute_ms)::int`.as("ms"), sql<number>`count(*)::int`.as("n")])
+      .where("run_id", "=", runId).where("status", "=", "done").where("worker_id", "is not", null).groupBy("worker_id").execute();
+    return {
+      computeByWorker: Object.fromEntries(split.map((r) => [r.worker_id!, { tasks: r.n, ms: r.ms }])),
+      medianPickupMs: Number(pickup.rows[0]?.ms ?? 0),
+      runId, basis: failed ? null : [...candidate.basis], ...(failed ? { failed } : {}), primes: [...candidate.primes], unlucky: [...candidate.unlucky],
+      engineVersion: ENGINE_VERSION, workers: await workers(), meanImageBytes: Number(stats?.bytes ?? 0), medianWaitMs: Number(stats?.wait ?? 0),
+      timings: { imagesMs, liftMs: lifter.liftMs, proofMs },
+    };
+  } catch (e) {
+    await db.updateTable("basis_runs").set({ status: "failed", error: (e as Error).message, finished_at: sql`now()` }).where("id", "=", runId).where("status", "=", "running").execute().catch(() => undefined);
+    await cancelRunJobs(db, o.databaseUrl, runId).catch(() => undefined);
+    throw e;
+  }
+
+  /** Waits for image `seq` of this run; computes it here if its job was dead-lettered or cancelled under it. */
+  async function waitForImage(run: string, s: number, local: () => Promise<ModularImage>): Promise<ModularImage> {
+    for (;;) {
+      limits.checkTime();
+      const t = await db.selectFrom("basis_tasks").select(["status", "image"]).where("run_id", "=", run).where("kind", "=", "image").where("seq", "=", s).executeTakeFirstOrThrow();
+      if (t.status === "done" && t.image) return decodeImage(new Uint8Array(t.image));
+      if (t.status === "failed" || (await deadLettered(enqueued.get(s)!))) return local();
+      await sleep(pollMs);
+    }
+  }
+
+  async function waitForProof(taskId: string, local: () => Promise<{ ok: boolean; failed?: string }>): Promise<{ ok: boolean; failed?: string }> {
+    for (;;) {
+      limits.checkTime();
+      const t = await db.selectFrom("basis_tasks").select(["status", "ok", "failed_step"]).where("id", "=", taskId).executeTakeFirstOrThrow();
+      if (t.status === "done") return { ok: t.ok === true, ...(t.failed_step ? { failed: t.failed_step } : {}) };
+      if (t.status === "failed" || (await deadLettered(taskId))) return local();
+      await sleep(pollMs);
+    }
+  }
+
+  /**
+   * A task whose job used up its retries (pg-boss moved it to the dead letter queue). Looked up
+   * about once a second, not at every poll: pgboss.job has no index on the task id.
+   */
+  async function deadLettered(taskId: string): Promise<boolean> {
+    if (++polls % Math.max(1, Math.round(1000 / pollMs)) !== 0) return false;
+    const { rows } = await sql<{ n: number }>`SELECT count(*)::int AS n FROM pgboss.job WHERE data->>'taskId' = ${taskId} AND state = 'failed'`.execute(db);
+    return (rows[0]?.n ?? 0) > 0;
+  }
+
+  async function computeLocally(what: { kind: "image"; prime: number }): Promise<ModularImage>;
+  async function computeLocally(what: { kind: "proof"; batch: ProofBatch }, c: LiftCandidate): Promise<{ ok: boolean; failed?: string }>;
+  async function computeLocally(what: { kind: "image"; prime: number } | { kind: "proof"; batch: ProofBatch }, c?: LiftCandidate): Promise<ModularImage | { ok: boolean; failed?: string }> {
+    if (what.kind === "image") return imageModPrime(input, what.prime, limits);
+    const r = proveBatch(input, c!, what.batch, limits);
+    return r.ok ? { ok: true } : { ok: false, failed: r.failed };
+  }
+}

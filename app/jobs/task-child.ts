@@ -1,0 +1,53 @@
+/**
+ * The long-lived process in which a worker computes basis tasks (one modular image or one proof
+ * batch of a distributed basis; app/jobs/task-runner.server.ts forks it). Long-lived so that a
+ * run's input is parsed once per worker, not once per image; killed (SIGKILL) when a run is
+ * cancelled mid-task, and forked again for the next one.
+ */
+import type { LiftCandidate, MultiModularInput, ProofBatch } from "@domain/algebra/f4/multimodular";
+import { encodeImage, imageModPrime, proveBatch } from "@domain/algebra/f4/multimodular";
+import { Limits } from "@domain/algebra/groebner/limits";
+
+export type TaskRequest =
+  | { kind: "image"; runId: string; input: MultiModularInput; prime: number; deadline: number }
+  | { kind: "proof"; runId: string; input: MultiModularInput; candidate: LiftCandidate; batch: ProofBatch; deadline: number };
+
+export type TaskReply =
+  | { kind: "image"; bytes: Uint8Array; ms: number }
+  | { kind: "proof"; ok: boolean; failed?: string; ms: number }
+  | { kind: "error"; message: string };
+
+// The same input object for every task of a run, so the domain's per-input cache (ring, integer
+// generators, monomial table, parsed candidate) is reused; likewise one candidate object per
+// (run, candidate) — the early step-3 check has a stand-in of its own. Only the latest runs are kept.
+const inputs = new Map<string, MultiModularInput>();
+const candidates = new Map<string, LiftCandidate>();
+function keep<T>(m: Map<string, T>, key: string, value: T): T {
+  const had = m.get(key);
+  if (had) return had;
+  m.set(key, value);
+  while (m.size > 6) m.delete(m.keys().next().value!);
+  return value;
+}
+
+process.on("disconnect", () => process.exit(1));
+process.on("message", (raw) => {
+  const req = raw as TaskRequest;
+  const t0 = Date.now();
+  let reply: TaskReply;
+  try {
+    const limits = new Limits({ deadline: req.deadline });
+    if (req.kind === "image") {
+      const input = keep(inputs, req.runId, req.input);
+      reply = { kind: "image", bytes: encodeImage(imageModPrime(input, req.prime, limits)), ms: Date.now() - t0 };
+    } else {
+      const input = keep(inputs, req.runId, req.input);
+      const candidate = keep(candidates, `${req.runId}:${req.candidate.checkedWith}`, req.candidate);
+      const outcome = proveBatch(input, candidate, req.batch, limits);
+      reply = { kind: "proof", ok: outcome.ok, ...(outcome.ok ? {} : { failed: outcome.failed }), ms: Date.now() - t0 };
+    }
+  } catch (e) {
+    reply = { kind: "error", message: (e as Error).message ?? String(e) };
+  }
+  process.send?.(reply);
+});

@@ -1,0 +1,54 @@
+/**
+ * One task process per worker (app/jobs/task-child.ts), forked on first use, one task at a time.
+ * `kill()` stops it hard (SIGKILL, works inside an F4 matrix); the next task forks a new one.
+ * A reaper kills it with its worker (reaper.server.ts), as for job processes.
+ */
+import { fork, type ChildProcess } from "node:child_process";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+import type { TaskReply, TaskRequest } from "./task-child";
+import { reapWithParent } from "./reaper.server";
+
+const CHILD = path.join(path.dirname(fileURLToPath(import.meta.url)), "task-child.ts");
+
+export class TaskRunner {
+  private child: ChildProcess | null = null;
+  private pending: { resolve: (r: TaskReply) => void } | null = null;
+
+  private spawn(): ChildProcess {
+    const child = fork(CHILD, [], {
+      execArgv: ["--import", "tsx"],
+      stdio: ["ignore", "ignore", "inherit", "ipc"],
+      serialization: "advanced", // images travel as bytes
+      env: { ...process.env, NODE_OPTIONS: "--max-old-space-size=1536" },
+    });
+    if (child.pid !== undefined) reapWithParent(child.pid);
+    child.on("message", (m: TaskReply) => {
+      const p = this.pending;
+      this.pending = null;
+      p?.resolve(m);
+    });
+    child.on("exit", (code, signal) => {
+      if (this.child === child) this.child = null;
+      const p = this.pending;
+      this.pending = null;
+      p?.resolve({ kind: "error", message: `the task process ended (${signal ? `signal ${signal}` : `exit code ${code}`})` });
+    });
+    return child;
+  }
+
+  run(req: TaskRequest): Promise<TaskReply> {
+    if (this.pending) return Promise.reject(new Error("TaskRunner: one task at a time"));
+    this.child ??= this.spawn();
+    const child = this.child;
+    return new Promise<TaskReply>((resolve) => {
+      this.pending = { resolve };
+      child.send(req);
+    });
+  }
+
+  kill(): void {
+    this.child?.kill("SIGKILL");
+    this.child = null;
+  }
+}

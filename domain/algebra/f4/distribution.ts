@@ -1,0 +1,58 @@
+import { AlgebraError } from "../errors";
+import type { Limits } from "../groebner/limits";
+import type { Polynomial } from "../polynomial";
+import type { Rational } from "../rational";
+import type { ModularImage, MultiModularInput } from "./multimodular";
+import { canLift, imageModPrime, liftPrimes, multiModularInput } from "./multimodular";
+
+/**
+ * Lets a caller spread a large multi-modular basis over Q over other machines (app/jobs/
+ * coordinator.server.ts) while the engine stays synchronous and pure: groebnerBasis computes the
+ * first image modulo a prime; if that took at least `thresholdMs`, it throws a DistributeRequest
+ * carrying the plain-data input and that image. The caller computes the basis elsewhere (its
+ * images, lift and proof), and runs the same computation again with the proven basis in `known`,
+ * where groebnerBasis finds it by the input's key instead of computing it. Reduced bases are
+ * unique, so the second run's result is the one the single-process path would give.
+ */
+export interface DistributionHook {
+  readonly thresholdMs: number;
+  /** By distributionKey: a proven basis (exact text, as groebnerBasis returns it), or null = compute it here. */
+  readonly known: ReadonlyMap<string, readonly string[] | null>;
+}
+
+export class DistributeRequest extends Error {
+  constructor(readonly input: MultiModularInput, readonly firstImage: ModularImage, readonly firstImageMs: number) {
+    super(`Gröbner basis: the first image modulo a prime took ${firstImageMs} ms; asking to distribute it`);
+    this.name = "DistributeRequest";
+  }
+}
+
+/** The key of an input in DistributionHook.known: its exact text. */
+export const distributionKey = (input: MultiModularInput): string => JSON.stringify([input.vars, input.order, input.polys, input.reference ?? null]);
+
+/**
+ * For groebnerBasis over Q in a degree-compatible order: the known basis, or a DistributeRequest
+ * thrown when the first image is slow; null when the caller should go on as usual (known to be
+ * computed here, not liftable, or quick).
+ */
+export function distributedOrLocal(polys: readonly Polynomial<Rational>[], limits: Limits, hook: DistributionHook): Polynomial<Rational>[] | null {
+  const input = multiModularInput(polys);
+  const key = distributionKey(input);
+  if (hook.known.has(key)) {
+    const basis = hook.known.get(key);
+    if (!basis) return null;
+    const ring = polys[0].ring;
+    return basis.map((s) => ring.parse(s));
+  }
+  if (!canLift(input)) return null;
+  const p = liftPrimes(input).next().value as number;
+  const t0 = Date.now();
+  const image = imageModPrime(input, p, limits, { k: 1, of: 1 });
+  const ms = Date.now() - t0;
+  // Whether the proof can succeed (step 3 by Hilbert functions) is the coordinator's first child
+  // job, beside the images, so that check costs no time here.
+  if (ms >= hook.thresholdMs) throw new DistributeRequest(input, image, ms);
+  return null;
+}
+
+export const isDistributeRequest = (e: unknown): e is DistributeRequest => e instanceof DistributeRequest && !(e instanceof AlgebraError);
