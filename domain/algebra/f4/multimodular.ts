@@ -1,8 +1,9 @@
-import type { MonomialComparator } from "../order";
+import type { MonomialComparator, OrderSpec } from "../order";
 import { makeComparator } from "../order";
 import type { Polynomial } from "../polynomial";
 import { normalizeTerms } from "../polynomial";
 import type { Rational } from "../rational";
+import { gcdBig, rational } from "../rational";
 import { integerCoefficients } from "../groebner/coefficients";
 import { clearDenominators, toEngine } from "../groebner/convert";
 import type { Limits } from "../groebner/limits";
@@ -11,8 +12,9 @@ import { ReductionKernel, toReducer } from "../groebner/reduce";
 import { verifyGroebner } from "../groebner/verify";
 import type { F4Poly, F4Stats } from "./f4";
 import { f4ModP } from "./f4";
-import { invModP } from "./modp";
-import { primesBelow } from "./modp";
+import { AlgebraError } from "../errors";
+import { isPrime } from "../field";
+import { F4_MAX_PRIME, invModP, primesBelow } from "./modp";
 import { MonomialTable } from "./monomial-table";
 import { isGradedOrder } from "./prime-field";
 import { bitLength, crtStep, mqrr, rationalModP } from "./reconstruction";
@@ -59,19 +61,143 @@ interface Group {
   count: number;
   M: bigint;
   elems: Lifted[];
-  candidate: { mons: number[]; coeffs: Rational[] }[] | null;
+  candidate: LiftedBasis | null;
   /** Where reconstruction failed last time: tried first next time (cheap early exit). */
   failedAt: [number, number];
+}
+
+/**
+ * The inputs of a multi-modular run as plain data (structured-clonable: bigints and typed arrays),
+ * so that prime images can be computed elsewhere (another thread or process) from it alone.
+ * `polys`: over Z (denominators cleared), nonzero, terms decreasing in `order`, exponents packed
+ * `[degree, e_1..e_n]` per term (the engine layout).
+ */
+export interface MultiModularProblem {
+  readonly n: number;
+  readonly order: OrderSpec;
+  readonly polys: readonly { readonly coeffs: readonly bigint[]; readonly exps: Int32Array }[];
+}
+
+/** A polynomial with packed exponents (terms decreasing) and coefficients of type C. */
+export interface PackedPoly<C> {
+  readonly exps: Int32Array;
+  readonly coeffs: C;
+}
+
+/** The reduced Gröbner basis modulo `p` (monic residues, sorted by increasing leading monomial). */
+export interface PrimeImage {
+  readonly p: number;
+  readonly basis: readonly PackedPoly<Int32Array>[];
+}
+
+/** A lifted candidate basis over Q, in the order of the images (not yet proven). */
+export type LiftedBasis = readonly PackedPoly<readonly Rational[]>[];
+
+/** Reusable per-process scratch for imageModPrime (the monomial table of the problem's ring). */
+export interface ImageWorkspace {
+  readonly table: MonomialTable;
+  readonly inputMons: Int32Array[];
+}
+
+export function multiModularProblem(polys: readonly Polynomial<Rational>[]): MultiModularProblem {
+  const ring = polys[0].ring;
+  const integer = polys.filter((p) => p.coeffs.length > 0).map((p) => clearDenominators(toEngine(p)));
+  return { n: ring.n, order: ring.order, polys: integer.map((f) => ({ coeffs: f.coeffs, exps: f.exps })) };
+}
+
+const isGradedSpec = (order: OrderSpec): boolean => order.length === 1 && (order[0].kind === "grlex" || order[0].kind === "grevlex");
+
+export function imageWorkspace(problem: MultiModularProblem): ImageWorkspace {
+  const T = new MonomialTable(problem.n);
+  const inputMons = problem.polys.map((f) => {
+    const mons = new Int32Array(f.coeffs.length);
+    for (let t = 0; t < mons.length; t++) mons[t] = T.intern(f.exps, t * (problem.n + 1));
+    return mons;
+  });
+  return { table: T, inputMons };
+}
+
+/**
+ * Step one of a multi-modular run, for one prime p < 2^26: the reduced basis of the inputs modulo p
+ * by F4 (selection by sugar for orders that are not degree-compatible). Null when p divides a
+ * leading coefficient (the leading monomial would change: such a prime is skipped, not counted).
+ * `workspace` (optional) keeps the monomial table between calls in one process.
+ */
+export function imageModPrime(
+  problem: MultiModularProblem,
+  p: number,
+  options: { readonly limits?: Limits; readonly prime?: { readonly k: number; readonly of: number }; readonly stats?: F4Stats } = {},
+  workspace: ImageWorkspace = imageWorkspace(problem),
+): PrimeImage | null {
+  if (!(p < F4_MAX_PRIME) || !isPrime(p)) throw new AlgebraError("domain", `imageModPrime: ${p} is not a prime below 2^26`);
+  const P = BigInt(p);
+  if (problem.polys.some((f) => f.coeffs[0] % P === 0n)) return null;
+  const T = workspace.table;
+  const input: F4Poly[] = problem.polys.map((f, i) => {
+    const coeffs = new Int32Array(f.coeffs.length);
+    for (let t = 0; t < coeffs.length; t++) {
+      let c = Number(f.coeffs[t] % P);
+      if (c < 0) c += p;
+      coeffs[t] = c;
+    }
+    return dropZeros(workspace.inputMons[i], coeffs);
+  });
+  const cmp = makeComparator(problem.order, problem.n);
+  const Gp = f4ModP(input, T, p, cmp, { limits: options.limits, sugared: !isGradedSpec(problem.order), prime: options.prime }, options.stats);
+  return { p, basis: Gp.map((g) => ({ exps: T.packed(g.mons), coeffs: g.coeffs })) };
+}
+
+/**
+ * Step two: Chinese remaindering of prime images and rational reconstruction. Images are grouped
+ * by their leading-monomial sets; the most frequent set wins and the others count as unlucky
+ * (Arnold 2003, §5: a lucky prime's leading monomials are those of the basis over Q, and lucky
+ * primes are all but finitely many). `add` returns the lifted basis once a candidate
+ * reconstructed from the earlier images agrees with the new image (a fresh prime), else null.
+ */
+export class ImageLifter {
+  private readonly groups = new Map<string, Group>();
+  private readonly T: MonomialTable;
+  private count = 0;
+  /** Images added, and how many of them are outside the winning group (unlucky so far). */
+  images = 0;
+  unlucky = 0;
+
+  constructor(private readonly n: number, private readonly tick: () => void = () => {}) {
+    this.T = new MonomialTable(n);
+  }
+
+  add(image: PrimeImage): LiftedBasis | null {
+    const T = this.T, S = this.n + 1;
+    this.images = ++this.count;
+    const Gp: F4Poly[] = image.basis.map((g) => {
+      const mons = new Int32Array(g.coeffs.length);
+      for (let t = 0; t < mons.length; t++) mons[t] = T.intern(g.exps, t * S);
+      return { mons, coeffs: g.coeffs };
+    });
+    const key = Gp.map((g) => g.mons[0]).join(",");
+    let group = this.groups.get(key);
+    if (group && group.candidate && agreesModP(group.candidate, Gp, image.p, T)) return group.candidate;
+    if (!group) {
+      group = { count: 0, M: 1n, elems: Gp.map(() => ({ mons: [], index: new Map(), vals: [] })), candidate: null, failedAt: [0, 0] };
+      this.groups.set(key, group);
+    }
+    combine(group, Gp, image.p);
+    let best: Group = group;
+    for (const g of this.groups.values()) if (g.count > best.count) best = g;
+    this.unlucky = this.count - best.count;
+    if (best === group) group.candidate = reconstruct(group, T, this.tick);
+    return null;
+  }
 }
 
 /**
  * Reduced Gröbner basis over Q by multi-modular F4 (Arnold, "Modular algorithms for computing
  * Gröbner bases", J. Symbolic Comput. 35, 2003; Idrees, Pfister and Steidel, "Parallelization of
  * modular algorithms", J. Symbolic Comput. 46, 2011): the reduced basis modulo primes p < 2^21 by
- * F4 (f4.ts); primes whose leading-monomial set is not the most frequent one are unlucky and set
- * aside; the coefficients of the others are combined by the Chinese remainder theorem and lifted
- * to Q by maximal-quotient rational reconstruction (reconstruction.ts); the lift counts once it
- * agrees with the basis modulo a fresh prime. Then it is **proven**, exactly:
+ * F4 (imageModPrime); primes whose leading-monomial set is not the most frequent one are unlucky
+ * and set aside; the coefficients of the others are combined by the Chinese remainder theorem and
+ * lifted to Q by maximal-quotient rational reconstruction (ImageLifter); the lift counts once it
+ * agrees with the basis modulo a fresh prime. Then it is **proven**, exactly (proveLiftedBasis):
  *  1. G is a Gröbner basis: Buchberger's criterion with the Gebauer–Möller (chain) criteria,
  *     every remaining S-polynomial top-reduces to zero over Z (groebner/verify.ts);
  *  2. ⟨F⟩ ⊆ ⟨G⟩: every input reduces to zero modulo G;
@@ -79,7 +205,7 @@ interface Group {
  *     Q[x, h] (degree, then the ring's order on the x-part: grevlex with h last for grevlex) and every degree d, dim_Q ⟨F^h⟩_d ≥ dim_{Z/p} ⟨F^h mod p⟩_d, since
  *     the degree-d Macaulay matrix has integer entries and its rank can only drop modulo p; the
  *     latter is the number of degree-d monomials in LM(⟨F^h mod p⟩), computed by one more F4 run
- *     modulo p. If every LM(g), g ∈ G, is a multiple of an h-free leading monomial of that basis,
+ *     modulo p (hilbertLeads). If every LM(g), g ∈ G, is a multiple of an h-free leading monomial of that basis,
  *     this number is at least #{monomials of degree ≤ d in ⟨LM(G)⟩} = dim ⟨G⟩_{≤d} (G a Gröbner
  *     basis in a degree-compatible order). Dehomogenising maps ⟨F^h⟩_d injectively into
  *     ⟨F⟩_{≤d}, so dim ⟨F⟩_{≤d} ≥ dim ⟨G⟩_{≤d}; with ⟨F⟩ ⊆ ⟨G⟩ (step 2) both are equal for
@@ -88,6 +214,9 @@ interface Group {
  *     For lex and block orders, given `reference` (a proven Gröbner basis R of ⟨F⟩ in grevlex):
  *     every g ∈ G reduces to zero modulo R, i.e. g ∈ ⟨R⟩ = ⟨F⟩ (Cox, Little, O'Shea, ch. 2 §6,
  *     Corollary 2: the remainder on division by a Gröbner basis decides membership).
+ * Step 3 cannot be skipped for inhomogeneous ideals even when G modulo a lucky-looking prime is
+ * that prime's reduced basis: F = {x*y^2 + p*y^3 + y, x} generates ⟨x, y^3 + y/p⟩ over Q, while
+ * modulo p it gives ⟨x, y⟩ and G = {x, y} passes steps 1 and 2 (worked out here).
  * Returns null when a step cannot be completed (the caller then uses the traced Buchberger path,
  * which is proven by construction); `stats.failed` says which.
  *
@@ -100,78 +229,46 @@ export function multiModularGroebnerQQ(
   options: MultiModularOptions = {},
 ): Polynomial<Rational>[] | null {
   const ring = polys[0].ring;
-  const n = ring.n, cmp = ring.cmp;
   const stats: MultiModularStats = options.stats ?? { primes: 0, unlucky: 0, modularMs: 0, liftMs: 0, proofMs: 0 };
   const maxPrimes = options.maxPrimes ?? 1000;
   const graded = isGradedOrder(ring as Polynomial<unknown>["ring"]);
   if (!graded && !options.reference) return null;
-  const integer = polys.filter((p) => p.coeffs.length > 0).map((p) => clearDenominators(toEngine(p)));
-  const T = new MonomialTable(n);
-  const inputMons = integer.map((f) => {
-    const mons = new Int32Array(f.coeffs.length);
-    for (let t = 0; t < mons.length; t++) mons[t] = T.intern(f.exps, t * (n + 1));
-    return mons;
-  });
-  const groups = new Map<string, Group>();
+  const problem = multiModularProblem(polys);
+  const workspace = imageWorkspace(problem);
+  const lifter = new ImageLifter(ring.n, () => limits.checkTime());
   const f4stats: F4Stats = { matrices: 0, rows: 0, maxRows: 0, maxColumns: 0 };
-  let result: { mons: number[]; coeffs: Rational[] }[] | null = null;
+  let result: LiftedBasis | null = null;
   let hFree: HFreeLeads | null = null;
   let k = 0;
   for (const p of primesBelow(LIFT_PRIME_LIMIT)) {
     if (k >= maxPrimes) { stats.failed = "primes"; return null; }
     limits.checkTime();
-    const P = BigInt(p);
-    // A prime dividing a leading coefficient changes a leading monomial: unlucky, skip it.
-    if (integer.some((f) => f.coeffs[0] % P === 0n)) continue;
+    const t0 = Date.now();
+    const image = imageModPrime(problem, p, { limits, prime: { k: k + 1, of: maxPrimes }, stats: f4stats }, workspace);
+    if (image === null) continue;
     k++;
     stats.primes = k;
-    const t0 = Date.now();
-    const input: F4Poly[] = integer.map((f, i) => {
-      const coeffs = new Int32Array(f.coeffs.length);
-      for (let t = 0; t < coeffs.length; t++) {
-        let c = Number(f.coeffs[t] % P);
-        if (c < 0) c += p;
-        coeffs[t] = c;
-      }
-      return dropZeros(inputMons[i], coeffs);
-    });
-    const Gp = f4ModP(input, T, p, cmp, { limits, sugared: !graded, prime: { k, of: maxPrimes } }, f4stats);
     if (graded && hFree === null) {
       // Step 3 first, as it needs only residues: when it cannot succeed, do not lift at all.
       const th = Date.now();
-      hFree = homogenisedLeads(integer, p, ring.order[0].kind === "grlex", limits);
+      hFree = hilbertLeads(problem, p, limits);
       stats.proofMs += Date.now() - th;
-      if (!leadsCovered(Gp.map((g) => T.packed([g.mons[0]])), hFree)) { stats.failed = "hilbert"; return null; }
+      if (!leadsCovered(image.basis.map((g) => g.exps), hFree)) { stats.failed = "hilbert"; return null; }
     }
     stats.modularMs += Date.now() - t0;
     const t1 = Date.now();
-    const key = Gp.map((g) => g.mons[0]).join(",");
-    let group = groups.get(key);
-    if (group && group.candidate && agreesModP(group.candidate, Gp, p)) {
-      result = group.candidate;
-      stats.liftMs += Date.now() - t1;
-      break;
-    }
-    if (!group) {
-      group = { count: 0, M: 1n, elems: Gp.map(() => ({ mons: [], index: new Map(), vals: [] })), candidate: null, failedAt: [0, 0] };
-      groups.set(key, group);
-    }
-    combine(group, Gp, p);
-    let best: Group = group;
-    for (const g of groups.values()) if (g.count > best.count) best = g;
-    stats.unlucky = k - best.count;
-    if (best === group) group.candidate = reconstruct(group, () => limits.checkTime());
+    result = lifter.add(image);
+    stats.unlucky = lifter.unlucky;
     stats.liftMs += Date.now() - t1;
+    if (result) break;
   }
   if (!result) return null;
 
   const t2 = Date.now();
-  const G: Polynomial<Rational>[] = result.map((g) => normalizeTerms(ring, g.coeffs, T.packed(g.mons)));
-  const proven = prove(G, integer, graded ? { hFree: hFree! } : { reference: options.reference! }, limits, stats);
+  const proven = proveLiftedBasis(problem, result, graded ? { hFree: hFree! } : { reference: options.reference! }, limits, stats);
   stats.proofMs += Date.now() - t2;
   if (!proven) return null;
-  G.sort((a, b) => cmp(a.exps, 0, b.exps, 0));
-  return G;
+  return proven.map((g) => normalizeTerms(ring, g.coeffs as Rational[], g.exps.slice()));
 }
 
 function dropZeros(mons: Int32Array, coeffs: Int32Array): F4Poly {
@@ -205,39 +302,49 @@ function combine(group: Group, Gp: readonly F4Poly[], p: number): void {
   group.count++;
 }
 
-function reconstruct(group: Group, tick: () => void): { mons: number[]; coeffs: Rational[] }[] | null {
+function reconstruct(group: Group, T: MonomialTable, tick: () => void): LiftedBasis | null {
   const M = group.M, logm = bitLength(M);
+  // Start where the last attempt failed: the coefficients before it reconstructed then and
+  // usually do again, so a run of failing attempts costs about one pass in all, not one each.
   const [fe, ft] = group.failedAt;
-  const first = group.elems[fe]?.vals[ft];
-  if (first !== undefined && mqrr(first, M, logm) === null) return null;
-  const out: { mons: number[]; coeffs: Rational[] }[] = [];
-  for (let e = 0; e < group.elems.length; e++) {
+  const E = group.elems.length;
+  const out: PackedPoly<Rational[]>[] = new Array(E);
+  let work = 0;
+  for (let s = 0; s < E; s++) {
+    const e = (fe + s) % E;
     const L = group.elems[e];
-    const coeffs: Rational[] = [];
-    const mons: number[] = [];
-    for (let i = 0; i < L.vals.length; i++) {
-      if ((i & 255) === 0) tick();
+    const len = L.vals.length;
+    const r0 = s === 0 ? ft : 0;
+    const rec: (Rational | null)[] = new Array(len);
+    for (let i0 = 0; i0 < len; i0++) {
+      const i = (r0 + i0) % len;
+      if ((++work & 255) === 0) tick();
       const r = mqrr(L.vals[i], M, logm);
       if (r === null) { group.failedAt = [e, i]; return null; }
-      if (r.num === 0n) continue;
-      coeffs.push(r);
+      rec[i] = r;
+    }
+    const coeffs: Rational[] = [];
+    const mons: number[] = [];
+    for (let i = 0; i < len; i++) {
+      if (rec[i]!.num === 0n) continue;
+      coeffs.push(rec[i]!);
       mons.push(L.mons[i]);
     }
-    out.push({ mons, coeffs });
+    out[e] = { exps: T.packed(mons), coeffs };
   }
   return out;
 }
 
-function agreesModP(cand: readonly { mons: number[]; coeffs: Rational[] }[], Gp: readonly F4Poly[], p: number): boolean {
+function agreesModP(cand: LiftedBasis, Gp: readonly F4Poly[], p: number, T: MonomialTable): boolean {
   if (cand.length !== Gp.length) return false;
-  const P = BigInt(p);
+  const P = BigInt(p), S = T.S;
   for (let e = 0; e < Gp.length; e++) {
     const g = Gp[e], c = cand[e];
     const got = new Map<number, number>();
-    for (let t = 0; t < c.mons.length; t++) {
+    for (let t = 0; t < c.coeffs.length; t++) {
       const v = rationalModP(c.coeffs[t], p, P);
       if (v === null) return false;
-      if (v !== 0) got.set(c.mons[t], v);
+      if (v !== 0) got.set(T.intern(c.exps, t * S), v);
     }
     if (got.size !== g.mons.length) return false;
     for (let t = 0; t < g.mons.length; t++) if (got.get(g.mons[t]) !== g.coeffs[t]) return false;
@@ -245,35 +352,58 @@ function agreesModP(cand: readonly { mons: number[]; coeffs: Rational[] }[], Gp:
   return true;
 }
 
-/** The three proof steps of multiModularGroebnerQQ's docblock; false when one fails. */
-function prove(
-  G: readonly Polynomial<Rational>[],
-  integer: readonly EPoly<bigint>[],
+/**
+ * Step three: the proof of multiModularGroebnerQQ's docblock, exactly. Returns the proven reduced
+ * basis (monic, sorted by increasing leading monomial) or null when a step fails (`stats.failed`).
+ * `containment`: the h-free leads of hilbertLeads (graded orders) or a proven grevlex basis.
+ */
+export function proveLiftedBasis(
+  problem: MultiModularProblem,
+  lifted: LiftedBasis,
   containment: { hFree: HFreeLeads } | { reference: readonly Polynomial<Rational>[] },
   limits: Limits,
-  stats: MultiModularStats,
-): boolean {
-  const ring = G[0].ring;
-  const n = ring.n, cmp = ring.cmp, K = integerCoefficients;
-  const Gz = G.map((g) => {
-    const z = clearDenominators(toEngine(g));
-    K.normalize(z.coeffs, () => limits.checkTime()); // primitive: smaller numbers in the reductions
-    return z;
+  stats?: MultiModularStats,
+): LiftedBasis | null {
+  const n = problem.n, cmp = makeComparator(problem.order, n), K = integerCoefficients, S = n + 1;
+  const fail = (step: NonNullable<MultiModularStats["failed"]>) => { if (stats) stats.failed = step; return null; };
+  const G = lifted.map((g) => {
+    // Terms in decreasing order, monic.
+    const order = Array.from(g.coeffs.keys()).sort((a, b) => cmp(g.exps, b * S, g.exps, a * S));
+    const exps = new Int32Array(g.exps.length);
+    order.forEach((t, k) => exps.set(g.exps.subarray(t * S, t * S + S), k * S));
+    const lc = g.coeffs[order[0]];
+    return { exps, coeffs: order.map((t) => divQ(g.coeffs[t], lc)) };
   });
-  Gz.sort((a, b) => cmp(a.exps, 0, b.exps, 0));
+  G.sort((a, b) => cmp(a.exps, 0, b.exps, 0));
+  const Gz = G.map((g) => {
+    const z = integerMultiple(g.coeffs);
+    K.normalize(z, () => limits.checkTime()); // primitive: smaller numbers in the reductions
+    return { coeffs: z, exps: g.exps };
+  });
   const tv = Date.now();
-  if (!verifyGroebner(Gz, K, n, cmp, limits)) { stats.failed = "groebner"; return false; }
-  stats.criterionMs = Date.now() - tv;
+  if (!verifyGroebner(Gz, K, n, cmp, limits)) return fail("groebner");
+  if (stats) stats.criterionMs = Date.now() - tv;
   const reducers = Gz.map((g) => toReducer(g, n));
   const top = new ReductionKernel(K, n, cmp, () => limits.checkTime(), false);
-  for (const f of integer) {
+  for (const f of problem.polys) {
     const coeffs = f.coeffs.slice();
-    if (top.reduce({ coeffs, exps: f.exps }, reducers, false).coeffs.length !== 0) { stats.failed = "inputs"; return false; }
+    if (top.reduce({ coeffs, exps: f.exps }, reducers, false).coeffs.length !== 0) return fail("inputs");
   }
   if ("hFree" in containment) {
-    if (!leadsCovered(G.map((g) => g.exps), containment.hFree)) { stats.failed = "hilbert"; return false; }
-  } else if (!allMembers(Gz, containment.reference, limits)) { stats.failed = "membership"; return false; }
-  return true;
+    if (!leadsCovered(G.map((g) => g.exps), containment.hFree)) return fail("hilbert");
+  } else if (!allMembers(Gz, containment.reference, limits)) return fail("membership");
+  return G;
+}
+
+function divQ(a: Rational, b: Rational): Rational {
+  return rational(a.num * b.den, a.den * b.num);
+}
+
+/** The rationals times the lcm of their denominators (integers). */
+function integerMultiple(cs: readonly Rational[]): bigint[] {
+  let L = 1n;
+  for (const c of cs) L = (L / gcdBig(L, c.den)) * c.den;
+  return cs.map((c) => c.num * (L / c.den));
 }
 
 /** Does every polynomial of `polys` (engine form, this ring's order) lie in the ideal of the Gröbner basis `reference`? */
@@ -297,13 +427,13 @@ function allMembers(polys: readonly EPoly<bigint>[], reference: readonly Polynom
 }
 
 /** The h-free leading monomials of the reduced basis of F^h mod p (grevlex, h last), as packed x-monomials. */
-interface HFreeLeads {
+export interface HFreeLeads {
   readonly n: number;
   readonly leads: Int32Array[];
 }
 
 /** Step 3: is every leading monomial (packed, at offset 0) a multiple of an h-free leading monomial? */
-function leadsCovered(lms: readonly Int32Array[], h: HFreeLeads): boolean {
+export function leadsCovered(lms: readonly Int32Array[], h: HFreeLeads): boolean {
   const n = h.n;
   return lms.every((lm) => h.leads.some((m) => {
     for (let k = 1; k <= n; k++) if (m[k] > lm[k]) return false;
@@ -311,8 +441,10 @@ function leadsCovered(lms: readonly Int32Array[], h: HFreeLeads): boolean {
   }));
 }
 
-function homogenisedLeads(integer: readonly EPoly<bigint>[], p: number, grlex: boolean, limits: Limits): HFreeLeads {
-  const n = (integer[0].exps.length / integer[0].coeffs.length) - 1;
+/** The data of proof step 3 for graded orders: one F4 run of the homogenised inputs modulo p. */
+export function hilbertLeads(problem: MultiModularProblem, p: number, limits: Limits): HFreeLeads {
+  const integer = problem.polys, grlex = problem.order[0].kind === "grlex";
+  const n = problem.n;
   const S = n + 1, Sh = n + 2;
   const T = new MonomialTable(n + 1);
   const P = BigInt(p);

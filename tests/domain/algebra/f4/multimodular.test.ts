@@ -3,7 +3,12 @@ import { AlgebraError, PolynomialRing, QQ, groebnerBasis } from "@domain/algebra
 import type { Progress } from "@domain/algebra/groebner/limits";
 import { Limits } from "@domain/algebra/groebner/limits";
 import type { MultiModularStats } from "@domain/algebra/f4/multimodular";
-import { multiModularGroebnerQQ } from "@domain/algebra/f4/multimodular";
+import type { LiftedBasis, PrimeImage } from "@domain/algebra/f4/multimodular";
+import {
+  ImageLifter, hilbertLeads, imageModPrime, multiModularGroebnerQQ, multiModularProblem, proveLiftedBasis,
+} from "@domain/algebra/f4/multimodular";
+import { rational } from "@domain/algebra/rational";
+import { primesBelow } from "@domain/algebra/f4/modp";
 import { cyclic, katsura, randomIdeal } from "../../../fixtures/algebra/systems";
 
 /**
@@ -95,5 +100,44 @@ describe("multi-modular F4 over Q agrees with Buchberger (reference implementati
     const ac = new AbortController();
     expect(code(() => groebnerBasis(polys, { method: "f4", signal: ac.signal, onProgress: (p) => { if (p.prime === 2) ac.abort(); } }))).toBe("cancelled");
     expect(code(() => groebnerBasis(polys, { method: "f4", maxBasisSize: 4 }))).toBe("budget");
+  });
+
+  it("runs as three separable steps on plain data (images through structuredClone, as between workers)", () => {
+    const sys = katsura(4);
+    const R = new PolynomialRing(sys.vars, QQ, "grevlex");
+    const polys = sys.polys.map((s) => R.parse(s));
+    const problem = structuredClone(multiModularProblem(polys));
+    const lifter = new ImageLifter(problem.n);
+    let lifted: LiftedBasis | null = null;
+    let first: number | null = null;
+    for (const p of primesBelow(2 ** 21)) {
+      const image: PrimeImage | null = imageModPrime(problem, p);
+      if (image === null) continue;
+      first ??= p;
+      lifted = lifter.add(structuredClone(image));
+      if (lifted) break;
+    }
+    expect(lifted).not.toBeNull();
+    expect(() => imageModPrime(problem, 2097151)).toThrow(/not a prime/); // 2^21 - 1 = 7^2 * 127 * 337
+    const proven = proveLiftedBasis(problem, lifted!, { hFree: hilbertLeads(problem, first!, new Limits()) }, new Limits());
+    expect(proven).not.toBeNull();
+    const ref = groebnerBasis(polys, { method: "buchberger" }).map((g) => R.format(g));
+    expect(proven!.map((g) => R.format({ ring: R, coeffs: [...g.coeffs], exps: g.exps }))).toEqual(ref);
+  });
+
+  it("step 3 rejects a lift that passes steps 1 and 2 but generates a larger ideal", () => {
+    // F = {x*y^2 + p*y^3 + y, x} generates <x, y^3 + y/p> over Q; modulo p it gives <x, y>, and
+    // G = {x, y} is a Groebner basis containing F (worked out here; see multimodular.ts).
+    const p = 1000003;
+    const R = new PolynomialRing(["x", "y"], QQ, "grevlex");
+    const polys = [`x*y^2 + ${p}*y^3 + y`, "x"].map((s) => R.parse(s));
+    const problem = multiModularProblem(polys);
+    const image = imageModPrime(problem, p)!;
+    expect(image.basis.map((g) => Array.from(g.exps))).toEqual([[1, 0, 1], [1, 1, 0]]); // y, x
+    const wrong: LiftedBasis = image.basis.map((g) => ({ exps: g.exps, coeffs: [rational(1n)] }));
+    const stats = fresh();
+    expect(proveLiftedBasis(problem, wrong, { hFree: hilbertLeads(problem, p, new Limits()) }, new Limits(), stats)).toBeNull();
+    expect(stats.failed).toBe("hilbert");
+    expect(groebnerBasis(polys).map((g) => R.format(g))).toEqual(["x", `y^3 + 1/${p}*y`]);
   });
 });
