@@ -6,7 +6,6 @@ import { updatePairs } from "./pairs";
 import type { EPoly, Reducer } from "./reduce";
 import { ReductionKernel, toReducer } from "./reduce";
 import type { Kernel } from "./reduce";
-import { ModPReductionKernel } from "./reduce-modp";
 
 export type SelectionStrategy = "sugar" | "normal";
 
@@ -46,7 +45,7 @@ export function buchberger<C>(
 ): EPoly<C>[] {
   const limits = options.limits ?? new Limits();
   const strategy = options.strategy ?? "sugar";
-  const kernel = kernelFor(K, n, cmp, () => limits.checkTime());
+  const kernel = new ReductionKernel(K, n, cmp, () => limits.checkTime());
   const basis: Element<C>[] = [];
   let pairs: CriticalPair[] = [];
   let live: Reducer<C>[] = [];
@@ -92,12 +91,6 @@ export function buchberger<C>(
     add(h, pair.sugar);
   }
   return reduceBasis(basis.filter((e) => e.live).map((e) => e.poly), K, n, cmp, kernel);
-}
-
-/** The specialised Z/p kernel (reduce-modp.ts) where it applies: the same steps, inline arithmetic. */
-function kernelFor<C>(K: EngineCoefficients<C>, n: number, cmp: MonomialComparator, tick: () => void): Kernel<C> {
-  if (K.modulus !== undefined && K.modulus < 2 ** 26) return new ModPReductionKernel(K.modulus, n, cmp, tick) as unknown as Kernel<C>;
-  return new ReductionKernel(K, n, cmp, tick);
 }
 
 /** (lcm / LM(f))·f: the first half of the S-polynomial; the kernel's forced step subtracts the partner. */

@@ -32,8 +32,6 @@ export interface EngineCoefficients<C> {
    * microseconds to milliseconds as coefficients grow.
    */
   readonly termsPerTick: number;
-  /** Set for Z/p on numbers (primeCoefficients): lets Buchberger's algorithm use the specialised kernel. */
-  readonly modulus?: number;
 }
 
 /** Fields whose elements are JavaScript numbers (Z/p) do cheap arithmetic per term. */
@@ -84,7 +82,6 @@ export function primeCoefficients(p: number): EngineCoefficients<number> {
     },
     reductionFactors: (lcp, lcg) => [1, lcg === 1 ? lcp : mulMod(lcp, inv(lcg))],
     termsPerTick: 1 << 16,
-    modulus: p,
     normalize(coeffs) {
       if (coeffs.length === 0 || coeffs[0] === 1) return;
       const c = inv(coeffs[0]);
