@@ -150,8 +150,8 @@ export function imageModPrime(
 /**
  * Step two: Chinese remaindering of prime images and rational reconstruction. Images are grouped
  * by their leading-monomial sets; the most frequent set wins and the others count as unlucky
- * (Arnold 2003, §5: a lucky prime's leading monomials are those of the basis over Q, and lucky
- * primes are all but finitely many). `add` returns the lifted basis once a candidate
+ * (Arnold 2003: a lucky prime's leading monomials are those of the basis over Q, and all but
+ * finitely many primes are lucky — recalled from memory). `add` returns the lifted basis once a candidate
  * reconstructed from the earlier images agrees with the new image (a fresh prime), else null.
  */
 export class ImageLifter {
