@@ -109,3 +109,21 @@ describe("multi-modular seams (plain data between workers)", () => {
     expect(() => decodeImage(encodeImage(image).subarray(0, 40))).toThrow(/do not match/);
   });
 });
+
+describe("multi-modular proof, step 3 (why steps 1 and 2 are not enough)", () => {
+  it("rejects a lift that passes Buchberger's criterion and the inputs check but generates a larger ideal", () => {
+    // F = {x*y^2 + p*y^3 + y, x} generates <x, y^3 + y/p> over Q; modulo p it gives <x, y>, and
+    // G = {x, y} is a Gröbner basis containing F (worked out by hand: x*y^2 + p*y^3 + y = y^2*x +
+    // (p*y^2 + 1)*y). Only step 3 (Hilbert functions at p) tells the lift is wrong.
+    const p = 1000003;
+    const { R, polys } = system(["x", "y"], "grevlex", [`x*y^2 + ${p}*y^3 + y`, "x"]);
+    const input = multiModularInput(polys);
+    const image = imageModPrime(input, p, new Limits());
+    const wrong: LiftCandidate = { basis: ["y", "x"], primes: [p], unlucky: [], checkedWith: p };
+    const outcome = (batch: Parameters<typeof proveBatch>[2]) => proveBatch(input, wrong, batch, new Limits());
+    expect(image.lengths.length).toBe(2);
+    expect(proofBatches(input, wrong, 1).filter((b) => b.kind !== "hilbert").map(outcome).every((o) => o.ok)).toBe(true);
+    expect(outcome({ kind: "hilbert", p })).toEqual({ ok: false, failed: "hilbert" });
+    expect(groebnerBasis(polys).map((g) => R.format(g))).toEqual(["x", `y^3 + 1/${p}*y`]);
+  });
+});
