@@ -7,8 +7,8 @@ import { integerCoefficients } from "../groebner/coefficients";
 import { clearDenominators, toEngine } from "../groebner/convert";
 import type { Limits } from "../groebner/limits";
 import type { EPoly } from "../groebner/reduce";
-import { ReductionKernel, toReducer } from "../groebner/reduce";
 import { verifyGroebner } from "../groebner/verify";
+import { ZeroTest } from "../groebner/zero-test";
 import type { F4Poly, F4Stats } from "./f4";
 import { f4ModP } from "./f4";
 import { invModP } from "./modp";
@@ -264,12 +264,8 @@ function prove(
   const tv = Date.now();
   if (!verifyGroebner(Gz, K, n, cmp, limits)) { stats.failed = "groebner"; return false; }
   stats.criterionMs = Date.now() - tv;
-  const reducers = Gz.map((g) => toReducer(g, n));
-  const top = new ReductionKernel(K, n, cmp, () => limits.checkTime(), false);
-  for (const f of integer) {
-    const coeffs = f.coeffs.slice();
-    if (top.reduce({ coeffs, exps: f.exps }, reducers, false).coeffs.length !== 0) { stats.failed = "inputs"; return false; }
-  }
+  const rows = new ZeroTest(Gz, K, n, cmp, () => limits.checkTime());
+  if (!integer.every((f) => rows.reducesToZero(f))) { stats.failed = "inputs"; return false; }
   if ("hFree" in containment) {
     if (!leadsCovered(G.map((g) => g.exps), containment.hFree)) { stats.failed = "hilbert"; return false; }
   } else if (!allMembers(Gz, containment.reference, limits)) { stats.failed = "membership"; return false; }
@@ -279,21 +275,15 @@ function prove(
 /** Does every polynomial of `polys` (engine form, this ring's order) lie in the ideal of the Gröbner basis `reference`? */
 function allMembers(polys: readonly EPoly<bigint>[], reference: readonly Polynomial<Rational>[], limits: Limits): boolean {
   const refRing = reference[0].ring;
-  const n = refRing.n, S = n + 1, K = integerCoefficients;
+  const n = refRing.n, K = integerCoefficients;
   const reducers = reference.map((r) => {
     const z = clearDenominators(toEngine(r));
     K.normalize(z.coeffs, () => limits.checkTime());
-    return toReducer(z, n);
+    return z;
   });
-  const top = new ReductionKernel(K, n, refRing.cmp, () => limits.checkTime(), false);
-  for (const g of polys) {
-    // The same polynomial with its terms in the reference's order.
-    const order = Array.from(g.coeffs.keys()).sort((a, b) => refRing.cmp(g.exps, b * S, g.exps, a * S));
-    const exps = new Int32Array(g.exps.length);
-    order.forEach((t, k) => exps.set(g.exps.subarray(t * S, t * S + S), k * S));
-    if (top.reduce({ coeffs: order.map((t) => g.coeffs[t]), exps }, reducers, false).coeffs.length !== 0) return false;
-  }
-  return true;
+  // ZeroTest sorts the terms in the reference's order itself.
+  const rows = new ZeroTest(reducers, K, n, refRing.cmp, () => limits.checkTime());
+  return polys.every((g) => rows.reducesToZero(g));
 }
 
 /** The h-free leading monomials of the reduced basis of F^h mod p (grevlex, h last), as packed x-monomials. */
