@@ -6,6 +6,7 @@ import { updatePairs } from "./pairs";
 import type { EPoly, Reducer } from "./reduce";
 import { ReductionKernel, toReducer } from "./reduce";
 import type { Kernel } from "./reduce";
+import { RowKernel } from "./row-kernel";
 
 export type SelectionStrategy = "sugar" | "normal";
 
@@ -14,6 +15,8 @@ export interface EngineOptions {
   readonly limits?: Limits;
   /** Filled with the steps that produced new basis elements (for replay over Q, see modular.ts). */
   readonly trace?: TraceEvent[];
+  /** Reduce by dense rows (row-kernel.ts: same steps, faster when remainders are long, as in block orders). */
+  readonly rows?: boolean;
 }
 
 /**
@@ -45,7 +48,7 @@ export function buchberger<C>(
 ): EPoly<C>[] {
   const limits = options.limits ?? new Limits();
   const strategy = options.strategy ?? "sugar";
-  const kernel = new ReductionKernel(K, n, cmp, () => limits.checkTime());
+  const kernel: Kernel<C> = options.rows ? new RowKernel(K, n, cmp, () => limits.checkTime()) : new ReductionKernel(K, n, cmp, () => limits.checkTime());
   const basis: Element<C>[] = [];
   let pairs: CriticalPair[] = [];
   let live: Reducer<C>[] = [];

@@ -4,8 +4,7 @@ import { Limits } from "./limits";
 import type { BasisEntry, CriticalPair } from "./pairs";
 import { updatePairs } from "./pairs";
 import type { EPoly } from "./reduce";
-import { ReductionKernel, toReducer } from "./reduce";
-import { sPolynomialHead } from "./buchberger";
+import { ZeroTest } from "./zero-test";
 
 /**
  * Proves that G is a Gröbner basis (of the ideal it generates) by Buchberger's criterion with the
@@ -31,13 +30,12 @@ export function verifyGroebner<C>(
     entries.push({ lm: g.exps.subarray(0, n + 1), sugar: 0, live: true });
     pairs = updatePairs(entries, pairs, entries.length - 1, n);
   }
-  const reducers = G.map((g, i) => ({ g, live: entries[i].live })).filter((x) => x.live).map((x) => toReducer(x.g, n));
-  const kernel = new ReductionKernel(K, n, cmp, () => limits.checkTime(), false);
+  // Reduced by rows (zero-test.ts): the same top reductions without re-copying the remainder each step.
+  const rows = new ZeroTest(G, K, n, cmp, () => limits.checkTime());
   for (let k = part.index; k < pairs.length; k += part.of) {
     const pair = pairs[k];
     limits.checkTime();
-    const s = sPolynomialHead(G[pair.i], pair.lcm, n);
-    if (kernel.reduce(s, reducers, false, G[pair.j]).coeffs.length !== 0) return false;
+    if (!rows.sPolynomialReducesToZero(pair.i, pair.j)) return false;
   }
   return true;
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { parseTimeReport } from "../../../bench/lib/process";
+import { benchEnvironment, parseTimeReport } from "../../../bench/lib/process";
 
 describe("parseTimeReport (GNU time with -f '%U %S %M')", () => {
   it("adds user and system seconds and reads peak memory in kB", () => {
@@ -11,5 +11,12 @@ describe("parseTimeReport (GNU time with -f '%U %S %M')", () => {
   it("returns undefined for anything else, e.g. a run killed before GNU time wrote", () => {
     expect(parseTimeReport("")).toBeUndefined();
     expect(parseTimeReport("Command terminated by signal 9\n")).toBeUndefined();
+  });
+});
+
+describe("benchEnvironment", () => {
+  it("drops NODE_EXTRA_CA_CERTS and keeps everything else", () => {
+    const env = benchEnvironment({ PATH: "/usr/bin", NODE_EXTRA_CA_CERTS: "/tmp/extra.pem", LANG: "C" });
+    expect(env).toEqual({ PATH: "/usr/bin", LANG: "C" });
   });
 });
