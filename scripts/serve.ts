@@ -24,6 +24,7 @@ import express, { type Application, type NextFunction, type Request, type Reques
 import type { ServerBuild } from "react-router";
 import type { ServerLoadContext } from "../app/load-context";
 import { CROSS_ORIGIN_MESSAGE, crossOriginWrite } from "../app/permissions/same-origin";
+import { startCpuProfile } from "./lib/cpu-profile";
 import { binaryFilePart, bodyLimitFor, errorBody, nulLocation, SECURITY_HEADERS } from "./lib/request-guards";
 
 /** express's `trust proxy` value from TRUST_PROXY: false, a hop count, or a list of addresses. */
@@ -212,10 +213,11 @@ async function main() {
   const port = Number(process.env.PORT ?? 3000);
   if (!Number.isInteger(port) || port <= 0 || port > 65535) throw new Error(`PORT must be a port number, not "${process.env.PORT}"`);
   const trustProxy = parseTrustProxy(process.env.TRUST_PROXY);
+  const stopProfile = await startCpuProfile(process.env.CPU_PROFILE_DIR);
   const server = await createAppServer(entry, { trustProxy });
   server.listen(port, host, () => console.log(`[serve] http://${host}:${port}${trustProxy === false ? "" : ` (trust proxy: ${trustProxy})`}`));
   const stop = () => {
-    server.close(() => process.exit(0));
+    server.close(() => void (stopProfile?.() ?? Promise.resolve()).finally(() => process.exit(0)));
     server.closeAllConnections();
   };
   process.once("SIGTERM", stop);

@@ -80,13 +80,18 @@ export function send(target: Target, step: Step): Promise<Sample> {
 
 /**
  * Runs `users` virtual users for `seconds`; user i repeats `script(i)` (a list of steps, which
- * may change between rounds) until time is up, then finishes its current request.
+ * may change between rounds) until time is up, then finishes its current request. People do not
+ * all press a key in the same millisecond: user i arrives at i/users of `arrivalMs` (default: the
+ * first step's think time), so the users are spread over one think time instead of starting as a
+ * burst; the time is counted from the first arrival, and the load is the same once all are in.
  */
-export async function closedLoop(target: Target, users: number, seconds: number, script: (user: number, round: number) => Step[]): Promise<Sample[]> {
+export async function closedLoop(target: Target, users: number, seconds: number, script: (user: number, round: number) => Step[], arrivalMs?: number): Promise<Sample[]> {
   const samples: Sample[] = [];
   const until = performance.now() + seconds * 1000;
+  const spread = arrivalMs ?? script(0, 0)[0]?.thinkMs ?? 0;
   await Promise.all(
     Array.from({ length: users }, async (_, user) => {
+      if (spread > 0 && user > 0) await new Promise((r) => setTimeout(r, (user / users) * spread));
       for (let round = 0; performance.now() < until; round++) {
         for (const step of script(user, round)) {
           if (performance.now() >= until) break;
@@ -121,7 +126,11 @@ export interface RouteSummary {
 
 export function summarise(samples: readonly Sample[], seconds: number): RouteSummary[] {
   const byRoute = new Map<string, Sample[]>();
-  for (const s of samples) byRoute.set(s.route, [...(byRoute.get(s.route) ?? []), s]);
+  for (const s of samples) {
+    const list = byRoute.get(s.route);
+    if (list) list.push(s);
+    else byRoute.set(s.route, [s]);
+  }
   const rows = [...byRoute].map(([route, list]) => summaryRow(route, list, seconds));
   if (byRoute.size > 1) rows.push(summaryRow("all", [...samples], seconds));
   return rows;
