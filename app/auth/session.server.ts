@@ -21,6 +21,7 @@ export type AppSession = Session<SessionData, SessionFlash>;
 const THIRTY_DAYS = 60 * 60 * 24 * 30;
 
 let storage: ReturnType<typeof createStorage> | undefined;
+let sessionCookie: ReturnType<typeof createCookie> | undefined;
 
 /**
  * Sessions live in the database (table `sessions`); the cookie carries only a random id, signed
@@ -37,6 +38,7 @@ function createStorage() {
     maxAge: THIRTY_DAYS,
     secrets: [env.sessionSecret],
   });
+  sessionCookie = cookie;
   const expiry = (expires?: Date) => expires ?? new Date(Date.now() + THIRTY_DAYS * 1000);
   const userIdOf = (data: object) => {
     const v = (data as SessionData).userId;
@@ -56,7 +58,7 @@ function createStorage() {
       const row = await db()
         .selectFrom("sessions")
         .select("data")
-        .where("id_hash", "=", sha256Hex(id))
+        .where("id_hash", "=", sessionKey(id))
         .where("expires_at", ">", new Date())
         .executeTakeFirst();
       return (row?.data as never) ?? null;
@@ -93,6 +95,19 @@ function sessionStorage() {
   storage ??= createStorage();
   return storage;
 }
+
+/**
+ * The session id the request's cookie carries (signature checked), or null; for reading the
+ * session row together with what it points to in one query (identity.server.ts).
+ */
+export async function sessionIdOf(request: Request): Promise<string | null> {
+  sessionStorage();
+  const id: unknown = await sessionCookie!.parse(request.headers.get("Cookie"));
+  return typeof id === "string" && id !== "" ? id : null;
+}
+
+/** The row key of a session id (the table stores only its hash). */
+export const sessionKey = (id: string) => sha256Hex(id);
 
 export function getSession(request: Request): Promise<AppSession> {
   return sessionStorage().getSession(request.headers.get("Cookie"));
