@@ -3,8 +3,8 @@
  * app around @react-router/express's request handler. In order, every request gets:
  *
  * 1. the security headers (request-guards.ts);
- * 2. compression (gzip/deflate/br as the client accepts; already-compressed types such as woff2 are
- *    left alone);
+ * 2. compression (gzip/deflate/br as the client accepts, at COMPRESSION_LEVEL; already-compressed
+ *    types such as woff2 are left alone);
  * 3. static files from build/client: hashed files under /assets/ with a one-year immutable cache,
  *    other files revalidated (ETag, Last-Modified);
  * 4. for writes (every method but GET, HEAD, OPTIONS): the same-origin check, pages' form posts
@@ -51,6 +51,14 @@ export function clientAddressOf(req: Request): string | undefined {
   const ip = req.ip ?? req.socket.remoteAddress;
   return ip ? ip.replace(/^::ffff:(\d+\.\d+\.\d+\.\d+)$/, "$1") : undefined;
 }
+
+/**
+ * zlib level 3 instead of the default 6: on our pages about a third of the CPU time for an answer
+ * about 13 % larger (a 135 KB network page: 17.8 KB instead of 15.7 KB), measured in
+ * `bench --load`. A page is compressed on every view, so this is paid per request. Answers under
+ * 1 KB (compression's threshold) are sent as they are.
+ */
+export const COMPRESSION_LEVEL = 3;
 
 /** Adds SECURITY_HEADERS before anything is written; the app's own headers are appended after. */
 function securityHeaders(_req: Request, res: Response, next: NextFunction) {
@@ -160,7 +168,7 @@ export function createApp(options: AppOptions): Application {
   const publicPath = (options.publicPath || "/").replace(/\/?$/, "/");
   const clientDir = path.resolve(options.clientDir);
   app.use(securityHeaders);
-  app.use(compression());
+  app.use(compression({ level: COMPRESSION_LEVEL }));
   app.use(
     `${publicPath}assets`,
     express.static(path.join(clientDir, "assets"), { immutable: true, maxAge: "1y", index: false, redirect: false }),
