@@ -20,6 +20,7 @@ import path from "node:path";
 import { ensureDatabase, freePort, serverUrl, startThrowawayCluster } from "../scripts/db/postgres";
 import type { Managed } from "../scripts/lib/processes";
 import { buildApp, buildIsStale, startAppServer, startWorkerIfPresent } from "../scripts/lib/services";
+import { webProcesses } from "../scripts/lib/web-cluster";
 import { migrate } from "../scripts/migrate";
 import { seed } from "../scripts/seed";
 import { DEMO_LAB } from "../seeds/demo-data";
@@ -54,6 +55,9 @@ function parseLoadOptions(argv: string[]): LoadOptions {
 }
 
 const READS = ["network list", "network page", "network API"];
+
+/** How many web processes the app runs with (WEB_PROCESSES as scripts/serve.ts reads it). */
+let webProcessCount = 1;
 
 export async function runLoad(argv: string[], root: string): Promise<number> {
   const o = parseLoadOptions(argv);
@@ -94,11 +98,12 @@ export async function runLoad(argv: string[], root: string): Promise<number> {
     }
     const worker = startWorkerIfPresent(env, { quiet: true });
     if (worker) children.push(worker);
+    webProcessCount = webProcesses(env.WEB_PROCESSES);
     const appEnv = o.profileDir ? { ...env, CPU_PROFILE_DIR: o.profileDir } : env;
     const app = await startAppServer(appEnv, "127.0.0.1", appPort, { quiet: true, serverEntry });
     children.push(app);
     console.log(
-      `app ${appUrl} (DB_POOL_MAX ${env.DB_POOL_MAX ?? "default"}, WEB_PROCESSES ${env.WEB_PROCESSES ?? "default"}${o.profileDir ? `, CPU profiles into ${o.profileDir}` : ""}), worker ${worker ? "running" : "absent"}; ${users} signed-in users\n`,
+      `app ${appUrl} (DB_POOL_MAX ${env.DB_POOL_MAX ?? "default"} per process, ${webProcessCount} web process${webProcessCount === 1 ? "" : "es"} (WEB_PROCESSES ${env.WEB_PROCESSES ?? "unset"})${o.profileDir ? `, CPU profiles into ${o.profileDir}` : ""}), worker ${worker ? "running" : "absent"}; ${users} signed-in users\n`,
     );
     const ours = { app: app.child.pid!, worker: worker?.child.pid, postgres: postmasterPid(pg.cluster.dataDir) };
 
@@ -252,9 +257,9 @@ async function cancelAll(control: ReturnType<typeof makeTarget>, lab: string, co
 /**
  * What one answer of each read costs before any load: its size as sent (gzip, as the generator
  * asks) and unpacked, and how many database queries it made (the app pool's acquisitions: one per
- * query outside a transaction; /api/health's own are subtracted). With several web processes the
- * counters are one process's, so the query count is printed only when all three health calls
- * (before, after and the reference) were answered by the same process.
+ * query outside a transaction; the counters' own /api/health calls are subtracted). Run it with
+ * WEB_PROCESSES=1 for exact counts: with several processes the background (the worker's
+ * submissions are not in it, but an app process's own timers are) can blur them.
  */
 async function printRequestCosts(control: ReturnType<typeof makeTarget>, steps: Step[]) {
   const url = (p: string) => `http://${control.host}:${control.port}${p}`;
@@ -281,24 +286,45 @@ async function printRequestCosts(control: ReturnType<typeof makeTarget>, steps: 
     });
     const after = await poolCounters(control);
     const queries = after.acquisitions - before.acquisitions - healthCost;
-    console.log(`| ${step.route} | ${sample} | ${unpacked} | ${queries >= 0 ? queries : "n/a (another web process answered)"} |`);
+    console.log(`| ${step.route} | ${sample} | ${unpacked} | ${queries >= 0 ? queries : "n/a"} |`);
   }
   console.log("");
 }
 
 /** The pool counters /api/health reports with DB_POOL_STATS=1 (the server's own type). */
 type PoolCounters = PoolStats;
-type PoolDelta = PoolCounters;
+type PoolDelta = PoolCounters & { processes: number };
 
-async function poolCounters(control: ReturnType<typeof makeTarget>): Promise<PoolCounters> {
-  const body = (await fetchJson(control, { route: "setup", path: "/api/health" })) as { pool?: PoolCounters };
-  if (!body.pool) throw new Error("/api/health has no pool counters (DB_POOL_STATS=1 not honoured)");
-  return body.pool;
+/**
+ * Every web process's counters, summed: /api/health answers with the counters of the process it
+ * reached, and the cluster's primary deals new connections round-robin, so asking a few times
+ * over fresh connections reaches each of them (the newest answer of each process counts).
+ */
+async function poolCounters(control: ReturnType<typeof makeTarget>): Promise<PoolCounters & { processes: number }> {
+  const byPid = new Map<number, PoolCounters>();
+  for (let i = 0; i < webProcessCount * 2 + (webProcessCount > 1 ? 2 : 0); i++) {
+    const res = await fetch(`http://${control.host}:${control.port}/api/health`, { headers: { Connection: "close" } });
+    const body = (await res.json()) as { pool?: PoolCounters; pid?: number };
+    if (!body.pool) throw new Error("/api/health has no pool counters (DB_POOL_STATS=1 not honoured)");
+    byPid.set(body.pid ?? 0, body.pool);
+    if (webProcessCount === 1) break;
+  }
+  const all = [...byPid.values()];
+  const sum = (k: keyof PoolCounters) => all.reduce((n, p) => n + p[k], 0);
+  return {
+    max: sum("max"),
+    acquisitions: sum("acquisitions"),
+    queued: sum("queued"),
+    queuedMsTotal: sum("queuedMsTotal"),
+    maxWaitMs: Math.max(...all.map((p) => p.maxWaitMs)),
+    failed: sum("failed"),
+    processes: byPid.size,
+  };
 }
 
-function delta(a: PoolCounters, b: PoolCounters): PoolDelta {
+function delta(a: PoolDelta, b: PoolDelta): PoolDelta {
   // maxWaitMs is a running maximum: the later value bounds this phase's longest wait.
-  return { max: b.max, acquisitions: b.acquisitions - a.acquisitions, queued: b.queued - a.queued, queuedMsTotal: b.queuedMsTotal - a.queuedMsTotal, maxWaitMs: b.maxWaitMs, failed: b.failed - a.failed };
+  return { processes: b.processes, max: b.max, acquisitions: b.acquisitions - a.acquisitions, queued: b.queued - a.queued, queuedMsTotal: b.queuedMsTotal - a.queuedMsTotal, maxWaitMs: b.maxWaitMs, failed: b.failed - a.failed };
 }
 
 /** Samples the database's open connections every 250 ms (all clients: app, worker, pg-boss). */
@@ -381,7 +407,7 @@ function printLevel(users: number, o: LoadOptions, rows: RouteSummary[], pool: P
   for (const r of rows) console.log(`| ${r.route} | ${r.requests} | ${r.errors} | ${ms(r.p50)} | ${ms(r.p95)} | ${ms(r.p99)} | ${ms(r.max)} | ${r.perSecond.toFixed(1)} |`);
   for (const r of rows) if (r.reasons.length > 0) console.log(`  ${r.route} errors: ${r.reasons.join("; ")}`);
   console.log(
-    `pool (max ${pool.max}): ${pool.acquisitions} connections handed out, ${pool.queued} queued (${pool.queued === 0 ? "no waits" : `mean wait ${Math.round(pool.queuedMsTotal / pool.queued)} ms`}), longest acquisition so far ${pool.maxWaitMs} ms, ${pool.failed} failed; database connections open at most ${db.maxConnections}`,
+    `pool (max ${pool.max}${pool.processes > 1 ? `, summed over ${pool.processes} web processes` : ""}): ${pool.acquisitions} connections handed out, ${pool.queued} queued (${pool.queued === 0 ? "no waits" : `mean wait ${Math.round(pool.queuedMsTotal / pool.queued)} ms`}), longest acquisition so far ${pool.maxWaitMs} ms, ${pool.failed} failed; database connections open at most ${db.maxConnections}`,
   );
   const beside = cpu.busiestOthers.length > 0 ? ` (busiest: ${cpu.busiestOthers.map((p) => `${p.name} ${p.percent} %`).join(", ")})` : "";
   console.log(

@@ -25,6 +25,7 @@ import type { ServerBuild } from "react-router";
 import type { ServerLoadContext } from "../app/load-context";
 import { CROSS_ORIGIN_MESSAGE, crossOriginWrite } from "../app/permissions/same-origin";
 import { startCpuProfile } from "./lib/cpu-profile";
+import { isClusterWorker, superviseWorkers, webProcesses } from "./lib/web-cluster";
 import { binaryFilePart, bodyLimitFor, errorBody, nulLocation, SECURITY_HEADERS } from "./lib/request-guards";
 
 /** express's `trust proxy` value from TRUST_PROXY: false, a hop count, or a list of addresses. */
@@ -221,9 +222,18 @@ async function main() {
   const port = Number(process.env.PORT ?? 3000);
   if (!Number.isInteger(port) || port <= 0 || port > 65535) throw new Error(`PORT must be a port number, not "${process.env.PORT}"`);
   const trustProxy = parseTrustProxy(process.env.TRUST_PROXY);
+  const processes = webProcesses(process.env.WEB_PROCESSES);
+  if (processes > 1 && !isClusterWorker()) {
+    console.log(`[serve] http://${host}:${port}: ${processes} web processes (WEB_PROCESSES)`);
+    await superviseWorkers({ processes });
+    process.exit(0);
+  }
   const stopProfile = await startCpuProfile(process.env.CPU_PROFILE_DIR);
   const server = await createAppServer(entry, { trustProxy });
-  server.listen(port, host, () => console.log(`[serve] http://${host}:${port}${trustProxy === false ? "" : ` (trust proxy: ${trustProxy})`}`));
+  server.listen(port, host, () => {
+    if (isClusterWorker()) return;
+    console.log(`[serve] http://${host}:${port}${trustProxy === false ? "" : ` (trust proxy: ${trustProxy})`}`);
+  });
   const stop = () => {
     server.close(() => void (stopProfile?.() ?? Promise.resolve()).finally(() => process.exit(0)));
     server.closeAllConnections();
