@@ -35,12 +35,14 @@ interface LoadOptions {
   thinkMs: number;
   /** Folder for the app server's V8 CPU profiles (node --cpu-prof), one per web process. */
   profileDir?: string;
+  /** Only these reads (by position: list, page, api), to measure one route's cost alone. */
+  reads: string[];
 }
 
-export const LOAD_USAGE = `npm run bench -- --load [--levels 50,200] [--seconds 20] [--think 1000] [--profile DIR]`;
+export const LOAD_USAGE = `npm run bench -- --load [--levels 50,200] [--seconds 20] [--think 1000] [--profile DIR] [--reads list,page,api]`;
 
 function parseLoadOptions(argv: string[]): LoadOptions {
-  const o: LoadOptions = { levels: [50, 200], seconds: 20, thinkMs: 1000 };
+  const o: LoadOptions = { levels: [50, 200], seconds: 20, thinkMs: 1000, reads: ["list", "page", "api"] };
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i]!;
     if (a === "--load") continue;
@@ -49,6 +51,7 @@ function parseLoadOptions(argv: string[]): LoadOptions {
     else if (a === "--seconds" && value && /^\d+$/.test(value) && Number(value) > 0) o.seconds = Number(value);
     else if (a === "--think" && value && /^\d+$/.test(value)) o.thinkMs = Number(value);
     else if (a === "--profile" && value) o.profileDir = path.resolve(value);
+    else if (a === "--reads" && value && /^(list|page|api)(,(list|page|api))*$/.test(value)) o.reads = value.split(",");
     else throw new RangeError(`bench --load: unexpected "${a}${value === undefined ? "" : ` ${value}`}"\nusage: ${LOAD_USAGE}`);
   }
   return o;
@@ -127,11 +130,14 @@ export async function runLoad(argv: string[], root: string): Promise<number> {
       await new Promise((r) => setTimeout(r, 250));
     }
 
-    const readSteps = (cookie: string): Step[] => [
-      { route: "network list", path: `/labs/${lab}/networks`, headers: { Cookie: cookie }, thinkMs: o.thinkMs },
-      { route: "network page", path: `/labs/${lab}/networks/${pageNetwork}`, headers: { Cookie: cookie }, thinkMs: o.thinkMs },
-      { route: "network API", path: `/api/labs/${lab}/networks/${pageNetwork}`, headers: { Cookie: cookie }, thinkMs: o.thinkMs },
-    ];
+    const readSteps = (cookie: string): Step[] =>
+      [
+        { key: "list", route: "network list", path: `/labs/${lab}/networks`, headers: { Cookie: cookie }, thinkMs: o.thinkMs },
+        { key: "page", route: "network page", path: `/labs/${lab}/networks/${pageNetwork}`, headers: { Cookie: cookie }, thinkMs: o.thinkMs },
+        { key: "api", route: "network API", path: `/api/labs/${lab}/networks/${pageNetwork}`, headers: { Cookie: cookie }, thinkMs: o.thinkMs },
+      ]
+        .filter((s) => o.reads.includes(s.key))
+        .map(({ key: _key, ...step }) => step);
     await printRequestCosts(control, readSteps(cookies[0]!));
 
     const results: { users: number; rows: RouteSummary[]; pool: PoolDelta; db: { maxConnections: number }; cpu: CpuShares }[] = [];

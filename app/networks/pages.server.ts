@@ -98,6 +98,13 @@ export async function requireVersion(db: Kysely<Database>, network: NetworkRecor
   return version;
 }
 
+/** The newest of `versions` (newest first) for no `raw`, else the one numbered `raw`; undefined when there is none. */
+function pickVersion(versions: readonly VersionRecord[], raw: string | null): VersionRecord | undefined {
+  if (raw == null || raw === "") return versions[0];
+  const number = Number(raw);
+  return versions.find((v) => v.number === number);
+}
+
 export interface NetworkPageData {
   lab: { slug: string; name: string; isPublic: boolean };
   network: NetworkJson;
@@ -120,8 +127,9 @@ export interface NetworkPageData {
 
 /** The newest finished analysis of exactly this version, for the verdict card. */
 async function latestAnalysisOf(db: Kysely<Database>, labSlug: string, labId: string, networkId: string, versionNumber: number): Promise<LatestAnalysis | null> {
-  const jobs = await listJobs(db, labId, { kind: "analysis", networkId, limit: 50 });
-  const job = jobs.find((j) => j.status === "succeeded" && j.version_number === versionNumber && j.result);
+  // Only finished runs of exactly this version: a few rows, not the network's whole history.
+  const jobs = await listJobs(db, labId, { kind: "analysis", networkId, versionNumber, status: "succeeded", limit: 5 });
+  const job = jobs.find((j) => j.result);
   if (!job) return null;
   return {
     href: analysisPath(labSlug, job.id),
@@ -132,8 +140,10 @@ async function latestAnalysisOf(db: Kysely<Database>, labSlug: string, labId: st
 }
 
 export async function networkPageData(db: Kysely<Database>, access: LabAccess, network: NetworkRecord, versionParam: string | null): Promise<NetworkPageData> {
-  const version = await requireVersion(db, network, versionParam);
+  // One query for the list and the version shown (the newest, or ?v=N from the same list).
   const versions = await listVersions(db, network.id);
+  const version = pickVersion(versions, versionParam);
+  if (!version) throw notFound(`No version ${versionParam}`);
   const state = await structureState(db, version.csv);
   const canEdit = hasRole(access.role, "editor");
   const latest = await latestAnalysisOf(db, access.lab.slug, access.lab.id, network.id, version.number);
