@@ -15,6 +15,7 @@
  *    address counts and X-Forwarded-For is ignored; a hop count (`1` behind one reverse proxy) or a
  *    list of proxy addresses (`loopback, 10.0.0.0/8`) says which X-Forwarded-For entries to believe.
  */
+import { readdirSync } from "node:fs";
 import http from "node:http";
 import path from "node:path";
 import { Readable } from "node:stream";
@@ -161,6 +162,24 @@ export interface AppOptions {
   handle: RequestHandler;
 }
 
+/** The files and folders directly in `dir` (none when it does not exist), besides assets/. */
+function topLevelNames(dir: string): Set<string> {
+  try {
+    return new Set(readdirSync(dir).filter((name) => name !== "assets"));
+  } catch {
+    return new Set();
+  }
+}
+
+function decodeFirstSegment(p: string): string {
+  const first = p.split("/")[1] ?? "";
+  try {
+    return decodeURIComponent(first);
+  } catch {
+    return first;
+  }
+}
+
 /** The express app: security headers, compression, static files, same-origin writes, body limits, then the app. */
 export function createApp(options: AppOptions): Application {
   const app = express();
@@ -174,7 +193,11 @@ export function createApp(options: AppOptions): Application {
     `${publicPath}assets`,
     express.static(path.join(clientDir, "assets"), { immutable: true, maxAge: "1y", index: false, redirect: false }),
   );
-  app.use(publicPath, express.static(clientDir, { maxAge: 0, index: false, redirect: false }));
+  // Only for names that are there (favicon.svg, …): looking every page and API path up on disk
+  // first cost a failed stat and an error object per request.
+  const topLevel = topLevelNames(clientDir);
+  const files = express.static(clientDir, { maxAge: 0, index: false, redirect: false });
+  app.use(publicPath, (req: Request, res: Response, next: NextFunction) => (topLevel.has(decodeFirstSegment(req.path)) ? files(req, res, next) : next()));
   app.use(sameOriginWrites(options.appOrigins ?? []));
   app.use(guardBody(options.handle));
   app.use((err: unknown, _req: Request, res: Response, _next: NextFunction) => {
