@@ -134,6 +134,24 @@ export async function listNetworks(db: DbExecutor, labId: string, options: { inc
   }));
 }
 
+/** The network in this lab with its newest version, in one query; undefined as for findNetwork. */
+export async function findNetworkWithLatest(db: DbExecutor, labId: string, networkId: string | undefined): Promise<{ network: NetworkRecord; latest: VersionRecord } | undefined> {
+  if (!isUuid(networkId)) return undefined;
+  const row = await db
+    .selectFrom("networks as n")
+    .innerJoinLateral(
+      (eb) => eb.selectFrom("network_versions as lv").selectAll("lv").whereRef("lv.network_id", "=", "n.id").orderBy("lv.number", "desc").limit(1).as("v"),
+      (join) => join.onTrue(),
+    )
+    .leftJoin("users as u", "u.id", "v.author_id")
+    .select(networkColumns)
+    .select(["v.id as v_id", "v.number", "v.content_hash", "v.csv", "v.change_note", "v.author_id", "v.created_at as v_created_at", "u.display_name as author_name"])
+    .where("n.id", "=", networkId)
+    .where("n.lab_id", "=", labId)
+    .executeTakeFirst();
+  return row && { network: toNetwork(row), latest: toVersion({ ...row, id: row.v_id, network_id: row.id, created_at: row.v_created_at }) };
+}
+
 /** The network in this lab, or undefined (also for a malformed id). */
 export async function findNetwork(db: DbExecutor, labId: string, networkId: string | undefined): Promise<NetworkRecord | undefined> {
   if (!isUuid(networkId)) return undefined;

@@ -9,7 +9,7 @@ import { apiError } from "~/permissions/api-errors";
 import type { LabAccess } from "~/permissions/permissions.server";
 import { hasRole } from "~/permissions/roles";
 import { diffNetworks, type NetworkDiff } from "./diff";
-import { findNetwork, findVersion, latestVersion, listNetworks, listVersions, type NetworkRecord, type VersionRecord } from "./networks.server";
+import { findNetwork, findNetworkWithLatest, findVersion, latestVersion, listNetworks, listVersions, type NetworkRecord, type VersionRecord } from "./networks.server";
 import { checkNetworkFile, odesOf } from "./structure.server";
 import { structureState, structureStates, type StructureState } from "./structure-store.server";
 import { contentHash } from "./networks.server";
@@ -86,6 +86,13 @@ export async function requireNetwork(db: Kysely<Database>, access: LabAccess, ne
     throw notFound();
   }
   return network;
+}
+
+/** The network and its newest version (one query), or the API's 404 as requireNetwork gives it. */
+export async function requireNetworkWithLatest(db: Kysely<Database>, access: LabAccess, networkId: string | undefined): Promise<{ network: NetworkRecord; latest: VersionRecord }> {
+  const found = await findNetworkWithLatest(db, access.lab.id, networkId);
+  if (!found) throw apiError("not_found", "No such network in this lab.");
+  return found;
 }
 
 /** `?v=3` or the newest version; a missing number is a 404. */
