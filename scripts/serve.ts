@@ -9,7 +9,9 @@
  *    other files revalidated (ETag, Last-Modified);
  * 4. for writes (every method but GET, HEAD, OPTIONS): the same-origin check, pages' form posts
  *    included (app/permissions/same-origin.ts: a foreign Origin is refused with 403 before the
- *    body is read), then the body limit of its route and the NUL check (request-guards.ts);
+ *    body is read), then, once the request's turn has come (at most REQUESTS_IN_PROGRESS at once,
+ *    the rest in arrival order: lib/admission.ts), the body limit of its route and the NUL check
+ *    (request-guards.ts);
  * 5. the app, with the client's address in its load context (app/load-context.ts) for the
  *    per-client limits. `TRUST_PROXY` is express's `trust proxy` setting: unset, the socket
  *    address counts and X-Forwarded-For is ignored; a hop count (`1` behind one reverse proxy) or a
@@ -25,6 +27,7 @@ import express, { type Application, type NextFunction, type Request, type Reques
 import type { ServerBuild } from "react-router";
 import type { ServerLoadContext } from "../app/load-context";
 import { CROSS_ORIGIN_MESSAGE, crossOriginWrite } from "../app/permissions/same-origin";
+import { admission, requestsInProgress } from "./lib/admission";
 import { startCpuProfile } from "./lib/cpu-profile";
 import { isClusterWorker, superviseWorkers, webProcesses } from "./lib/web-cluster";
 import { binaryFilePart, bodyLimitFor, errorBody, nulLocation, SECURITY_HEADERS } from "./lib/request-guards";
@@ -160,6 +163,8 @@ export interface AppOptions {
   appOrigins?: readonly string[];
   /** Everything that is not a static file: the SSR handler (express-style). */
   handle: RequestHandler;
+  /** At most this many app requests in progress at once, the rest queued in order (scripts/lib/admission.ts); 0 or unset: no limit. */
+  requestsInProgress?: number;
 }
 
 /** The files and folders directly in `dir` (none when it does not exist), besides assets/. */
@@ -199,6 +204,8 @@ export function createApp(options: AppOptions): Application {
   const files = express.static(clientDir, { maxAge: 0, index: false, redirect: false });
   app.use(publicPath, (req: Request, res: Response, next: NextFunction) => (topLevel.has(decodeFirstSegment(req.path)) ? files(req, res, next) : next()));
   app.use(sameOriginWrites(options.appOrigins ?? []));
+  // After the cheap refusals (cross-origin, static files), before anything reads a body or the database.
+  if (options.requestsInProgress) app.use(admission(options.requestsInProgress));
   app.use(guardBody(options.handle));
   app.use((err: unknown, _req: Request, res: Response, _next: NextFunction) => {
     console.error("[serve] unhandled:", err instanceof Error ? (err.stack ?? err.message) : err);
@@ -230,6 +237,7 @@ export async function createAppServer(entry: string, options: { trustProxy?: Tru
     publicPath: build.publicPath,
     trustProxy: options.trustProxy,
     appOrigins: appOrigin(process.env.APP_URL),
+    requestsInProgress: requestsInProgress(process.env.REQUESTS_IN_PROGRESS),
     handle: createRequestHandler({
       build,
       mode: process.env.NODE_ENV,

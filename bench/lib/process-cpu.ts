@@ -13,7 +13,11 @@ interface ProcEntry {
   pid: number;
   ppid: number;
   name: string;
-  /** User + system CPU of the process itself, in clock ticks. */
+  /**
+   * User + system CPU of the process and of its children that ended and were waited for, in
+   * clock ticks: a job process that lived two seconds between two snapshots still counts, in its
+   * parent's total.
+   */
   ticks: number;
 }
 
@@ -35,8 +39,8 @@ function readProc(pid: number): ProcEntry | undefined {
     const close = stat.lastIndexOf(")");
     const name = stat.slice(stat.indexOf("(") + 1, close);
     const fields = stat.slice(close + 2).split(" ");
-    // Fields after the name, 0-based: 1 = ppid, 11 = utime, 12 = stime.
-    return { pid, ppid: Number(fields[1]), name, ticks: Number(fields[11]) + Number(fields[12]) };
+    // Fields after the name, 0-based: 1 = ppid, 11 = utime, 12 = stime, 13 = cutime, 14 = cstime.
+    return { pid, ppid: Number(fields[1]), name, ticks: Number(fields[11]) + Number(fields[12]) + Number(fields[13]) + Number(fields[14]) };
   } catch {
     return undefined;
   }
@@ -78,9 +82,8 @@ function descendants(snapshot: CpuSnapshot, root: number): Set<number> {
 }
 
 /**
- * CPU milliseconds the tree under `root` used between the snapshots. Processes that started and
- * ended in between (short-lived children) are missed; the app, the worker and PostgreSQL's
- * backends live for the whole phase.
+ * CPU milliseconds the tree under `root` used between the snapshots, children that came and went
+ * in between included (in their parent's waited-for time).
  */
 export function treeCpuMs(before: CpuSnapshot, after: CpuSnapshot, root: number): number {
   let ticks = 0;
