@@ -1,6 +1,6 @@
 import http from "node:http";
 import type { AddressInfo } from "node:net";
-import express from "express";
+import express, { type Request, type Response } from "express";
 import { describe, expect, it } from "vitest";
 import { admission, requestsInProgress } from "../../../scripts/lib/admission";
 
@@ -21,10 +21,11 @@ describe("admission", () => {
     const held: (() => void)[] = [];
     const app = express();
     app.use(admit);
-    app.get("/:n", (req, res) => {
-      started.push(Number(req.params.n));
+    app.use((req: Request, res: Response) => {
+      const n = (req.url ?? "").slice(1);
+      started.push(Number(n));
       most = Math.max(most, admit.inProgress);
-      held.push(() => res.end(req.params.n));
+      held.push(() => res.end(n));
     });
     const server = http.createServer(app);
     await new Promise<void>((r) => server.listen(0, "127.0.0.1", r));
@@ -71,8 +72,8 @@ describe("admission", () => {
     let release: (() => void) | undefined;
     const app = express();
     app.use(admit);
-    app.get("/:name", (req, res) => {
-      started.push(req.params.name);
+    app.use((req: Request, res: Response) => {
+      started.push((req.url ?? "").slice(1));
       release = () => res.end("ok");
     });
     const server = http.createServer(app);
