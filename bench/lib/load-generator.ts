@@ -40,10 +40,23 @@ export function makeTarget(host: string, port: number, maxSockets: number, timeo
   return { host, port, agent: new http.Agent({ keepAlive: true, maxSockets }), timeoutMs };
 }
 
-/** Sends one request and reads the whole answer; never rejects. */
-export function send(target: Target, step: Step): Promise<Sample> {
+/**
+ * Sends one request and reads the whole answer; never rejects. Like a browser, a GET that fails
+ * on a kept-alive connection before any answer arrived (the server closed that idle connection
+ * just as the request went out) is sent once more on a fresh one; the time counts from the first try.
+ */
+export async function send(target: Target, step: Step): Promise<Sample> {
   const started = performance.now();
-  return new Promise((resolve) => {
+  const first = await attempt(target, step, started);
+  if (!first.retry) return first.sample;
+  return (await attempt(target, step, started)).sample;
+}
+
+function attempt(target: Target, step: Step, started: number): Promise<{ sample: Sample; retry: boolean }> {
+  return new Promise((resolveAttempt) => {
+    let answered = false;
+    const resolve = (sample: Sample) =>
+      resolveAttempt({ sample, retry: sample.status === 0 && !answered && req.reusedSocket && (step.method ?? "GET") === "GET" && sample.error !== undefined && !sample.error.startsWith("no answer") });
     let settled = false;
     const done = (status: number, error?: string) => {
       if (settled) return;
@@ -61,6 +74,7 @@ export function send(target: Target, step: Step): Promise<Sample> {
         headers: { "Accept-Encoding": "gzip", ...step.headers, ...(step.body === undefined ? {} : { "Content-Length": String(Buffer.byteLength(step.body)) }) },
       },
       (res) => {
+        answered = true;
         res.on("data", () => undefined);
         res.on("end", () => {
           const status = res.statusCode ?? 0;

@@ -13,10 +13,11 @@ interface ProcEntry {
   pid: number;
   ppid: number;
   name: string;
+  /** User + system CPU of the process itself, in clock ticks. */
+  self: number;
   /**
-   * User + system CPU of the process and of its children that ended and were waited for, in
-   * clock ticks: a job process that lived two seconds between two snapshots still counts, in its
-   * parent's total.
+   * `self` plus its children that ended and were waited for: a job process that lived two seconds
+   * between two snapshots still counts, in its parent's total.
    */
   ticks: number;
 }
@@ -40,7 +41,8 @@ function readProc(pid: number): ProcEntry | undefined {
     const name = stat.slice(stat.indexOf("(") + 1, close);
     const fields = stat.slice(close + 2).split(" ");
     // Fields after the name, 0-based: 1 = ppid, 11 = utime, 12 = stime, 13 = cutime, 14 = cstime.
-    return { pid, ppid: Number(fields[1]), name, ticks: Number(fields[11]) + Number(fields[12]) + Number(fields[13]) + Number(fields[14]) };
+    const self = Number(fields[11]) + Number(fields[12]);
+    return { pid, ppid: Number(fields[1]), name, self, ticks: self + Number(fields[13]) + Number(fields[14]) };
   } catch {
     return undefined;
   }
@@ -87,13 +89,17 @@ function descendants(snapshot: CpuSnapshot, root: number): Set<number> {
  */
 export function treeCpuMs(before: CpuSnapshot, after: CpuSnapshot, root: number): number {
   let ticks = 0;
-  for (const pid of descendants(after, root)) {
-    const now = after.processes.get(pid)!;
-    const then = before.processes.get(pid);
+  const now = descendants(after, root);
+  for (const pid of now) {
+    const a = after.processes.get(pid)!;
+    const b = before.processes.get(pid);
     // A pid reused in between would show as a new process: count only its current run.
-    ticks += then && then.name === now.name ? now.ticks - then.ticks : now.ticks;
+    ticks += b && b.name === a.name ? a.ticks - b.ticks : a.ticks;
   }
-  return (ticks * 1000) / TICKS_PER_SECOND;
+  // A descendant alive at the first snapshot and gone by the second lands whole in its parent's
+  // waited-for time; what it had used before the first snapshot is not this phase's.
+  for (const pid of descendants(before, root)) if (!now.has(pid)) ticks -= before.processes.get(pid)!.ticks;
+  return (Math.max(0, ticks) * 1000) / TICKS_PER_SECOND;
 }
 
 /** The whole machine's busy CPU milliseconds (all cores) between the snapshots. */
@@ -112,8 +118,9 @@ export function busiestOthers(before: CpuSnapshot, after: CpuSnapshot, ours: rea
   const byName = new Map<string, number>();
   for (const now of after.processes.values()) {
     if (excluded.has(now.pid)) continue;
+    // Own time only: a shell's waited-for children (a test run it started) are not the shell.
     const then = before.processes.get(now.pid);
-    const ticks = then && then.name === now.name ? now.ticks - then.ticks : 0;
+    const ticks = then && then.name === now.name ? now.self - then.self : 0;
     if (ticks > 0) byName.set(now.name, (byName.get(now.name) ?? 0) + ticks);
   }
   return [...byName]
