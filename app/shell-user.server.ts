@@ -1,7 +1,4 @@
-import { db } from "./db.server";
-import { getSession } from "./auth/session.server";
-import { listLabsOf } from "./labs/labs.server";
-import { getOptionalUser } from "./permissions/permissions.server";
+import { activeLabOf, getIdentity } from "./permissions/permissions.server";
 
 /**
  * The signed-in user shown in the app shell (header), or null when signed out.
@@ -16,12 +13,10 @@ export interface ShellUser {
 }
 
 export async function getShellUser(request: Request): Promise<ShellUser | null> {
-  // Accounts (issue 5): the session user and the lab they are working in.
-  const user = await getOptionalUser(request);
+  // Accounts (issue 5): the session user and the lab they are working in, read with the session.
+  const { user, labs, session } = await getIdentity(request);
   if (!user) return null;
-  const labs = await listLabsOf(db(), user.id);
-  const preferred = (await getSession(request)).get("labSlug");
-  const lab = labs.find((l) => l.slug === preferred) ?? labs[0];
+  const lab = activeLabOf(labs, session.labSlug);
   return {
     displayName: user.displayName,
     email: user.email,

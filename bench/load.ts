@@ -13,29 +13,36 @@
  * the three reads; at 200 users 0 errors. Exit code 1 when a target is missed.
  */
 import { randomBytes } from "node:crypto";
+import http from "node:http";
 import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { cpus, loadavg, tmpdir } from "node:os";
 import path from "node:path";
 import { ensureDatabase, freePort, serverUrl, startThrowawayCluster } from "../scripts/db/postgres";
 import type { Managed } from "../scripts/lib/processes";
 import { buildApp, buildIsStale, startAppServer, startWorkerIfPresent } from "../scripts/lib/services";
+import { webProcesses } from "../scripts/lib/web-cluster";
 import { migrate } from "../scripts/migrate";
 import { seed } from "../scripts/seed";
 import { DEMO_LAB } from "../seeds/demo-data";
 import type { PoolStats } from "../app/db.server";
 import { closedLoop, makeTarget, send, type RouteSummary, type Step, summarise } from "./lib/load-generator";
+import { busiestOthers, type CpuSnapshot, cpuSnapshot, machineCpuMs, treeCpuMs } from "./lib/process-cpu";
 
 interface LoadOptions {
   levels: number[];
   seconds: number;
   /** Pause of each user between two page loads (a person reading); 0 makes it a saturation test. */
   thinkMs: number;
+  /** Folder for the app server's V8 CPU profiles (node --cpu-prof), one per web process. */
+  profileDir?: string;
+  /** Only these reads (by position: list, page, api), to measure one route's cost alone. */
+  reads: string[];
 }
 
-export const LOAD_USAGE = `npm run bench -- --load [--levels 50,200] [--seconds 20] [--think 1000]`;
+export const LOAD_USAGE = `npm run bench -- --load [--levels 50,200] [--seconds 20] [--think 1000] [--profile DIR] [--reads list,page,api]`;
 
 function parseLoadOptions(argv: string[]): LoadOptions {
-  const o: LoadOptions = { levels: [50, 200], seconds: 20, thinkMs: 1000 };
+  const o: LoadOptions = { levels: [50, 200], seconds: 20, thinkMs: 1000, reads: ["list", "page", "api"] };
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i]!;
     if (a === "--load") continue;
@@ -43,12 +50,17 @@ function parseLoadOptions(argv: string[]): LoadOptions {
     if (a === "--levels" && value && /^\d+(,\d+)*$/.test(value)) o.levels = value.split(",").map(Number);
     else if (a === "--seconds" && value && /^\d+$/.test(value) && Number(value) > 0) o.seconds = Number(value);
     else if (a === "--think" && value && /^\d+$/.test(value)) o.thinkMs = Number(value);
+    else if (a === "--profile" && value) o.profileDir = path.resolve(value);
+    else if (a === "--reads" && value && /^(list|page|api)(,(list|page|api))*$/.test(value)) o.reads = value.split(",");
     else throw new RangeError(`bench --load: unexpected "${a}${value === undefined ? "" : ` ${value}`}"\nusage: ${LOAD_USAGE}`);
   }
   return o;
 }
 
 const READS = ["network list", "network page", "network API"];
+
+/** How many web processes the app runs with (WEB_PROCESSES as scripts/serve.ts reads it). */
+let webProcessCount = 1;
 
 export async function runLoad(argv: string[], root: string): Promise<number> {
   const o = parseLoadOptions(argv);
@@ -89,8 +101,14 @@ export async function runLoad(argv: string[], root: string): Promise<number> {
     }
     const worker = startWorkerIfPresent(env, { quiet: true });
     if (worker) children.push(worker);
-    children.push(await startAppServer(env, "127.0.0.1", appPort, { quiet: true, serverEntry }));
-    console.log(`app ${appUrl} (DB_POOL_MAX ${env.DB_POOL_MAX ?? "default"}), worker ${worker ? "running" : "absent"}; ${users} signed-in users\n`);
+    webProcessCount = webProcesses(env.WEB_PROCESSES);
+    const appEnv = o.profileDir ? { ...env, CPU_PROFILE_DIR: o.profileDir } : env;
+    const app = await startAppServer(appEnv, "127.0.0.1", appPort, { quiet: true, serverEntry });
+    children.push(app);
+    console.log(
+      `app ${appUrl} (DB_POOL_MAX ${env.DB_POOL_MAX ?? "default"} per process, ${webProcessCount} web process${webProcessCount === 1 ? "" : "es"} (WEB_PROCESSES ${env.WEB_PROCESSES ?? "unset"})${o.profileDir ? `, CPU profiles into ${o.profileDir}` : ""}), worker ${worker ? "running" : "absent"}; ${users} signed-in users\n`,
+    );
+    const ours = { app: app.child.pid!, worker: worker?.child.pid, postgres: postmasterPid(pg.cluster.dataDir) };
 
     const lab = DEMO_LAB.slug;
     const control = makeTarget("127.0.0.1", appPort, 4, 60_000);
@@ -112,7 +130,17 @@ export async function runLoad(argv: string[], root: string): Promise<number> {
       await new Promise((r) => setTimeout(r, 250));
     }
 
-    const results: { users: number; rows: RouteSummary[]; pool: PoolDelta; db: { maxConnections: number } }[] = [];
+    const readSteps = (cookie: string): Step[] =>
+      [
+        { key: "list", route: "network list", path: `/labs/${lab}/networks`, headers: { Cookie: cookie }, thinkMs: o.thinkMs },
+        { key: "page", route: "network page", path: `/labs/${lab}/networks/${pageNetwork}`, headers: { Cookie: cookie }, thinkMs: o.thinkMs },
+        { key: "api", route: "network API", path: `/api/labs/${lab}/networks/${pageNetwork}`, headers: { Cookie: cookie }, thinkMs: o.thinkMs },
+      ]
+        .filter((s) => o.reads.includes(s.key))
+        .map(({ key: _key, ...step }) => step);
+    await printRequestCosts(control, readSteps(cookies[0]!));
+
+    const results: { users: number; rows: RouteSummary[]; pool: PoolDelta; db: { maxConnections: number }; cpu: CpuShares }[] = [];
     for (const level of o.levels) {
       // An analysis that is slow by construction runs for the whole phase.
       await fetchJson(control, { route: "setup", method: "POST", path: `/api/labs/${lab}/analyses`, ...json(cookies[0]!, { networkId: slowNetwork, timeLimitSeconds: o.seconds + 30 }), ok: [202] });
@@ -120,12 +148,10 @@ export async function runLoad(argv: string[], root: string): Promise<number> {
       const poolBefore = await poolCounters(control);
       const target = makeTarget("127.0.0.1", appPort, level + 2);
       const dbSampler = sampleConnections(databaseUrl);
+      const cpuBefore = cpuSnapshot();
+      const selfBefore = process.cpuUsage();
       const [reads, uploads, submissions] = await Promise.all([
-        closedLoop(target, level, o.seconds, (user) => [
-          { route: "network list", path: `/labs/${lab}/networks`, headers: { Cookie: cookies[user]! }, thinkMs: o.thinkMs },
-          { route: "network page", path: `/labs/${lab}/networks/${pageNetwork}`, headers: { Cookie: cookies[user]! }, thinkMs: o.thinkMs },
-          { route: "network API", path: `/api/labs/${lab}/networks/${pageNetwork}`, headers: { Cookie: cookies[user]! }, thinkMs: o.thinkMs },
-        ]),
+        closedLoop(target, level, o.seconds, (user) => readSteps(cookies[user]!)),
         closedLoop(target, 1, o.seconds, (_user, round) => [
           {
             route: "upload",
@@ -147,11 +173,12 @@ export async function runLoad(argv: string[], root: string): Promise<number> {
           },
         ]),
       ]);
+      const cpu = cpuShares(cpuBefore, cpuSnapshot(), process.cpuUsage(selfBefore), ours, reads.length + uploads.length + submissions.length);
       const db = await dbSampler.stop();
       const pool = delta(poolBefore, await poolCounters(control));
       const rows = summarise([...reads, ...uploads, ...submissions], o.seconds);
-      results.push({ users: level, rows, pool, db });
-      printLevel(level, o, rows, pool, db);
+      results.push({ users: level, rows, pool, db, cpu });
+      printLevel(level, o, rows, pool, db, cpu);
       target.agent.destroy();
       await cancelAll(control, lab, cookies[0]!);
     }
@@ -233,19 +260,77 @@ async function cancelAll(control: ReturnType<typeof makeTarget>, lab: string, co
   }
 }
 
-/** The pool counters /api/health reports with DB_POOL_STATS=1 (the server's own type). */
-type PoolCounters = PoolStats;
-type PoolDelta = PoolCounters;
-
-async function poolCounters(control: ReturnType<typeof makeTarget>): Promise<PoolCounters> {
-  const body = (await fetchJson(control, { route: "setup", path: "/api/health" })) as { pool?: PoolCounters };
-  if (!body.pool) throw new Error("/api/health has no pool counters (DB_POOL_STATS=1 not honoured)");
-  return body.pool;
+/**
+ * What one answer of each read costs before any load: its size as sent (gzip, as the generator
+ * asks) and unpacked, and how many database queries it made (the app pool's acquisitions: one per
+ * query outside a transaction; the counters' own /api/health calls are subtracted). Run it with
+ * WEB_PROCESSES=1 for exact counts: with several processes the background (the worker's
+ * submissions are not in it, but an app process's own timers are) can blur them.
+ */
+async function printRequestCosts(control: ReturnType<typeof makeTarget>, steps: Step[]) {
+  const url = (p: string) => `http://${control.host}:${control.port}${p}`;
+  const a = await poolCounters(control);
+  const b = await poolCounters(control);
+  const healthCost = b.acquisitions - a.acquisitions;
+  console.log("one request of each read, before the load:");
+  console.log("| route | bytes sent (gzip) | bytes unpacked | database queries |");
+  console.log("|---|---|---|---|");
+  for (const step of steps) {
+    const plain = await fetch(url(step.path), { headers: { ...step.headers, "Accept-Encoding": "identity" } });
+    const body = Buffer.from(await plain.arrayBuffer());
+    const unpacked = body.byteLength;
+    if (process.env.LOAD_DUMP_DIR) writeFileSync(path.join(process.env.LOAD_DUMP_DIR, `${step.route.replace(/\W+/g, "-")}.txt`), body);
+    const before = await poolCounters(control);
+    const sample = await new Promise<number>((resolve, reject) => {
+      const req = http.request({ host: control.host, port: control.port, path: step.path, agent: control.agent, headers: { ...step.headers, "Accept-Encoding": "gzip" } }, (res) => {
+        let n = 0;
+        res.on("data", (c: Buffer) => (n += c.length));
+        res.on("end", () => resolve(n));
+      });
+      req.on("error", reject);
+      req.end();
+    });
+    const after = await poolCounters(control);
+    const queries = after.acquisitions - before.acquisitions - healthCost;
+    console.log(`| ${step.route} | ${sample} | ${unpacked} | ${queries >= 0 ? queries : "n/a"} |`);
+  }
+  console.log("");
 }
 
-function delta(a: PoolCounters, b: PoolCounters): PoolDelta {
+/** The pool counters /api/health reports with DB_POOL_STATS=1 (the server's own type). */
+type PoolCounters = PoolStats;
+type PoolDelta = PoolCounters & { processes: number };
+
+/**
+ * Every web process's counters, summed: /api/health answers with the counters of the process it
+ * reached, and the cluster's primary deals new connections round-robin, so asking a few times
+ * over fresh connections reaches each of them (the newest answer of each process counts).
+ */
+async function poolCounters(control: ReturnType<typeof makeTarget>): Promise<PoolCounters & { processes: number }> {
+  const byPid = new Map<number, PoolCounters>();
+  for (let i = 0; i < webProcessCount * 2 + (webProcessCount > 1 ? 2 : 0); i++) {
+    const res = await fetch(`http://${control.host}:${control.port}/api/health`, { headers: { Connection: "close" } });
+    const body = (await res.json()) as { pool?: PoolCounters; pid?: number };
+    if (!body.pool) throw new Error("/api/health has no pool counters (DB_POOL_STATS=1 not honoured)");
+    byPid.set(body.pid ?? 0, body.pool);
+    if (webProcessCount === 1) break;
+  }
+  const all = [...byPid.values()];
+  const sum = (k: keyof PoolCounters) => all.reduce((n, p) => n + p[k], 0);
+  return {
+    max: sum("max"),
+    acquisitions: sum("acquisitions"),
+    queued: sum("queued"),
+    queuedMsTotal: sum("queuedMsTotal"),
+    maxWaitMs: Math.max(...all.map((p) => p.maxWaitMs)),
+    failed: sum("failed"),
+    processes: byPid.size,
+  };
+}
+
+function delta(a: PoolDelta, b: PoolDelta): PoolDelta {
   // maxWaitMs is a running maximum: the later value bounds this phase's longest wait.
-  return { max: b.max, acquisitions: b.acquisitions - a.acquisitions, queued: b.queued - a.queued, queuedMsTotal: b.queuedMsTotal - a.queuedMsTotal, maxWaitMs: b.maxWaitMs, failed: b.failed - a.failed };
+  return { processes: b.processes, max: b.max, acquisitions: b.acquisitions - a.acquisitions, queued: b.queued - a.queued, queuedMsTotal: b.queuedMsTotal - a.queuedMsTotal, maxWaitMs: b.maxWaitMs, failed: b.failed - a.failed };
 }
 
 /** Samples the database's open connections every 250 ms (all clients: app, worker, pg-boss). */
@@ -277,14 +362,62 @@ function sampleConnections(databaseUrl: string) {
 
 const ms = (v: number) => (Number.isFinite(v) ? `${Math.round(v)}` : "–");
 
-function printLevel(users: number, o: LoadOptions, rows: RouteSummary[], pool: PoolDelta, db: { maxConnections: number }) {
+/** Where the phase's CPU went: the app per answered request, and the share of one core of everything else. */
+interface CpuShares {
+  appMsPerRequest: number;
+  /** Percent of one core over the phase. */
+  app: number;
+  worker: number;
+  postgres: number;
+  loadGenerator: number;
+  /** Everything else on the machine (other people's programs), with the busiest by name. */
+  others: number;
+  busiestOthers: { name: string; percent: number }[];
+  loadAverage: number;
+}
+
+function cpuShares(before: CpuSnapshot, after: CpuSnapshot, self: NodeJS.CpuUsage, ours: { app: number; worker?: number; postgres?: number }, requests: number): CpuShares {
+  const wall = after.at - before.at;
+  const pct = (cpuMs: number) => Math.round((cpuMs / wall) * 1000) / 10;
+  const app = treeCpuMs(before, after, ours.app);
+  const worker = ours.worker ? treeCpuMs(before, after, ours.worker) : 0;
+  const postgres = ours.postgres ? treeCpuMs(before, after, ours.postgres) : 0;
+  const generator = (self.user + self.system) / 1000;
+  const roots = [ours.app, ours.worker, ours.postgres, process.pid].filter((p): p is number => p !== undefined);
+  const others = Math.max(0, machineCpuMs(before, after) - app - worker - postgres - generator);
+  return {
+    appMsPerRequest: Math.round((app / Math.max(1, requests)) * 10) / 10,
+    app: pct(app),
+    worker: pct(worker),
+    postgres: pct(postgres),
+    loadGenerator: pct(generator),
+    others: pct(others),
+    busiestOthers: busiestOthers(before, after, roots).map((p) => ({ name: p.name, percent: pct(p.ms) })),
+    loadAverage: Math.round(loadavg()[0]! * 100) / 100,
+  };
+}
+
+/** The cluster's main process id (first line of postmaster.pid); its backends are its children. */
+function postmasterPid(dataDir: string): number | undefined {
+  try {
+    return Number(readFileSync(path.join(dataDir, "postmaster.pid"), "utf8").split("\n")[0]) || undefined;
+  } catch {
+    return undefined;
+  }
+}
+
+function printLevel(users: number, o: LoadOptions, rows: RouteSummary[], pool: PoolDelta, db: { maxConnections: number }, cpu: CpuShares) {
   console.log(`${users} concurrent users, ${o.seconds} s, ${o.thinkMs} ms between a user's requests, an analysis running:`);
   console.log("| route | requests | errors | p50 ms | p95 ms | p99 ms | max ms | req/s |");
   console.log("|---|---|---|---|---|---|---|---|");
   for (const r of rows) console.log(`| ${r.route} | ${r.requests} | ${r.errors} | ${ms(r.p50)} | ${ms(r.p95)} | ${ms(r.p99)} | ${ms(r.max)} | ${r.perSecond.toFixed(1)} |`);
   for (const r of rows) if (r.reasons.length > 0) console.log(`  ${r.route} errors: ${r.reasons.join("; ")}`);
   console.log(
-    `pool (max ${pool.max}): ${pool.acquisitions} connections handed out, ${pool.queued} queued (${pool.queued === 0 ? "no waits" : `mean wait ${Math.round(pool.queuedMsTotal / pool.queued)} ms`}), longest acquisition so far ${pool.maxWaitMs} ms, ${pool.failed} failed; database connections open at most ${db.maxConnections}\n`,
+    `pool (max ${pool.max}${pool.processes > 1 ? `, summed over ${pool.processes} web processes` : ""}): ${pool.acquisitions} connections handed out, ${pool.queued} queued (${pool.queued === 0 ? "no waits" : `mean wait ${Math.round(pool.queuedMsTotal / pool.queued)} ms`}), longest acquisition so far ${pool.maxWaitMs} ms, ${pool.failed} failed; database connections open at most ${db.maxConnections}`,
+  );
+  const beside = cpu.busiestOthers.length > 0 ? ` (busiest: ${cpu.busiestOthers.map((p) => `${p.name} ${p.percent} %`).join(", ")})` : "";
+  console.log(
+    `CPU, % of one core: app ${cpu.app} (${cpu.appMsPerRequest} ms per answered request), worker ${cpu.worker}, PostgreSQL ${cpu.postgres}, load generator ${cpu.loadGenerator}; beside the bench: other programs ${cpu.others}${beside}; load average ${cpu.loadAverage}\n`,
   );
 }
 

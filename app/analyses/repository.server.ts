@@ -115,10 +115,16 @@ export async function findJobById(db: DbExecutor, id: string): Promise<JobRecord
   return (await jobQuery(db).where("a.id", "=", id).executeTakeFirst()) as JobRecord | undefined;
 }
 
-export async function listJobs(db: DbExecutor, labId: string, filter: { kind?: JobKind; networkId?: string; parentId?: string; limit?: number } = {}): Promise<JobRecord[]> {
+export async function listJobs(
+  db: DbExecutor,
+  labId: string,
+  filter: { kind?: JobKind; networkId?: string; versionNumber?: number; status?: AnalysisStatus; parentId?: string; limit?: number } = {},
+): Promise<JobRecord[]> {
   let q = jobQuery(db).where("a.lab_id", "=", labId);
   if (filter.kind) q = q.where("a.kind", "=", filter.kind);
   if (filter.networkId) q = q.where("n.id", "=", filter.networkId);
+  if (filter.versionNumber !== undefined) q = q.where("v.number", "=", filter.versionNumber);
+  if (filter.status) q = q.where("a.status", "=", filter.status);
   if (filter.parentId) q = q.where("a.parent_id", "=", filter.parentId);
   return (await q.orderBy("a.created_at", "desc").limit(filter.limit ?? 200).execute()) as JobRecord[];
 }

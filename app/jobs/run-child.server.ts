@@ -4,6 +4,7 @@
  * even while the child is deep inside a Gröbner basis computation that never yields.
  */
 import { fork } from "node:child_process";
+import { getPriority, setPriority } from "node:os";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import type { ChildMessage, ChildStart } from "./child";
@@ -24,6 +25,21 @@ export interface ChildRun {
 
 const CHILD = path.join(path.dirname(fileURLToPath(import.meta.url)), "child.ts");
 
+/**
+ * How much lower than the worker a job process runs (Unix niceness, 0–19 above the worker's): on
+ * a machine where the web server and the worker share cores, a page view then gets the CPU before
+ * a Gröbner basis does, and the basis still gets every cycle nobody else wants (bench/load.ts).
+ */
+export const JOB_NICENESS = 10;
+
+function yieldToRequests(pid: number) {
+  try {
+    setPriority(pid, Math.min(19, getPriority() + JOB_NICENESS));
+  } catch {
+    // Not permitted here (some containers): the job runs at the worker's priority.
+  }
+}
+
 export function runInChild(payload: JobPayload, options: { engineTimeoutMs: number; distribution?: ChildStart["distribution"]; onProgress?: (p: { phase: string; message: string }) => void; onPartial?: (result: Record<string, unknown>) => void }): ChildRun {
   const child = fork(CHILD, [], {
     execArgv: ["--import", "tsx"],
@@ -33,6 +49,7 @@ export function runInChild(payload: JobPayload, options: { engineTimeoutMs: numb
   });
   // If this worker is killed, the child goes too (a retry must not race a forgotten attempt).
   if (child.pid !== undefined) reapWithParent(child.pid);
+  if (child.pid !== undefined) yieldToRequests(child.pid);
   let settled: ChildOutcome | undefined;
   let stopReason: string | undefined;
   let stderr = "";

@@ -99,28 +99,57 @@ function toVersion(r: {
   };
 }
 
+/**
+ * The lab's networks with each one's newest version and version count, by name: one query (a
+ * lateral join picks the newest version per network), since the lab's list runs it on every view.
+ */
 export async function listNetworks(db: DbExecutor, labId: string, options: { includeArchived?: boolean } = {}): Promise<NetworkListEntry[]> {
-  let q = db.selectFrom("networks as n").select(networkColumns).where("n.lab_id", "=", labId);
-  if (!options.includeArchived) q = q.where("n.archived_at", "is", null);
-  const networks = (await q.orderBy("n.name").execute()).map(toNetwork);
-  if (networks.length === 0) return [];
-  const ids = networks.map((n) => n.id);
-  const latest = await versionQuery(db)
-    .where("v.network_id", "in", ids)
-    .where(({ eb, ref, selectFrom }) =>
-      eb("v.number", "=", selectFrom("network_versions as w").select(({ fn }) => fn.max("w.number").as("m")).whereRef("w.network_id", "=", ref("v.network_id"))),
+  let q = db
+    .selectFrom("networks as n")
+    .innerJoinLateral(
+      (eb) => eb.selectFrom("network_versions as lv").selectAll("lv").whereRef("lv.network_id", "=", "n.id").orderBy("lv.number", "desc").limit(1).as("v"),
+      (join) => join.onTrue(),
     )
-    .execute();
-  const counts = await db
-    .selectFrom("network_versions")
-    .select(["network_id", ({ fn }) => fn.countAll<string>().as("count")])
-    .where("network_id", "in", ids)
-    .groupBy("network_id")
-    .execute();
-  const latestBy = new Map(latest.map((v) => [v.network_id, toVersion(v)]));
-  const countBy = new Map(counts.map((c) => [c.network_id, Number(c.count)]));
-  // A network without versions cannot be made through the app; skip one left by hand.
-  return networks.filter((n) => latestBy.has(n.id)).map((n) => ({ ...n, versionCount: countBy.get(n.id) ?? 0, latest: latestBy.get(n.id)! }));
+    .leftJoin("users as u", "u.id", "v.author_id")
+    .select(networkColumns)
+    .select([
+      "v.id as v_id",
+      "v.number",
+      "v.content_hash",
+      "v.csv",
+      "v.change_note",
+      "v.author_id",
+      "v.created_at as v_created_at",
+      "u.display_name as author_name",
+      (eb) => eb.selectFrom("network_versions as c").select(eb.fn.countAll<string>().as("n")).whereRef("c.network_id", "=", "n.id").as("version_count"),
+    ])
+    .where("n.lab_id", "=", labId);
+  if (!options.includeArchived) q = q.where("n.archived_at", "is", null);
+  // A network without versions cannot be made through the app; the inner join skips one left by hand.
+  const rows = await q.orderBy("n.name").execute();
+  return rows.map((r) => ({
+    ...toNetwork(r),
+    versionCount: Number(r.version_count ?? 0),
+    latest: toVersion({ ...r, id: r.v_id, network_id: r.id, created_at: r.v_created_at }),
+  }));
+}
+
+/** The network in this lab with its newest version, in one query; undefined as for findNetwork. */
+export async function findNetworkWithLatest(db: DbExecutor, labId: string, networkId: string | undefined): Promise<{ network: NetworkRecord; latest: VersionRecord } | undefined> {
+  if (!isUuid(networkId)) return undefined;
+  const row = await db
+    .selectFrom("networks as n")
+    .innerJoinLateral(
+      (eb) => eb.selectFrom("network_versions as lv").selectAll("lv").whereRef("lv.network_id", "=", "n.id").orderBy("lv.number", "desc").limit(1).as("v"),
+      (join) => join.onTrue(),
+    )
+    .leftJoin("users as u", "u.id", "v.author_id")
+    .select(networkColumns)
+    .select(["v.id as v_id", "v.number", "v.content_hash", "v.csv", "v.change_note", "v.author_id", "v.created_at as v_created_at", "u.display_name as author_name"])
+    .where("n.id", "=", networkId)
+    .where("n.lab_id", "=", labId)
+    .executeTakeFirst();
+  return row && { network: toNetwork(row), latest: toVersion({ ...row, id: row.v_id, network_id: row.id, created_at: row.v_created_at }) };
 }
 
 /** The network in this lab, or undefined (also for a malformed id). */

@@ -9,7 +9,7 @@ import { apiError } from "~/permissions/api-errors";
 import type { LabAccess } from "~/permissions/permissions.server";
 import { hasRole } from "~/permissions/roles";
 import { diffNetworks, type NetworkDiff } from "./diff";
-import { findNetwork, findVersion, latestVersion, listNetworks, listVersions, type NetworkRecord, type VersionRecord } from "./networks.server";
+import { findNetwork, findNetworkWithLatest, findVersion, latestVersion, listNetworks, listVersions, type NetworkRecord, type VersionRecord } from "./networks.server";
 import { checkNetworkFile, odesOf } from "./structure.server";
 import { structureState, structureStates, type StructureState } from "./structure-store.server";
 import { contentHash } from "./networks.server";
@@ -88,6 +88,13 @@ export async function requireNetwork(db: Kysely<Database>, access: LabAccess, ne
   return network;
 }
 
+/** The network and its newest version (one query), or the API's 404 as requireNetwork gives it. */
+export async function requireNetworkWithLatest(db: Kysely<Database>, access: LabAccess, networkId: string | undefined): Promise<{ network: NetworkRecord; latest: VersionRecord }> {
+  const found = await findNetworkWithLatest(db, access.lab.id, networkId);
+  if (!found) throw apiError("not_found", "No such network in this lab.");
+  return found;
+}
+
 /** `?v=3` or the newest version; a missing number is a 404. */
 export async function requireVersion(db: Kysely<Database>, network: NetworkRecord, raw: string | null | undefined, api = false): Promise<VersionRecord> {
   const version = raw == null || raw === "" ? await latestVersion(db, network.id) : await findVersion(db, network.id, Number(raw));
@@ -96,6 +103,13 @@ export async function requireVersion(db: Kysely<Database>, network: NetworkRecor
     throw notFound(`No version ${raw}`);
   }
   return version;
+}
+
+/** The newest of `versions` (newest first) for no `raw`, else the one numbered `raw`; undefined when there is none. */
+function pickVersion(versions: readonly VersionRecord[], raw: string | null): VersionRecord | undefined {
+  if (raw == null || raw === "") return versions[0];
+  const number = Number(raw);
+  return versions.find((v) => v.number === number);
 }
 
 export interface NetworkPageData {
@@ -120,8 +134,9 @@ export interface NetworkPageData {
 
 /** The newest finished analysis of exactly this version, for the verdict card. */
 async function latestAnalysisOf(db: Kysely<Database>, labSlug: string, labId: string, networkId: string, versionNumber: number): Promise<LatestAnalysis | null> {
-  const jobs = await listJobs(db, labId, { kind: "analysis", networkId, limit: 50 });
-  const job = jobs.find((j) => j.status === "succeeded" && j.version_number === versionNumber && j.result);
+  // Only finished runs of exactly this version: a few rows, not the network's whole history.
+  const jobs = await listJobs(db, labId, { kind: "analysis", networkId, versionNumber, status: "succeeded", limit: 5 });
+  const job = jobs.find((j) => j.result);
   if (!job) return null;
   return {
     href: analysisPath(labSlug, job.id),
@@ -132,8 +147,10 @@ async function latestAnalysisOf(db: Kysely<Database>, labSlug: string, labId: st
 }
 
 export async function networkPageData(db: Kysely<Database>, access: LabAccess, network: NetworkRecord, versionParam: string | null): Promise<NetworkPageData> {
-  const version = await requireVersion(db, network, versionParam);
+  // One query for the list and the version shown (the newest, or ?v=N from the same list).
   const versions = await listVersions(db, network.id);
+  const version = pickVersion(versions, versionParam);
+  if (!version) throw notFound(`No version ${versionParam}`);
   const state = await structureState(db, version.csv);
   const canEdit = hasRole(access.role, "editor");
   const latest = await latestAnalysisOf(db, access.lab.slug, access.lab.id, network.id, version.number);

@@ -1,10 +1,10 @@
 import { redirect } from "react-router";
 import { db } from "~/db.server";
 import type { LabRole } from "~/db/schema";
-import { getSession } from "~/auth/session.server";
+import { readIdentity, type Identity, type MemberLab } from "~/auth/identity.server";
 import { findUserById, type CurrentUser } from "~/auth/users.server";
 import { findUserIdByApiToken } from "~/account/api-tokens.server";
-import { findLabWithRole, listLabsOf } from "~/labs/labs.server";
+import { findLabWithRole } from "~/labs/labs.server";
 import { apiError } from "./api-errors";
 import { assertCookieWriteAllowed } from "./api-origin.server";
 import { hasRole } from "./roles";
@@ -34,28 +34,25 @@ export interface LabAccess {
 }
 
 /**
- * Who asked, looked up once per read request: a page view runs the root loader and the route's
- * loader on the same Request, and each asks. Writes always look again (a sign-out earlier in the
- * same request must count).
+ * Who asked (session, user and their labs: one query, identity.server.ts), looked up once per read
+ * request: a page view runs the root loader and the route's loader on the same Request, and each
+ * asks. Writes always look again (a sign-out earlier in the same request must count).
  */
-const usersOfReads = new WeakMap<Request, Promise<CurrentUser | null>>();
+const identitiesOfReads = new WeakMap<Request, Promise<Identity>>();
 
-/** The signed-in user from the session cookie, or null. Never throws for anonymous visitors. */
-export function getOptionalUser(request: Request): Promise<CurrentUser | null> {
-  if (request.method !== "GET" && request.method !== "HEAD") return lookUpUser(request);
-  let user = usersOfReads.get(request);
-  if (!user) {
-    user = lookUpUser(request);
-    usersOfReads.set(request, user);
+export function getIdentity(request: Request): Promise<Identity> {
+  if (request.method !== "GET" && request.method !== "HEAD") return readIdentity(db(), request);
+  let identity = identitiesOfReads.get(request);
+  if (!identity) {
+    identity = readIdentity(db(), request);
+    identitiesOfReads.set(request, identity);
   }
-  return user;
+  return identity;
 }
 
-async function lookUpUser(request: Request): Promise<CurrentUser | null> {
-  const session = await getSession(request);
-  const userId = session.get("userId");
-  if (!userId) return null;
-  return (await findUserById(db(), userId)) ?? null;
+/** The signed-in user from the session cookie, or null. Never throws for anonymous visitors. */
+export async function getOptionalUser(request: Request): Promise<CurrentUser | null> {
+  return (await getIdentity(request)).user;
 }
 
 function signInRedirect(request: Request): Response {
@@ -79,8 +76,18 @@ export async function requireSiteAdmin(request: Request): Promise<CurrentUser> {
   return user;
 }
 
-async function labAccess(user: CurrentUser, labSlug: string | undefined, minRole: LabRole) {
-  const row = labSlug ? await findLabWithRole(db(), labSlug, user.id) : undefined;
+/**
+ * `memberOf`: the caller's labs when already read with the session (identity.server.ts); a lab
+ * among them needs no further query. Any other slug (a public lab, someone else's, none at all)
+ * is looked up.
+ */
+async function labAccess(user: CurrentUser, labSlug: string | undefined, minRole: LabRole, memberOf: readonly MemberLab[] = []) {
+  const member = labSlug ? memberOf.find((l) => l.slug === labSlug) : undefined;
+  const row = member
+    ? { id: member.id, slug: member.slug, name: member.name, is_public: member.isPublic, role: member.role }
+    : labSlug
+      ? await findLabWithRole(db(), labSlug, user.id)
+      : undefined;
   const role: LabRole | null = row?.role ?? (row?.is_public ? "viewer" : null);
   if (!row || !role) return { outcome: "not_found" as const };
   if (!hasRole(role, minRole)) return { outcome: "forbidden" as const, role };
@@ -89,8 +96,9 @@ async function labAccess(user: CurrentUser, labSlug: string | undefined, minRole
 }
 
 export async function requireLabRole(request: Request, labSlug: string | undefined, minRole: LabRole): Promise<LabAccess> {
-  const user = await requireUser(request);
-  const result = await labAccess(user, labSlug, minRole);
+  const { user, labs } = await getIdentity(request);
+  if (!user) throw signInRedirect(request);
+  const result = await labAccess(user, labSlug, minRole, labs);
   if (result.outcome === "not_found") throw notFound();
   if (result.outcome === "forbidden") throw forbidden(`This needs the ${minRole} role; you are ${article(result.role)} ${result.role} here.`);
   return result.access;
@@ -103,23 +111,28 @@ export async function requireLabRole(request: Request, labSlug: string | undefin
  * make the browser write with it.
  */
 export async function requireApiUser(request: Request): Promise<CurrentUser> {
+  return (await apiCaller(request)).user;
+}
+
+/** The API caller and, for a session cookie, the labs read with it (a token's labs are looked up per lab). */
+async function apiCaller(request: Request): Promise<{ user: CurrentUser; labs: readonly MemberLab[] }> {
   const header = request.headers.get("authorization");
   if (header !== null) {
     const match = /^Bearer\s+(\S+)\s*$/i.exec(header);
     const userId = match ? await findUserIdByApiToken(db(), match[1]!) : undefined;
     const user = userId ? await findUserById(db(), userId) : undefined;
     if (!user) throw apiError("invalid_token", "The API token is missing, malformed, expired or revoked.");
-    return user;
+    return { user, labs: [] };
   }
-  const user = await getOptionalUser(request);
+  const { user, labs } = await getIdentity(request);
   if (!user) throw apiError("unauthenticated", "Sign in or send a personal API token as `Authorization: Bearer <token>`.");
   assertCookieWriteAllowed(request);
-  return user;
+  return { user, labs };
 }
 
 export async function requireApiLabRole(request: Request, labSlug: string | undefined, minRole: LabRole): Promise<LabAccess> {
-  const user = await requireApiUser(request);
-  const result = await labAccess(user, labSlug, minRole);
+  const { user, labs } = await apiCaller(request);
+  const result = await labAccess(user, labSlug, minRole, labs);
   if (result.outcome === "not_found") throw apiError("not_found", "No such lab.");
   if (result.outcome === "forbidden") {
     throw apiError("forbidden", `This needs the ${minRole} role in the lab.`, { role: result.role, required: minRole });
@@ -160,12 +173,15 @@ export function assertLabRole(access: LabAccess, minRole: LabRole, api = false):
  * `minRole`; for pages without a lab in the URL. No lab at all → redirect to /labs to create one.
  */
 export async function requireActiveLabRole(request: Request, minRole: LabRole): Promise<LabAccess> {
-  const user = await requireUser(request);
-  const session = await getSession(request);
-  const preferred = session.get("labSlug");
-  const labs = await listLabsOf(db(), user.id);
-  const lab = labs.find((l) => l.slug === preferred) ?? labs[0];
+  const { user, labs, session } = await getIdentity(request);
+  if (!user) throw signInRedirect(request);
+  const lab = activeLabOf(labs, session.labSlug);
   if (!lab) throw redirect("/labs");
   if (!hasRole(lab.role, minRole)) throw forbidden(`This needs the ${minRole} role; you are ${article(lab.role)} ${lab.role} in ${lab.name}.`);
   return { user, lab: { id: lab.id, slug: lab.slug, name: lab.name, isPublic: lab.isPublic }, role: lab.role, guest: false };
+}
+
+/** The lab the user last switched to (`preferred`, the session's labSlug) if still theirs, else their first. */
+export function activeLabOf(labs: readonly MemberLab[], preferred: string | undefined): MemberLab | undefined {
+  return labs.find((l) => l.slug === preferred) ?? labs[0];
 }

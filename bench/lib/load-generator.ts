@@ -40,10 +40,23 @@ export function makeTarget(host: string, port: number, maxSockets: number, timeo
   return { host, port, agent: new http.Agent({ keepAlive: true, maxSockets }), timeoutMs };
 }
 
-/** Sends one request and reads the whole answer; never rejects. */
-export function send(target: Target, step: Step): Promise<Sample> {
+/**
+ * Sends one request and reads the whole answer; never rejects. Like a browser, a GET that fails
+ * on a kept-alive connection before any answer arrived (the server closed that idle connection
+ * just as the request went out) is sent once more on a fresh one; the time counts from the first try.
+ */
+export async function send(target: Target, step: Step): Promise<Sample> {
   const started = performance.now();
-  return new Promise((resolve) => {
+  const first = await attempt(target, step, started);
+  if (!first.retry) return first.sample;
+  return (await attempt(target, step, started)).sample;
+}
+
+function attempt(target: Target, step: Step, started: number): Promise<{ sample: Sample; retry: boolean }> {
+  return new Promise((resolveAttempt) => {
+    let answered = false;
+    const resolve = (sample: Sample) =>
+      resolveAttempt({ sample, retry: sample.status === 0 && !answered && req.reusedSocket && (step.method ?? "GET") === "GET" && sample.error !== undefined && !sample.error.startsWith("no answer") });
     let settled = false;
     const done = (status: number, error?: string) => {
       if (settled) return;
@@ -61,6 +74,7 @@ export function send(target: Target, step: Step): Promise<Sample> {
         headers: { "Accept-Encoding": "gzip", ...step.headers, ...(step.body === undefined ? {} : { "Content-Length": String(Buffer.byteLength(step.body)) }) },
       },
       (res) => {
+        answered = true;
         res.on("data", () => undefined);
         res.on("end", () => {
           const status = res.statusCode ?? 0;
@@ -80,13 +94,18 @@ export function send(target: Target, step: Step): Promise<Sample> {
 
 /**
  * Runs `users` virtual users for `seconds`; user i repeats `script(i)` (a list of steps, which
- * may change between rounds) until time is up, then finishes its current request.
+ * may change between rounds) until time is up, then finishes its current request. People do not
+ * all press a key in the same millisecond: user i arrives at i/users of `arrivalMs` (default: the
+ * first step's think time), so the users are spread over one think time instead of starting as a
+ * burst; the time is counted from the first arrival, and the load is the same once all are in.
  */
-export async function closedLoop(target: Target, users: number, seconds: number, script: (user: number, round: number) => Step[]): Promise<Sample[]> {
+export async function closedLoop(target: Target, users: number, seconds: number, script: (user: number, round: number) => Step[], arrivalMs?: number): Promise<Sample[]> {
   const samples: Sample[] = [];
   const until = performance.now() + seconds * 1000;
+  const spread = arrivalMs ?? script(0, 0)[0]?.thinkMs ?? 0;
   await Promise.all(
     Array.from({ length: users }, async (_, user) => {
+      if (spread > 0 && user > 0) await new Promise((r) => setTimeout(r, (user / users) * spread));
       for (let round = 0; performance.now() < until; round++) {
         for (const step of script(user, round)) {
           if (performance.now() >= until) break;
@@ -121,7 +140,11 @@ export interface RouteSummary {
 
 export function summarise(samples: readonly Sample[], seconds: number): RouteSummary[] {
   const byRoute = new Map<string, Sample[]>();
-  for (const s of samples) byRoute.set(s.route, [...(byRoute.get(s.route) ?? []), s]);
+  for (const s of samples) {
+    const list = byRoute.get(s.route);
+    if (list) list.push(s);
+    else byRoute.set(s.route, [s]);
+  }
   const rows = [...byRoute].map(([route, list]) => summaryRow(route, list, seconds));
   if (byRoute.size > 1) rows.push(summaryRow("all", [...samples], seconds));
   return rows;

@@ -65,3 +65,56 @@ describe("closedLoop", () => {
     }
   });
 });
+
+describe("closedLoop arrivals and browser-like retries", () => {
+  it("spreads the users' first requests over one think time instead of one burst", async () => {
+    const arrivals = new Map<string, number>();
+    const server = http.createServer((req, res) => {
+      if (!arrivals.has(req.url!)) arrivals.set(req.url!, performance.now());
+      res.end("ok");
+    });
+    await new Promise<void>((r) => server.listen(0, "127.0.0.1", r));
+    const port = (server.address() as AddressInfo).port;
+    try {
+      const target = makeTarget("127.0.0.1", port, 4);
+      await closedLoop(target, 4, 0.6, (user) => [{ route: "ok", path: `/${user}`, thinkMs: 400 }]);
+      expect(arrivals.size).toBe(4);
+      // User 3 of 4 waits 3/4 of the think time (300 ms) before its first request: never less.
+      expect(arrivals.get("/3")! - arrivals.get("/0")!).toBeGreaterThanOrEqual(290);
+      target.agent.destroy();
+    } finally {
+      server.closeAllConnections();
+      await new Promise<void>((r) => server.close(() => r()));
+    }
+  });
+
+  it("sends a GET once more when a kept-alive connection is closed under it, but never a POST", async () => {
+    const served = new WeakMap<object, number>();
+    let requests = 0;
+    const server = http.createServer((req, res) => {
+      requests++;
+      const n = (served.get(req.socket) ?? 0) + 1;
+      served.set(req.socket, n);
+      // The second request on a connection finds it closed, as when an idle connection times out.
+      if (n === 2) return void req.socket.destroy();
+      req.resume().on("end", () => res.end("ok"));
+    });
+    await new Promise<void>((r) => server.listen(0, "127.0.0.1", r));
+    const port = (server.address() as AddressInfo).port;
+    try {
+      const target = makeTarget("127.0.0.1", port, 1);
+      expect((await send(target, { route: "get", path: "/" })).error).toBeUndefined();
+      // Second on its connection: closed under it, sent again on a fresh one, answered.
+      expect((await send(target, { route: "get", path: "/" })).error).toBeUndefined();
+      expect(requests).toBe(3);
+      // Second on the fresh connection too, but a POST is not repeated (it may have taken effect).
+      const post = await send(target, { route: "post", method: "POST", path: "/", body: "x" });
+      expect(post.error).toMatch(/socket hang up|ECONNRESET/);
+      expect(requests).toBe(4);
+      target.agent.destroy();
+    } finally {
+      server.closeAllConnections();
+      await new Promise<void>((r) => server.close(() => r()));
+    }
+  });
+});
