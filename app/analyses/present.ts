@@ -15,7 +15,8 @@ export interface ParametrisationRow {
   expression: string;
   /** `species = expression` in TeX; null for a result stored before the engine wrote TeX (show `expression`). */
   tex: string | null;
-  dependsOn: string[];
+  /** From the engine (parametrisationVariables); null for results stored before it was recorded. */
+  dependsOn: string[] | null;
   /** Degree in the free species; null for a result stored before the engine reported it. */
   degree: number | null;
   /**
@@ -59,11 +60,6 @@ const gcd = (a: bigint, b: bigint): bigint => (b === 0n ? (a === 0n ? 1n : a) : 
 export const formatEigenvalue = (e: number | { re: number; im: number }) =>
   typeof e === "number" ? e.toPrecision(6) : `${e.re.toPrecision(6)} ${e.im < 0 ? "−" : "+"} ${Math.abs(e.im).toPrecision(6)}i`;
 
-/** Names (species and parameters) in an expression's text, in order of first use. Example: "k1*A/(k2 + A)" gives [k1, A, k2]. */
-export function namesIn(expression: string): string[] {
-  return [...new Set(expression.match(/[A-Za-z_][A-Za-z0-9_]*/g) ?? [])];
-}
-
 export function presentResult(r: AnalysisResult, params: Pick<AnalysisParams, "initial">): ResultView {
   const free = r.parametrisation?.free ?? [];
   const tex = r.tex ?? null;
@@ -80,7 +76,7 @@ export function presentResult(r: AnalysisResult, params: Pick<AnalysisParams, "i
             species,
             expression,
             tex: equation(species, tex?.parametrisation?.[species]),
-            dependsOn: namesIn(expression),
+            dependsOn: r.parametrisationVariables?.[species] ?? null,
             degree: r.parametrisationDegrees?.[species] ?? null,
             positive: r.parametrisation?.positiveSpecies ? r.parametrisation.positiveSpecies.includes(species) : null,
           })),

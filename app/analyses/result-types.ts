@@ -25,7 +25,8 @@ type AddedLater =
   | "deficiencyZeroTheorem"
   | "deficiencyOneTheorem"
   | "tex"
-  | "parametrisationDegrees";
+  | "parametrisationDegrees"
+  | "parametrisationVariables";
 
 type Parametrisation = NonNullable<AnalysisResultJson["parametrisation"]>;
 

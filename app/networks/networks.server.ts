@@ -100,11 +100,11 @@ function toVersion(r: {
 }
 
 /**
- * The lab's networks with each one's newest version and version count, by name: one query (a
- * lateral join picks the newest version per network), since the lab's list runs it on every view.
+ * Networks joined to their newest version and its author, in one query: a lateral join picks the
+ * highest version number per network (the list and the API read it on every request).
  */
-export async function listNetworks(db: DbExecutor, labId: string, options: { includeArchived?: boolean } = {}): Promise<NetworkListEntry[]> {
-  let q = db
+function withLatestVersion(db: DbExecutor) {
+  return db
     .selectFrom("networks as n")
     .innerJoinLateral(
       (eb) => eb.selectFrom("network_versions as lv").selectAll("lv").whereRef("lv.network_id", "=", "n.id").orderBy("lv.number", "desc").limit(1).as("v"),
@@ -112,17 +112,16 @@ export async function listNetworks(db: DbExecutor, labId: string, options: { inc
     )
     .leftJoin("users as u", "u.id", "v.author_id")
     .select(networkColumns)
-    .select([
-      "v.id as v_id",
-      "v.number",
-      "v.content_hash",
-      "v.csv",
-      "v.change_note",
-      "v.author_id",
-      "v.created_at as v_created_at",
-      "u.display_name as author_name",
-      (eb) => eb.selectFrom("network_versions as c").select(eb.fn.countAll<string>().as("n")).whereRef("c.network_id", "=", "n.id").as("version_count"),
-    ])
+    .select(["v.id as v_id", "v.number", "v.content_hash", "v.csv", "v.change_note", "v.author_id", "v.created_at as v_created_at", "u.display_name as author_name"]);
+}
+
+/**
+ * The lab's networks with each one's newest version and version count, by name: one query (a
+ * lateral join picks the newest version per network), since the lab's list runs it on every view.
+ */
+export async function listNetworks(db: DbExecutor, labId: string, options: { includeArchived?: boolean } = {}): Promise<NetworkListEntry[]> {
+  let q = withLatestVersion(db)
+    .select((eb) => eb.selectFrom("network_versions as c").select(eb.fn.countAll<string>().as("n")).whereRef("c.network_id", "=", "n.id").as("version_count"))
     .where("n.lab_id", "=", labId);
   if (!options.includeArchived) q = q.where("n.archived_at", "is", null);
   // A network without versions cannot be made through the app; the inner join skips one left by hand.
@@ -137,15 +136,7 @@ export async function listNetworks(db: DbExecutor, labId: string, options: { inc
 /** The network in this lab with its newest version, in one query; undefined as for findNetwork. */
 export async function findNetworkWithLatest(db: DbExecutor, labId: string, networkId: string | undefined): Promise<{ network: NetworkRecord; latest: VersionRecord } | undefined> {
   if (!isUuid(networkId)) return undefined;
-  const row = await db
-    .selectFrom("networks as n")
-    .innerJoinLateral(
-      (eb) => eb.selectFrom("network_versions as lv").selectAll("lv").whereRef("lv.network_id", "=", "n.id").orderBy("lv.number", "desc").limit(1).as("v"),
-      (join) => join.onTrue(),
-    )
-    .leftJoin("users as u", "u.id", "v.author_id")
-    .select(networkColumns)
-    .select(["v.id as v_id", "v.number", "v.content_hash", "v.csv", "v.change_note", "v.author_id", "v.created_at as v_created_at", "u.display_name as author_name"])
+  const row = await withLatestVersion(db)
     .where("n.id", "=", networkId)
     .where("n.lab_id", "=", labId)
     .executeTakeFirst();

@@ -10,7 +10,7 @@ import type { NumericSteadyState } from "./numeric-steady-states";
 import type { computeParametrisation } from "./parametrisation";
 import { primitive, signPattern } from "../algebra/poly-tools";
 import { polynomialTex } from "../algebra/format-tex";
-import { expressionDegree, expressionTex, formatExpression, isPositiveExpression } from "./rational-expression";
+import { expressionDegree, expressionTex, expressionVariables, formatExpression, isPositiveExpression } from "./rational-expression";
 import type { ParametrisationPart } from "./stages/parametrisation";
 import type { RelationsPart } from "./stages/relations";
 import type { RobustnessPart } from "./stages/robustness";
@@ -110,6 +110,7 @@ export function assemble(x: Parts): SteadyStateAnalysis {
       acr: Object.fromEntries(x.acr.map((a) => [a.species, expressionTex(a.value, a.factors)])),
     },
     parametrisationDegrees: expressions && Object.fromEntries(expressions.map((e) => [e.species, expressionDegree(e.expression, freeIndices)])),
+    parametrisationVariables: expressions && Object.fromEntries(expressions.map((e) => [e.species, expressionVariables(e.expression)])),
   };
 }
 

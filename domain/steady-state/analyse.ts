@@ -114,6 +114,8 @@ export interface SteadyStateAnalysis {
   };
   /** Each parametrisation expression's degree in the free species (of numerator or denominator, the larger); null without one. */
   readonly parametrisationDegrees: Record<string, number> | null;
+  /** The variables each parametrisation expression depends on (species and parameters, in the ring's order); null without one. */
+  readonly parametrisationVariables: Record<string, string[]> | null;
 }
 
 /**

@@ -93,6 +93,19 @@ export function expressionDegree(e: RationalExpression, among: readonly number[]
 }
 
 /**
+ * The variables (species and parameters) the expression depends on, in the ring's order: those
+ * with a nonzero exponent in the numerator or the denominator. Example: k1*A/(k2 + A) in a ring
+ * A, k1, k2 gives [A, k1, k2].
+ */
+export function expressionVariables(e: RationalExpression): string[] {
+  const ring = e.num.ring, S = ring.n + 1;
+  const used = new Array<boolean>(ring.n).fill(false);
+  for (const p of [e.num, e.den])
+    for (let t = 0; t < p.coeffs.length; t++) for (let k = 0; k < ring.n; k++) if (p.exps[t * S + 1 + k] !== 0) used[k] = true;
+  return ring.vars.filter((_, k) => used[k]);
+}
+
+/**
  * A polynomial as written: either whole (`sum` when it is a bare sum that needs parentheses in a
  * product), or rest · monomial content · the dividing factors in the order found.
  */

@@ -68,6 +68,8 @@ export interface AnalysisResultJson {
   /** Added after the keys above (older stored results lack them): the formulas in TeX, from the exact values. */
   tex: A["tex"];
   parametrisationDegrees: A["parametrisationDegrees"];
+  /** Added after parametrisationDegrees. */
+  parametrisationVariables: A["parametrisationVariables"];
 }
 
 /**
@@ -123,6 +125,7 @@ export function analysisResultJson(r: SteadyStateAnalysis): AnalysisResultJson {
     deficiencyOneTheorem: s.deficiencyOneTheorem,
     tex: r.tex,
     parametrisationDegrees: r.parametrisationDegrees,
+    parametrisationVariables: r.parametrisationVariables,
   };
 }
 

@@ -18,7 +18,7 @@ import { SortableHeader } from "./sortable-header";
 
 const dependsOnIncludes: FilterFn<any, ParametrisationRow> = (row, _id, value: string) => {
   const needle = value.trim();
-  return row.original.dependsOn.some((n) => n === needle || n.toLowerCase().includes(needle.toLowerCase()));
+  return (row.original.dependsOn ?? []).some((n) => n === needle || n.toLowerCase().includes(needle.toLowerCase()));
 };
 dependsOnIncludes.autoRemove = (v) => typeof v !== "string" || v.trim() === "";
 
@@ -46,7 +46,7 @@ const columns = column.columns([
       </div>
     ),
   }),
-  column.accessor((r) => r.dependsOn.join(", "), { id: "dependsOn", header: "Depends on", filterFn: "dependsOnIncludes", sortFn: "alphanumeric", cell: (i) => <span className="font-mono text-xs">{i.getValue()}</span> }),
+  column.accessor((r) => (r.dependsOn ? r.dependsOn.join(", ") : "not recorded"), { id: "dependsOn", header: "Depends on", filterFn: "dependsOnIncludes", sortFn: "alphanumeric", cell: (i) => <span className="font-mono text-xs">{i.getValue()}</span> }),
   column.accessor((r) => r.degree ?? -1, {
     id: "degree",
     header: "Degree",

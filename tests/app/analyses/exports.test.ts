@@ -42,7 +42,7 @@ describe("exports and the page's view of a result", () => {
     // The engine's TeX for the parametrisation, written from the exact expressions.
     for (const [s, t] of Object.entries(result.tex!.parametrisation!)) expect(fresh).toContain(`\\mathrm{${s}} &= ${t}`);
     expect(fresh).not.toContain("\\texttt");
-    const { tex: _t, parametrisationDegrees: _d, ...old } = result;
+    const { tex: _t, parametrisationDegrees: _d, parametrisationVariables: _v, ...old } = result;
     const stored = { ...old, parametrisation: { ...old.parametrisation!, expressions: { k_x: "k_1*E^2/(2*C)" } } } as AnalysisResult;
     const body = exportAnalysis("formulas.tex", stored, meta).body;
     expect(body).toContain("older engine version");

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { PolynomialRing, QQ } from "@domain/algebra/index";
 import katex from "katex";
-import { composeExpression, expressionDegree, expressionTex, formatExpression, isPositiveExpression, simplifyFraction } from "@domain/steady-state/rational-expression";
+import { composeExpression, expressionDegree, expressionTex, expressionVariables, formatExpression, isPositiveExpression, simplifyFraction } from "@domain/steady-state/rational-expression";
 
 const R = new PolynomialRing(["x", "y", "k1", "k2"], QQ, "lex(2), grevlex(2)");
 const p = (s: string) => R.parse(s);
@@ -45,5 +45,10 @@ describe("rational expressions", () => {
     expect(expressionDegree({ num: p("x^2*y*k1"), den: p("x*k2") }, [0, 1])).toBe(3);
     expect(expressionDegree({ num: p("k1"), den: p("x^2 + y*k2") }, [0, 1])).toBe(2);
     expect(expressionDegree({ num: p("k1"), den: p("k2") }, [0, 1])).toBe(0);
+  });
+  it("variables it depends on: nonzero exponents in numerator or denominator, in the ring's order", () => {
+    expect(expressionVariables({ num: p("k2*x"), den: p("y + k1") })).toEqual(["x", "y", "k1", "k2"]);
+    expect(expressionVariables({ num: p("x^2 - x"), den: p("3") })).toEqual(["x"]);
+    expect(expressionVariables({ num: p("5"), den: p("1") })).toEqual([]);
   });
 });

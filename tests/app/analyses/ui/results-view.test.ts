@@ -22,7 +22,7 @@ describe("ResultsView: the engine's TeX, or an older result's text (server rende
   });
 
   it("a result stored before the engine wrote TeX shows its formulas as text, labelled, and parses nothing", () => {
-    const { tex: _t, parametrisationDegrees: _d, ...old } = result;
+    const { tex: _t, parametrisationDegrees: _d, parametrisationVariables: _v, ...old } = result;
     const html = render(old as AnalysisResult);
     expect(html).toContain('data-testid="untypeset-note"');
     expect(html).toContain("older engine version");
