@@ -5,6 +5,7 @@ import { makeComparator } from "../order";
 import type { Polynomial } from "../polynomial";
 import { normalizeTerms } from "../polynomial";
 import type { Rational } from "../rational";
+import { gcdBig } from "../rational";
 import { PolynomialRing } from "../ring";
 import { integerCoefficients } from "../groebner/coefficients";
 import { clearDenominators, toEngine } from "../groebner/convert";
@@ -18,7 +19,7 @@ import { invModP } from "./modp";
 import { primesBelow } from "./modp";
 import { MonomialTable } from "./monomial-table";
 import { isGradedOrder } from "./prime-field";
-import { bitLength, crtStep, mqrr, rationalModP } from "./reconstruction";
+import { bitLength, crtStep, guidedReconstruction, rationalModP } from "./reconstruction";
 
 /**
  * Primes for lifting: below 2^21, so p² < 2^42 and a dense row takes ~2000 additions before an
@@ -65,6 +66,8 @@ interface Lifted {
   mons: number[];
   index: Map<number, number>;
   vals: bigint[];
+  /** Each coefficient's last reconstruction (guidedReconstruction tries it first on the next prime). */
+  rats: (Rational | undefined)[];
 }
 
 interface Group {
@@ -315,7 +318,7 @@ export class ImageLifter {
       this.fresh = null;
       if (group && group.candidate && agreesModP(group.candidate, Gp, image.p)) return this.toCandidate(group, image.p);
       if (!group) {
-        group = { count: 0, M: 1n, elems: Gp.map(() => ({ mons: [], index: new Map(), vals: [] })), candidate: null, failedAt: [0, 0], primes: [] };
+        group = { count: 0, M: 1n, elems: Gp.map(() => ({ mons: [], index: new Map(), vals: [], rats: [] })), candidate: null, failedAt: [0, 0], primes: [] };
         this.groups.set(key, group);
       }
       this.seen.push(image.p);
@@ -595,17 +598,21 @@ function reconstruct(group: Group, tick: () => void): { mons: number[]; coeffs: 
   const M = group.M, logm = bitLength(M);
   const [fe, ft] = group.failedAt;
   const first = group.elems[fe]?.vals[ft];
-  if (first !== undefined && mqrr(first, M, logm) === null) return null;
+  if (first !== undefined && guidedReconstruction(first, M, logm, group.elems[fe].rats[ft], 0n) === null) return null;
   const out: { mons: number[]; coeffs: Rational[] }[] = [];
   for (let e = 0; e < group.elems.length; e++) {
     const L = group.elems[e];
     const coeffs: Rational[] = [];
     const mons: number[] = [];
+    // The element's denominators so far (lcm), a guess for the next coefficient's.
+    let den = 1n;
     for (let i = 0; i < L.vals.length; i++) {
       if ((i & 255) === 0) tick();
-      const r = mqrr(L.vals[i], M, logm);
+      const r = guidedReconstruction(L.vals[i], M, logm, L.rats[i], den);
       if (r === null) { group.failedAt = [e, i]; return null; }
+      L.rats[i] = r;
       if (r.num === 0n) continue;
+      if (den % r.den !== 0n) den = (den / gcdBig(den, r.den)) * r.den;
       coeffs.push(r);
       mons.push(L.mons[i]);
     }

@@ -55,3 +55,31 @@ export function rationalModP(r: Rational, p: number, P: bigint = BigInt(p)): num
   return (num * invMod(den, p)) % p;
 }
 
+
+/**
+ * Rational reconstruction that first tries what the lift already knows, before the Euclidean
+ * algorithm of mqrr (which is most of a lift's time: katsura-8, 28 primes, 2.8 s of 3.7 s):
+ *  - `previous`, the fraction this coefficient reconstructed to at a smaller modulus, if it is
+ *    still ≡ u (mod m): one multiplication instead of a Euclidean run on every later prime;
+ *  - `den`, a denominator shared by the element's other coefficients (reduced bases usually have
+ *    few distinct denominators): a = u·den mod m, taken symmetric, gives a/den when
+ *    |a|·den·T < m with mqrr's T = 2^20·log2(m), the same margin mqrr asks of its quotient.
+ * Two fractions n/d ≡ n'/d' (mod m) with |n|·d', |n'|·d < m/2 are equal, so when both mqrr and a
+ * guess are within that bound they agree; either way the caller checks the lift on a fresh prime
+ * and proves it exactly. Otherwise (and for u = 0) it is mqrr.
+ *
+ * Example: with m = 10^9+7, u = 5·7^{-1} mod m and den = 7n, the guess gives 5/7 without mqrr.
+ */
+export function guidedReconstruction(u: bigint, m: bigint, logm: number, previous: Rational | undefined, den: bigint): Rational | null {
+  if (previous !== undefined && previous.num !== 0n && (previous.num - u * previous.den) % m === 0n) return previous;
+  if (u !== 0n && den > 0n) {
+    let a = (u * den) % m;
+    if (a > m >> 1n) a -= m;
+    const abs = a < 0n ? -a : a;
+    if (abs * den * (1n << 20n) * BigInt(logm) < m) {
+      const g = gcdBig(abs, den);
+      return g === 1n ? { num: a, den } : { num: a / g, den: den / g };
+    }
+  }
+  return mqrr(u, m, logm);
+}

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { crtStep, mqrr, rationalModP } from "@domain/algebra/f4/reconstruction";
+import { crtStep, guidedReconstruction, mqrr, rationalModP } from "@domain/algebra/f4/reconstruction";
 
 const modInv = (a: bigint, m: bigint): bigint => {
   let [r0, r1, t0, t1] = [m, ((a % m) + m) % m, 0n, 1n];
@@ -34,5 +34,22 @@ describe("Chinese remaindering and rational reconstruction", () => {
     expect(rationalModP({ num: 1n, den: 3n }, 7)).toBe(5);
     expect(rationalModP({ num: -2n, den: 1n }, 7)).toBe(5);
     expect(rationalModP({ num: 1n, den: 7n }, 7)).toBeNull();
+  });
+
+  it("guided reconstruction reuses a still-valid fraction and a shared denominator, and agrees with mqrr", () => {
+    const m = 2n ** 127n - 1n, logm = 127; // a Mersenne prime, so every denominator is invertible
+    const residue = (num: bigint, den: bigint) => ((((num * modInv(den, m)) % m) + m) % m);
+    const u = residue(-22n, 17n);
+    // Through the shared denominator 17·34: the same fraction mqrr finds, in lowest terms.
+    expect(guidedReconstruction(u, m, logm, undefined, 578n)).toEqual({ num: -22n, den: 17n });
+    expect(mqrr(u, m, logm)).toEqual({ num: -22n, den: 17n });
+    // A previous fraction that is still congruent is returned as it is; one that is not is not.
+    const previous = { num: -22n, den: 17n };
+    expect(guidedReconstruction(u, m, logm, previous, 1n)).toBe(previous);
+    expect(guidedReconstruction(residue(5n, 7n), m, logm, previous, 1n)).toEqual({ num: 5n, den: 7n });
+    // A wrong denominator guess falls back to mqrr; too small a modulus still gives null.
+    expect(guidedReconstruction(residue(3n, 11n), m, logm, undefined, 7n)).toEqual({ num: 3n, den: 11n });
+    const small = 1000003n;
+    expect(guidedReconstruction((123456n * modInv(654321n, small)) % small, small, 20, undefined, 654321n)).toBeNull();
   });
 });
