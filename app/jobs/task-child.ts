@@ -5,6 +5,7 @@
  * cancelled mid-task, and forked again for the next one.
  */
 import type { LiftCandidate, MultiModularInput, ProofBatch } from "@domain/algebra/f4/multimodular";
+import type { ModularImage } from "@domain/algebra/f4/multimodular";
 import { encodeImage, imageModPrime, proveBatch } from "@domain/algebra/f4/multimodular";
 import { Limits } from "@domain/algebra/groebner/limits";
 
@@ -30,6 +31,11 @@ function keep<T>(m: Map<string, T>, key: string, value: T): T {
   return value;
 }
 
+// The last image this process computed per run: a later image (a smaller prime, as liftPrimes
+// yields them largest first) with the same support is sent as residues on it. The coordinator
+// adds images in prime order, so it has decoded that earlier image before it meets this one.
+const lastImage = new Map<string, ModularImage>();
+
 process.on("disconnect", () => process.exit(1));
 process.on("message", (raw) => {
   const req = raw as TaskRequest;
@@ -39,7 +45,12 @@ process.on("message", (raw) => {
     const limits = new Limits({ deadline: req.deadline });
     if (req.kind === "image") {
       const input = keep(inputs, req.runId, req.input);
-      reply = { kind: "image", bytes: encodeImage(imageModPrime(input, req.prime, limits)), ms: Date.now() - t0 };
+      const image = imageModPrime(input, req.prime, limits);
+      const like = lastImage.get(req.runId);
+      const bytes = encodeImage(image, like && like.p > image.p ? like : undefined);
+      lastImage.delete(req.runId);
+      keep(lastImage, req.runId, image);
+      reply = { kind: "image", bytes, ms: Date.now() - t0 };
     } else {
       const input = keep(inputs, req.runId, req.input);
       const candidate = keep(candidates, `${req.runId}:${req.candidate.checkedWith}`, req.candidate);

@@ -33,7 +33,7 @@ interface Row {
   primes: number;
   singleMs: number;
   singleStats: MultiModularStats;
-  byWorkers: { workers: number; wallMs: number; outcome: DistributedOutcome }[];
+  byWorkers: { workers: number; wallMs: number; outcome: DistributedOutcome; timeline: TaskTimes[] }[];
   same: boolean;
 }
 
@@ -115,7 +115,7 @@ async function measure(name: string, root: string, url: string, db: ReturnType<t
       const wallMs = Date.now() - w0;
       const ok = JSON.stringify(outcome.basis) === JSON.stringify(want);
       same &&= ok;
-      byWorkers.push({ workers: k, wallMs, outcome });
+      byWorkers.push({ workers: k, wallMs, outcome, timeline: await timelineOf(db, outcome.runId) });
       console.log(`  ${k} worker${k === 1 ? "" : "s"}: ${(wallMs / 1000).toFixed(2)} s (images ${(outcome.timings.imagesMs / 1000).toFixed(2)} s, lift ${(outcome.timings.liftMs / 1000).toFixed(2)} s of it, proof ${(outcome.timings.proofMs / 1000).toFixed(2)} s); ${outcome.primes.length} primes used; ${Math.round(outcome.meanImageBytes)} bytes/image; enqueue→start median ${Math.round(outcome.medianWaitMs)} ms (pick-up ${Math.round(outcome.medianPickupMs)} ms); basis ${ok ? "same" : "DIFFERS"}`);
       const split = Object.values(outcome.computeByWorker ?? {}).map((w) => `${w.tasks} tasks / ${(w.ms / 1000).toFixed(2)} s`);
       console.log(`    work per worker (compute time inside the task processes): ${split.join("; ")}`);
@@ -124,6 +124,17 @@ async function measure(name: string, root: string, url: string, db: ReturnType<t
     }
   }
   return { name, order, elements: want.length, primes: stats.primes, singleMs, singleStats: stats, byWorkers, same };
+}
+
+/** One task of a run, times in ms from the run's first enqueue: where a distributed run's wall time went. */
+interface TaskTimes { kind: string; seq: number; worker: string | null; enqueued: number; started: number | null; finished: number | null; computeMs: number | null }
+
+async function timelineOf(db: ReturnType<typeof createDb>, runId: string): Promise<TaskTimes[]> {
+  const rows = await db.selectFrom("basis_tasks").select(["kind", "seq", "worker_id", "enqueued_at", "started_at", "finished_at", "compute_ms", "status"])
+    .where("run_id", "=", runId).where("status", "=", "done").orderBy("enqueued_at").execute();
+  const t0 = Math.min(...rows.map((r) => new Date(r.enqueued_at).getTime()));
+  const at = (d: Date | string | null) => (d === null ? null : new Date(d).getTime() - t0);
+  return rows.map((r) => ({ kind: r.kind, seq: r.seq, worker: r.worker_id, enqueued: at(r.enqueued_at)!, started: at(r.started_at), finished: at(r.finished_at), computeMs: r.compute_ms }));
 }
 
 async function startWorkers(root: string, url: string, k: number): Promise<Managed[]> {

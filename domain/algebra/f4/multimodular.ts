@@ -140,6 +140,8 @@ interface Prepared {
   readonly reference: Polynomial<Rational>[] | null;
   /** Step 3's h-free leads per prime (the single-process run computes them with its first image). */
   readonly hFree: Map<number, HFreeLeads>;
+  /** Interned monomials of an image's exponents (images decoded on a shared support share the array). */
+  readonly interned: WeakMap<Int32Array, Int32Array[]>;
   /** Parsed candidates, so the single-process run does not re-parse its own. */
   readonly parsed: WeakMap<LiftCandidate, Polynomial<Rational>[]>;
   /** The same, primitive over Z and sorted, as the proof batches use them. */
@@ -173,7 +175,7 @@ function prepare(ring: PolynomialRing<Rational>, polys: readonly Polynomial<Rati
     return mons;
   });
   const graded = isGradedOrder(ring as Polynomial<unknown>["ring"]);
-  return { ring, graded, integer, T, inputMons, reference, hFree: new Map(), parsed: new WeakMap(), integerCandidates: new WeakMap() };
+  return { ring, graded, integer, T, inputMons, reference, hFree: new Map(), interned: new WeakMap(), parsed: new WeakMap(), integerCandidates: new WeakMap() };
 }
 
 function preparedFor(input: MultiModularInput): Prepared {
@@ -239,16 +241,27 @@ export function imageModPrime(input: MultiModularInput, p: number, limits: Limit
   return { p, n, lengths, exps, coeffs };
 }
 
-/** The image's elements as F4 polynomials in the input's monomial table. */
+/** The image's elements as F4 polynomials in the input's monomial table (monomials interned once per exponents array). */
 function imagePolys(pr: Prepared, image: ModularImage): F4Poly[] {
   const S = image.n + 1;
+  let monsOf = pr.interned.get(image.exps);
+  if (!monsOf) {
+    monsOf = [];
+    let t = 0;
+    for (let e = 0; e < image.lengths.length; e++) {
+      const len = image.lengths[e];
+      const mons = new Int32Array(len);
+      for (let i = 0; i < len; i++) mons[i] = pr.T.intern(image.exps, (t + i) * S);
+      monsOf.push(mons);
+      t += len;
+    }
+    pr.interned.set(image.exps, monsOf);
+  }
   const out: F4Poly[] = [];
   let t = 0;
   for (let e = 0; e < image.lengths.length; e++) {
     const len = image.lengths[e];
-    const mons = new Int32Array(len);
-    for (let i = 0; i < len; i++) mons[i] = pr.T.intern(image.exps, (t + i) * S);
-    out.push({ mons, coeffs: image.coeffs.slice(t, t + len) });
+    out.push({ mons: monsOf[e], coeffs: image.coeffs.slice(t, t + len) });
     t += len;
   }
   return out;
@@ -414,9 +427,21 @@ export function candidateBasis(input: MultiModularInput, candidate: LiftCandidat
   return candidatePolys(preparedFor(input), candidate).slice();
 }
 
-/** Bytes of an image for storage: a header (p, n, elements, terms) and the three arrays, little-endian int32. */
-export function encodeImage(image: ModularImage): Uint8Array {
+/**
+ * Bytes of an image for storage: a header (p, n, elements, terms) and the three arrays,
+ * little-endian int32. Given `like`, an image of the same input modulo another prime with the same
+ * leading monomials and support (lengths and exponents; the usual case among lucky primes), only
+ * the residues are written, with `like`'s prime in the header: katsura-8's images go from 1.15 MB
+ * to about 0.1 MB, which is what the database, the queue's processes and the coordinator carry.
+ */
+export function encodeImage(image: ModularImage, like?: ModularImage): Uint8Array {
   const terms = image.coeffs.length;
+  if (like && sameSupport(image, like)) {
+    const out = new Int32Array(5 + terms);
+    out[0] = image.p; out[1] = image.n | RESIDUES_ONLY; out[2] = image.lengths.length; out[3] = terms; out[4] = like.p;
+    out.set(image.coeffs, 5);
+    return new Uint8Array(out.buffer);
+  }
   const out = new Int32Array(4 + image.lengths.length + image.exps.length + terms);
   out[0] = image.p; out[1] = image.n; out[2] = image.lengths.length; out[3] = terms;
   out.set(image.lengths, 4);
@@ -425,10 +450,43 @@ export function encodeImage(image: ModularImage): Uint8Array {
   return new Uint8Array(out.buffer);
 }
 
-export function decodeImage(bytes: Uint8Array): ModularImage {
+/** Header flag (on n) of an image written as residues only, on the support of the image modulo the prime in word 4. */
+const RESIDUES_ONLY = 1 << 30;
+
+/** Whether two images have the same elements, lengths and exponents (their residues aside). */
+export function sameSupport(a: ModularImage, b: ModularImage): boolean {
+  if (a.n !== b.n || a.lengths.length !== b.lengths.length || a.exps.length !== b.exps.length) return false;
+  for (let i = 0; i < a.lengths.length; i++) if (a.lengths[i] !== b.lengths[i]) return false;
+  for (let i = 0; i < a.exps.length; i++) if (a.exps[i] !== b.exps[i]) return false;
+  return true;
+}
+
+/**
+ * The prime whose image a residues-only encoding refers to (decodeImage needs that image), or
+ * null for a self-contained encoding.
+ */
+export function imageReference(bytes: Uint8Array): number | null {
+  const head = new Int32Array(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + 20));
+  return (head[1] & RESIDUES_ONLY) !== 0 ? head[4] : null;
+}
+
+/**
+ * The image from encodeImage's bytes. A residues-only encoding shares the lengths and exponents
+ * arrays of `like(prime)` (the same objects, so the lift interns their monomials once).
+ */
+export function decodeImage(bytes: Uint8Array, like?: (p: number) => ModularImage | undefined): ModularImage {
   const copy = new Uint8Array(bytes.byteLength);
   copy.set(bytes);
   const a = new Int32Array(copy.buffer);
+  if (a.length >= 5 && (a[1] & RESIDUES_ONLY) !== 0) {
+    const [p, n, elems, terms, ref] = [a[0], a[1] & ~RESIDUES_ONLY, a[2], a[3], a[4]];
+    const base = like?.(ref);
+    if (!base) throw new AlgebraError("domain", `modular image mod ${p}: written on the support of the image mod ${ref}, which is not at hand`);
+    if (a.length !== 5 + terms || base.n !== n || base.lengths.length !== elems || base.coeffs.length !== terms) {
+      throw new AlgebraError("domain", "modular image: stored bytes do not match their header");
+    }
+    return { p, n, lengths: base.lengths, exps: base.exps, coeffs: a.slice(5) };
+  }
   const [p, n, elems, terms] = [a[0], a[1], a[2], a[3]];
   if (a.length !== 4 + elems + terms * (n + 1) + terms) throw new AlgebraError("domain", "modular image: stored bytes do not match their header");
   const lengths = a.slice(4, 4 + elems);

@@ -3,7 +3,7 @@ import { PolynomialRing, QQ, groebnerBasis } from "@domain/algebra/index";
 import { Limits } from "@domain/algebra/groebner/limits";
 import type { LiftCandidate, ModularImage, MultiModularInput } from "@domain/algebra/f4/multimodular";
 import {
-  ImageLifter, candidateBasis, decodeImage, encodeImage, imageModPrime, liftImages, liftPrimes, multiModularGroebnerQQ,
+  ImageLifter, candidateBasis, decodeImage, encodeImage, imageModPrime, imageReference, liftImages, liftPrimes, multiModularGroebnerQQ,
   multiModularInput, proofBatches, proveBatch,
 } from "@domain/algebra/f4/multimodular";
 import { katsura, randomIdeal } from "../../../fixtures/algebra/systems";
@@ -28,11 +28,16 @@ function byParts(input: MultiModularInput, batches: number) {
   const primes = [...take(liftPrimes(input), 200)];
   // Computed out of order (as workers finish them), each on a fresh copy of the input, as bytes.
   const computed = new Map<number, Uint8Array>();
-  for (const p of [...primes].reverse()) computed.set(p, encodeImage(imageModPrime(overTheWire(input), p, new Limits())));
+  // Every other image on the support of the one before it (as a worker's task process sends them).
+  const plain = new Map(primes.map((p) => [p, imageModPrime(overTheWire(input), p, new Limits())] as const));
+  for (const [i, p] of [...primes.entries()].reverse()) computed.set(p, encodeImage(plain.get(p)!, i % 2 === 1 ? plain.get(primes[i - 1]) : undefined));
   const lifter = new ImageLifter(overTheWire(input));
+  const decoded = new Map<number, ModularImage>();
   let cand: LiftCandidate | null = null;
   for (const p of primes) {
-    cand = lifter.add(decodeImage(computed.get(p)!));
+    const image = decodeImage(computed.get(p)!, (r) => decoded.get(r));
+    decoded.set(p, image);
+    cand = lifter.add(image);
     if (cand) break;
   }
   expect(cand).not.toBeNull();
@@ -107,6 +112,27 @@ describe("multi-modular seams (plain data between workers)", () => {
     expect([...back.exps]).toEqual([...image.exps]);
     expect([...back.coeffs]).toEqual([...image.coeffs]);
     expect(() => decodeImage(encodeImage(image).subarray(0, 40))).toThrow(/do not match/);
+  });
+
+  it("an image on the support of an earlier one is its residues only, and decodes to the same image", () => {
+    const { polys } = system(katsura(4).vars, "grevlex", katsura(4).polys);
+    const input = multiModularInput(polys);
+    const [p, q] = [...take(liftPrimes(input), 2)];
+    const first = imageModPrime(input, p, new Limits()), second = imageModPrime(input, q, new Limits());
+    const full = encodeImage(second), short = encodeImage(second, first);
+    expect(imageReference(full)).toBeNull();
+    expect(imageReference(short)).toBe(p);
+    expect(short.byteLength).toBe(4 * (5 + second.coeffs.length)); // header and residues, no exponents
+    expect(short.byteLength).toBeLessThan(full.byteLength / 5);
+    const back = decodeImage(short, (r) => (r === p ? first : undefined));
+    expect(back.exps).toBe(first.exps); // shared, so the lift interns its monomials once
+    expect([...back.coeffs]).toEqual([...second.coeffs]);
+    expect(back.p).toBe(q);
+    // Without the image it refers to, decoding says which one is missing.
+    expect(() => decodeImage(short)).toThrow(new RegExp(`mod ${q}: written on the support of the image mod ${p}`));
+    // A support that differs is written in full.
+    const other: ModularImage = { ...first, exps: first.exps.map((e, i) => (i === first.exps.length - 1 ? e + 1 : e)) };
+    expect(imageReference(encodeImage(second, other))).toBeNull();
   });
 });
 
