@@ -1,7 +1,7 @@
 import { AlgebraError } from "./errors";
 import type { SourceLocation } from "./errors";
 import type { Polynomial } from "./polynomial";
-import { add, constantPoly, isZeroPoly, mul, neg, numTerms, pow, scale, sub, totalDegree, variablePoly } from "./polynomial";
+import { add, constantPoly, isZeroPoly, mul, neg, numTerms, pow, scale, totalDegree, variablePoly } from "./polynomial";
 import { parseRational } from "./rational";
 import type { PolynomialRing } from "./ring";
 
@@ -103,12 +103,21 @@ export function parsePolynomial<C>(ring: PolynomialRing<C>, text: string, option
   const isOp = (s: string) => peek().kind === "op" && peek().text === s;
 
   function expression(): Polynomial<C> {
-    let acc = term();
+    // Summands are added pairwise (a balanced tree), not each into a growing sum: a sum of n
+    // terms costs O(n log n) merges instead of O(n²) copies (a 143-element basis of about 200
+    // terms each parsed in 0.45 s left to right, most of it re-copying the partial sums).
+    let parts: Polynomial<C>[] = [term()];
     for (;;) {
-      if (isOp("+")) { t++; acc = add(acc, term()); }
-      else if (isOp("-")) { t++; acc = sub(acc, term()); }
-      else return acc;
+      if (isOp("+")) { t++; parts.push(term()); }
+      else if (isOp("-")) { t++; parts.push(neg(term())); }
+      else break;
     }
+    while (parts.length > 1) {
+      const next: Polynomial<C>[] = [];
+      for (let i = 0; i < parts.length; i += 2) next.push(i + 1 < parts.length ? add(parts[i], parts[i + 1]) : parts[i]);
+      parts = next;
+    }
+    return parts[0];
   }
 
   function term(): Polynomial<C> {
