@@ -20,13 +20,15 @@ export interface DistributedRunView {
   workerCount: number;
   engineVersion: string;
   error: string | null;
+  /** A run that was not used: what the analysis did instead (a later run spread its homogenised ideal, or one process). */
+  insteadBy: "later run" | "one process" | null;
 }
 
 export async function distributedRunsOf(db: DbExecutor, analysisId: string, options: { sharedView: boolean }): Promise<DistributedRunView[]> {
   const runs = await db.selectFrom("basis_runs").selectAll().where("analysis_id", "=", analysisId).orderBy("created_at").execute();
   if (runs.length === 0) return [];
   const tasks = await db.selectFrom("basis_tasks").select(["run_id", "kind", "status", "worker_id"]).where("run_id", "in", runs.map((r) => r.id)).execute();
-  return runs.map((r) => {
+  return runs.map((r, i) => {
     const mine = tasks.filter((t) => t.run_id === r.id);
     const workers = [...new Set(mine.filter((t) => t.status === "done" && t.worker_id).map((t) => t.worker_id!))].sort();
     const proof = mine.filter((t) => t.kind === "proof");
@@ -43,6 +45,14 @@ export async function distributedRunsOf(db: DbExecutor, analysisId: string, opti
       workerCount: workers.length,
       engineVersion: r.engine_version,
       error: r.error,
+      // A failed run is followed by one on the homogenised ideal when its step 3 failed (app/jobs/distribute-in-child.server.ts).
+      insteadBy: r.status !== "failed" ? null : runs.slice(i + 1).some((later) => homogenisationOf(later.input, r.input)) ? "later run" : "one process",
     };
   });
+}
+
+/** Whether run input `later` is the homogenisation of `earlier` (the same variables and one more, last). */
+function homogenisationOf(later: unknown, earlier: unknown): boolean {
+  const a = (later as { vars?: string[] } | null)?.vars, b = (earlier as { vars?: string[] } | null)?.vars;
+  return Array.isArray(a) && Array.isArray(b) && a.length === b.length + 1 && b.every((v, k) => a[k] === v);
 }

@@ -41,6 +41,7 @@ process.once("message", (raw) => {
 async function run({ payload, engineTimeoutMs, distribution }: ChildStart): Promise<ChildMessage> {
   const deadline = Date.now() + engineTimeoutMs;
   const known = new Map<string, readonly string[] | null>();
+  const records: Record<string, unknown>[] = [];
   const hook: DistributionHook | undefined = distribution ? { thresholdMs: distribution.thresholdMs, known } : undefined;
   for (;;) {
     try {
@@ -54,11 +55,14 @@ async function run({ payload, engineTimeoutMs, distribution }: ChildStart): Prom
         onPartial: (result) => send({ type: "partial", result }),
         ...(hook ? { distribution: hook } : {}),
       });
-      return { type: "result", result };
+      // Appended last, only when a basis was spread: every other result keeps its keys as before.
+      return { type: "result", result: records.length > 0 ? { ...result, distributedBases: records } : result };
     } catch (e) {
       if (!isDistributeRequest(e) || !distribution) throw e;
       const { distributeOne } = await import("./distribute-in-child.server");
-      known.set(...(await distributeOne(e, distribution, deadline, (message) => send({ type: "progress", phase: "groebner", message }))));
+      const out = await distributeOne(e, distribution, deadline, (message) => send({ type: "progress", phase: "groebner", message }));
+      known.set(out.key, out.basis);
+      records.push(...out.records.map((r) => ({ ...r })));
     }
   }
 }

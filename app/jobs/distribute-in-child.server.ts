@@ -3,21 +3,52 @@
  * coordinator, and the outcome as a `known` entry (the proven basis, or null = compute it locally).
  */
 import type { DistributeRequest } from "@domain/algebra/f4/distribution";
-import { distributionKey } from "@domain/algebra/f4/distribution";
+import { distributionKey, homogenisedRoute } from "@domain/algebra/f4/distribution";
 import { Limits } from "@domain/algebra/groebner/limits";
 import { createDb } from "~/db.server";
 import type { Database } from "~/db/schema";
 import type { Kysely } from "kysely";
-import { distributedGroebner } from "./coordinator.server";
+import { distributedGroebner, type DistributedOutcome, type DistributedProgress } from "./coordinator.server";
 
 let db: Kysely<Database> | null = null;
+
+/**
+ * What the analysis result records of each basis it spread over the workers (key
+ * `distributedBases`): which primes were lifted and which set aside, by which engine version and
+ * workers. Not proven = computed in the job's own process instead (`failed` says which proof step).
+ */
+export interface DistributedBasisRecord {
+  runId: string;
+  proven: boolean;
+  failed?: string;
+  elements: number | null;
+  primes: number[];
+  unluckyPrimes: number[];
+  engineVersion: string;
+  workers: string[];
+  /** The run spread the homogenised ideal F^h (after step 3 failed on F); its basis was dehomogenised. */
+  homogenised?: boolean;
+}
+
+function recordOf(out: DistributedOutcome): DistributedBasisRecord {
+  return {
+    runId: out.runId, proven: out.basis !== null, ...(out.failed ? { failed: out.failed } : {}), elements: out.basis?.length ?? null,
+    primes: out.primes, unluckyPrimes: out.unlucky, engineVersion: out.engineVersion, workers: out.workers,
+  };
+}
+
+function progressText(p: DistributedProgress): string {
+  return p.stage === "images"
+    ? `distributed Gröbner basis: ${p.imagesDone} images done of ${p.imagesNeeded ?? `at least ${p.imagesDone + 1}`} needed; workers: ${p.workers.join(", ")}`
+    : `distributed Gröbner basis: proof batch ${p.proofDone} of ${p.proofBatches} (${p.imagesDone} images); workers: ${p.workers.join(", ")}`;
+}
 
 export async function distributeOne(
   request: DistributeRequest,
   o: { databaseUrl: string; analysisId: string; workerId: string },
   deadline: number,
   progress: (message: string) => void,
-): Promise<[string, readonly string[] | null]> {
+): Promise<{ key: string; basis: readonly string[] | null; records: DistributedBasisRecord[] }> {
   db ??= createDb(o.databaseUrl, { max: 2 });
   const key = distributionKey(request.input);
   progress(`distributed Gröbner basis: first image modulo a prime took ${request.firstImageMs} ms; spreading the images over the workers`);
@@ -28,13 +59,22 @@ export async function distributeOne(
     analysisId: o.analysisId,
     firstImage: { image: request.firstImage, ms: request.firstImageMs },
     limits: new Limits({ deadline }, "Distributed Gröbner basis"),
-    onProgress: (p) =>
-      progress(
-        p.stage === "images"
-          ? `distributed Gröbner basis: ${p.imagesDone} images done of ${p.imagesNeeded ?? `at least ${p.imagesDone + 1}`} needed; workers: ${p.workers.join(", ")}`
-          : `distributed Gröbner basis: proof batch ${p.proofDone} of ${p.proofBatches} (${p.imagesDone} images); workers: ${p.workers.join(", ")}`,
-      ),
+    onProgress: (p) => progress(progressText(p)),
   });
-  if (!out.basis) progress(`distributed Gröbner basis not proven (${out.failed}); computing it in this process`);
-  return [key, out.basis];
+  const records = [recordOf(out)];
+  let basis = out.basis;
+  const viaH = !basis && out.failed === "hilbert" ? homogenisedRoute(request.input) : null;
+  if (viaH) {
+    // Step 3 by Hilbert functions cannot prove ⟨F⟩ (its homogenisation is not saturated): spread
+    // the homogenised ideal instead, whose step 3 is the homogeneous case, then set h = 1.
+    progress("distributed Gröbner basis: step 3 cannot be proven for this ideal as it stands; spreading its homogenisation instead");
+    const outH = await distributedGroebner(viaH.input, {
+      db, databaseUrl: o.databaseUrl, coordinatorId: `${o.workerId} (coordinator)`, analysisId: o.analysisId,
+      limits: new Limits({ deadline }, "Distributed Gröbner basis"), onProgress: (p) => progress(progressText(p)),
+    });
+    records.push({ ...recordOf(outH), homogenised: true });
+    if (outH.basis) basis = viaH.finish(outH.basis, new Limits({ deadline }, "Distributed Gröbner basis"));
+  }
+  if (!basis) progress(`distributed Gröbner basis not proven (${records[records.length - 1].failed}); computing it in this process`);
+  return { key, basis, records };
 }

@@ -182,6 +182,40 @@ export function phosphorylationNSiteParametric(n: number, symbolic: readonly str
   return phosphorylationIdeal(species, reactions, totals, parameters);
 }
 
+/**
+ * The n-site distributive cycle with every constant numeric but "measured": four significant
+ * digits (invented values from a fixed rule, not data), totals 5.3, 1.21, 0.97, and saturated
+ * by 1 − t_sat·(product of the species) as an analysis' steady-state ideal is (positive
+ * concentrations only), in grevlex. Small integers keep bases small; constants like these are
+ * what make a steady-state basis over Q large (hundreds of primes to lift), so this is the
+ * distributed bench's steady-state ideal. Its homogenisation is not saturated in h, so it is
+ * proven through F^h (domain/algebra/groebner/homogenise.ts).
+ */
+export function phosphorylationNSiteMeasured(n: number): PolySystem {
+  const value = (i: number) => `${((i * 7919) % 9000) + 1000}/1000`; // 1.000 … 9.999
+  const rates = Array.from({ length: 6 * n }, (_, i) => value(i + 1));
+  const reactions: Reaction[] = [];
+  for (let i = 0; i < n; i++) reactions.push(...enzymeStep(`S${i}`, "E", `S${i + 1}`, rates.slice(3 * i, 3 * i + 3)));
+  for (let i = n - 1, r = 3 * n; i >= 0; i--, r += 3) reactions.push(...enzymeStep(`S${i + 1}`, "F", `S${i}`, rates.slice(r, r + 3)));
+  // Species in the order of an analysis of this network (complexes first, then S1..Sn, S0, E, F).
+  const species = [
+    ...Array.from({ length: n }, (_, i) => [`ES${i}`, `FS${i + 1}`]).flat(),
+    ...Array.from({ length: n }, (_, i) => `S${i + 1}`),
+    "S0", "E", "F",
+  ];
+  const ideal = phosphorylationIdeal(species, reactions, { E: "53/10", F: "121/100", S: "97/100" }, ["t_sat"]);
+  const nv = ideal.vars.length;
+  let product = polyVar(nv - 1, nv);
+  for (let k = 0; k < species.length; k++) product = polyMul(product, polyVar(k, nv));
+  // t_sat first, as an analysis orders it.
+  const first = (p: Poly): Poly => new Map([...p.values()].map((t) => {
+    const exps = [t.exps[nv - 1], ...t.exps.slice(0, nv - 1)];
+    return [exps.join(","), { exps, coef: t.coef }] as const;
+  }));
+  const polys = [...ideal.polys, polySub(polyConst(q(1n), nv), product)].map(first);
+  return { vars: ["t_sat", ...ideal.vars.slice(0, nv - 1)], polys };
+}
+
 /** The symbolic two-site cycle as a reaction network, for `analyse` (see network-csv.ts). */
 export interface BenchNetwork {
   readonly name: string;
@@ -263,6 +297,8 @@ export function standardSystems(): BenchSystem[] {
     const text = `${p.n}-site distributive phosphorylation cycle (Wang and Sontag, J. Math. Biol. 2008), mass action, invented constants, symbolic: ${[...p.symbolic, ...(p.totals ? ["Etot", "Ftot", "Stot"] : [])].join(", ")}`;
     out.push({ name: p.name, quick: false, extra: p.extra, file: toFile(sys, `lex(${nspecies}), grevlex(${sys.vars.length - nspecies})`, [text, "species eliminated in lex above the symbolic constants in grevlex", ssText, generated]) });
   }
+  const measuredText = "4-site distributive phosphorylation cycle (Wang and Sontag, J. Math. Biol. 2008), mass action, invented constants with four significant digits (k_i = ((7919·i) mod 9000 + 1000)/1000), totals E 5.3, F 1.21, S 0.97";
+  out.push({ name: "phospho-4site-measured", quick: false, extra: true, file: toFile(phosphorylationNSiteMeasured(4), "grevlex", [measuredText, ssText, "saturated: 1 - t_sat * (product of the species), positive concentrations only", generated]) });
   return out;
 }
 

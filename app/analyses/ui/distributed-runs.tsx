@@ -33,6 +33,6 @@ export function DistributedRuns({ runs }: { runs: DistributedRunView[] }) {
 function runStatus(r: DistributedRunView): string {
   if (r.status === "succeeded") return "proven";
   if (r.status === "running") return "running";
-  if (r.status === "failed") return `not used: ${r.error ?? "failed"}; computed in one process instead`;
+  if (r.status === "failed") return `not used: ${r.error ?? "failed"}; ${r.insteadBy === "later run" ? "its homogenised ideal was spread instead (next line)" : "computed in one process instead"}`;
   return `stopped (${r.error ?? "cancelled"})`;
 }

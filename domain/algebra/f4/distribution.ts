@@ -2,6 +2,9 @@ import { AlgebraError } from "../errors";
 import type { Limits } from "../groebner/limits";
 import type { Polynomial } from "../polynomial";
 import type { Rational } from "../rational";
+import { QQ } from "../field";
+import { dehomogenisedBasis, homogenise, isPlainGrevlex } from "../groebner/homogenise";
+import { PolynomialRing } from "../ring";
 import type { ModularImage, MultiModularInput } from "./multimodular";
 import { canLift, imageModPrime, liftPrimes, multiModularInput } from "./multimodular";
 
@@ -56,3 +59,23 @@ export function distributedOrLocal(polys: readonly Polynomial<Rational>[], limit
 }
 
 export const isDistributeRequest = (e: unknown): e is DistributeRequest => e instanceof DistributeRequest && !(e instanceof AlgebraError);
+
+/**
+ * For a distributed grevlex basis whose proof step 3 failed (Hilbert functions need ⟨F^h⟩
+ * saturated with respect to h, which saturated steady-state ideals, generator 1 − t·x1⋯xn, and
+ * cyclic-n are not): the homogenised input F^h, whose step 3 is the homogeneous case, to
+ * distribute instead, and `finish`, which turns its proven reduced basis into the reduced basis
+ * of ⟨F⟩ (h = 1 and inter-reduction; groebner/homogenise.ts has the proof that this is the
+ * reduced grevlex basis of ⟨F⟩). Null for other orders (lex and block orders prove step 3 by
+ * membership and do not fail this way).
+ */
+export function homogenisedRoute(input: MultiModularInput): { input: MultiModularInput; finish: (basis: readonly string[], limits: Limits) => string[] } | null {
+  if (input.reference) return null;
+  const ring = new PolynomialRing(input.vars, QQ, input.order);
+  if (!isPlainGrevlex(ring)) return null;
+  const H = homogenise(input.polys.map((s) => ring.parse(s)));
+  return {
+    input: multiModularInput(H.polys, undefined, input.primeLimit),
+    finish: (basis, limits) => dehomogenisedBasis(basis.map((s) => H.ring.parse(s)), ring, limits).map((g) => ring.format(g)),
+  };
+}

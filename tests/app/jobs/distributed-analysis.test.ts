@@ -12,8 +12,9 @@ import { startWorker, type RunningWorker } from "~/jobs/worker.server";
 /**
  * Analyses whose bases over Q are distributed (threshold 0, so even a small ideal goes through
  * the image queue: slow by construction of the test, not by the engine's speed): the stored
- * result is exactly the one-process result, and cancelling the analysis leaves no child job
- * queued or running.
+ * result is exactly the one-process result (reduced bases are unique: Cox, Little, O'Shea,
+ * "Ideals, Varieties, and Algorithms", ch. 2 §7, Prop. 6), and cancelling the analysis leaves no
+ * child job queued or running.
  */
 describe.skipIf(!hasTestDatabase)("distributed analyses", () => {
   let t: TestDatabase;
@@ -43,7 +44,7 @@ describe.skipIf(!hasTestDatabase)("distributed analyses", () => {
   const row = (id: string) => t.db.selectFrom("analyses").selectAll().where("id", "=", id).executeTakeFirstOrThrow();
   const finished = (id: string, ms: number) => waitFor(async () => ((r) => (["succeeded", "failed", "cancelled"].includes(r.status) ? r : undefined))(await row(id)), ms, `job ${id} to finish`);
 
-  it("stores exactly the one-process result, with the distributed runs recorded (engine version, workers, why it was not lifted)", async () => {
+  it("stores exactly the one-process result; a basis step 3 cannot prove is spread as its homogenisation, and the result records the runs", async () => {
     await start();
     await start({ jobs: false }); // a second machine lending its core to the images
     const params = analysisParams({ initial: { X: "1" } });
@@ -51,26 +52,36 @@ describe.skipIf(!hasTestDatabase)("distributed analyses", () => {
     const done = await finished(id, 90_000);
     expect([done.status, done.error]).toEqual(["succeeded", null]);
     const alone = computeJob({ kind: "analysis", csv: fixtureCsv("cubic-autocatalysis"), params }, { engineTimeoutMs: 60_000 });
-    expect(done.result).toEqual(JSON.parse(JSON.stringify(alone)));
-    const runs = await t.db.selectFrom("basis_runs").selectAll().where("analysis_id", "=", id).execute();
-    expect(runs.length).toBeGreaterThan(0);
-    for (const r of runs) {
-      // This ideal (a saturation, so its homogenisation is not saturated) cannot be proven by
-      // Hilbert functions: the early step-3 child job says so and the basis is computed in the job
-      // process, as the single-process path would. The proven distributed path is
-      // tests/app/jobs/distributed-basis.test.ts.
-      expect([r.status, r.error]).toEqual(["failed", expect.stringMatching(/^proof step failed: hilbert/)]);
-      expect(r.engine_version).toBe(done.engine_version);
+    const { distributedBases, ...rest } = done.result as Record<string, unknown> & { distributedBases: Record<string, unknown>[] };
+    expect(rest).toEqual(JSON.parse(JSON.stringify(alone)));
+    const runs = await t.db.selectFrom("basis_runs").selectAll().where("analysis_id", "=", id).orderBy("created_at").execute();
+    // Each basis: first ⟨F⟩ itself, whose step 3 (Hilbert functions) fails on the first image (a
+    // saturation: its homogenisation is not saturated), then ⟨F^h⟩, proven, and h = 1.
+    expect(runs.length).toBeGreaterThanOrEqual(2);
+    expect(runs.length % 2).toBe(0);
+    for (let i = 0; i < runs.length; i += 2) {
+      expect([runs[i].status, runs[i].error]).toEqual(["failed", expect.stringMatching(/^proof step failed: hilbert/)]);
+      expect(runs[i + 1].status).toBe("succeeded");
+      const [f, fh] = [runs[i].input as unknown as { vars: string[] }, runs[i + 1].input as unknown as { vars: string[] }];
+      expect(fh.vars.slice(0, -1)).toEqual(f.vars);
+    }
+    for (const r of runs) expect(r.engine_version).toBe(done.engine_version);
+    // The result records every run: proven or not, the primes, the engine version, the workers.
+    expect(distributedBases.map((b) => [b.runId, b.proven, b.homogenised ?? false])).toEqual(runs.map((r, i) => [r.id, i % 2 === 1, i % 2 === 1]));
+    for (const [i, b] of distributedBases.entries()) {
+      expect(b.engineVersion).toBe(done.engine_version);
+      if (i % 2 === 1) expect(b.primes).toEqual(runs[i].primes_used);
+      else expect(b.failed).toBe("hilbert");
     }
     const tasks = await t.db.selectFrom("basis_tasks").select(["status", "worker_id"]).where("run_id", "in", runs.map((r) => r.id)).execute();
     expect(tasks.filter((x) => x.status === "done").length).toBeGreaterThan(0);
     expect(new Set(tasks.map((x) => x.worker_id).filter((w) => w && !w.endsWith("(coordinator)"))).size).toBeGreaterThan(0);
     expect(tasks.filter((x) => x.status === "queued" || x.status === "running")).toEqual([]);
-    // What the analysis page shows: images done, who took part (names only for lab members).
+    // What the analysis page shows: images done, who took part (names only for lab members), what replaced a run that was not used.
     const view = await distributedRunsOf(t.db, id, { sharedView: false });
     expect(view.map((v) => v.imagesDone)).toEqual(runs.map((r) => r.images_done));
     expect(view.every((v) => v.imagesDone >= 1 && v.workerCount >= 1 && v.workers.length === v.workerCount)).toBe(true);
-    expect(view.every((v) => /^proof step failed: hilbert/.test(v.error ?? ""))).toBe(true);
+    expect(view.map((v) => v.insteadBy)).toEqual(runs.map((_, i) => (i % 2 === 0 ? "later run" : null)));
     const shared = await distributedRunsOf(t.db, id, { sharedView: true });
     expect(shared.every((v) => v.workers.length === 0 && v.workerCount >= 1)).toBe(true);
     for (const w of workers.splice(0)) await w.stop();
