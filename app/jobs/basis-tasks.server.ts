@@ -36,7 +36,7 @@ export async function processTask(db: DbExecutor, message: TaskMessage, ctx: Tas
   const deadline = Date.now() + 24 * 3600_000; // the run's own limit stops it (it is cancelled at the analysis' limit)
   const request =
     task.kind === "image"
-      ? ({ kind: "image", runId: task.run_id, input, prime: task.prime!, deadline } as const)
+      ? ({ kind: "image", runId: task.run_id, input, primes: imagePrimes(task), deadline } as const)
       : ({ kind: "proof", runId: task.run_id, input, candidate: proofCandidate(task.batch, run.candidate, task.seq), batch: task.batch as unknown as ProofBatch, deadline } as const);
   let runEnded = false;
   const beat = setInterval(() => {
@@ -70,10 +70,17 @@ export async function processTask(db: DbExecutor, message: TaskMessage, ctx: Tas
   if (reply.kind === "image") {
     const bytes = Buffer.from(reply.bytes.buffer, reply.bytes.byteOffset, reply.bytes.byteLength);
     await mine().set({ status: "done", image: bytes, bytes: bytes.byteLength, compute_ms: reply.ms, finished_at: sql`now()` }).execute();
-    return `image mod ${task.prime} (${bytes.byteLength} bytes, ${reply.ms} ms)`;
+    const primes = imagePrimes(task);
+    return `image${primes.length > 1 ? `s mod ${primes.length} primes from` : " mod"} ${task.prime} (${bytes.byteLength} bytes, ${reply.ms} ms)`;
   }
   await mine().set({ status: "done", ok: reply.ok, failed_step: reply.failed ?? null, compute_ms: reply.ms, finished_at: sql`now()` }).execute();
   return `proof batch ${task.seq}: ${reply.ok ? "ok" : `failed (${reply.failed})`} (${reply.ms} ms)`;
+}
+
+/** The primes of an image task: one, or a few consecutive ones when each image is quick (coordinator.server.ts). */
+export function imagePrimes(task: { prime: number | null; batch: unknown }): number[] {
+  const primes = (task.batch as { primes?: number[] } | null)?.primes;
+  return Array.isArray(primes) && primes.length > 0 ? primes : [task.prime!];
 }
 
 /** The candidate a proof batch is about: the run's, or for the early step-3 check the first image's leading monomials (kept in the batch). */

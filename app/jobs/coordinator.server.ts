@@ -18,11 +18,11 @@
 import { sql } from "kysely";
 import type { Kysely } from "kysely";
 import type { LiftCandidate, ModularImage, MultiModularInput, ProofBatch } from "@domain/algebra/f4/multimodular";
-import { ImageLifter, decodeImage, encodeImage, imageModPrime, imageReference, leadsCandidate, liftPrimes, proofBatches, proveBatch } from "@domain/algebra/f4/multimodular";
+import { ImageLifter, batchReference, decodeImageBatch, encodeImage, imageModPrime, leadsCandidate, liftPrimes, proofBatches, proveBatch } from "@domain/algebra/f4/multimodular";
 import { Limits } from "@domain/algebra/groebner/limits";
 import { ENGINE_VERSION } from "~/analyses/engine-version";
 import type { Database, JsonObject } from "~/db/schema";
-import { cancelRunJobs } from "./basis-tasks.server";
+import { cancelRunJobs, imagePrimes } from "./basis-tasks.server";
 import { enqueueTask } from "./queue.server";
 
 export interface CoordinatorOptions {
@@ -77,6 +77,10 @@ export interface DistributedOutcome {
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
+/** Work per image task once the first image's time is known (ms), and the most primes one task takes. */
+const TASK_TARGET_MS = 300;
+const MAX_IMAGES_PER_TASK = 16;
+
 export async function distributedGroebner(input: MultiModularInput, o: CoordinatorOptions): Promise<DistributedOutcome> {
   const { db } = o;
   const limits = o.limits ?? new Limits();
@@ -97,18 +101,37 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
   const runId = run.id;
   const primes: number[] = [];
   const primeGen = liftPrimes(input);
+  const seqOfPrime = new Map<number, number>();
   const primeAt = (i: number) => {
-    while (primes.length <= i) primes.push(primeGen.next().value as number);
+    while (primes.length <= i) {
+      const p = primeGen.next().value as number;
+      seqOfPrime.set(p, primes.length);
+      primes.push(p);
+    }
     return primes[i];
   };
-  const enqueued = new Map<number, string>(); // seq -> task id
+  const enqueued = new Map<number, string>(); // seq -> id of the task computing it ("first": the caller's)
+  const taskFirstSeq = new Map<string, number>();
   const decoded = new Map<number, ModularImage>(); // prime -> image, for images written on another's support
-  const enqueueImage = async (seq: number) => {
-    if (enqueued.has(seq)) return;
-    const row = await db.insertInto("basis_tasks").values({ run_id: runId, kind: "image", seq, prime: primeAt(seq) }).returning("id").executeTakeFirstOrThrow();
-    enqueued.set(seq, row.id);
-    // Earlier primes first: the lift takes them in order.
-    await enqueueTask(o.databaseUrl, { taskId: row.id, runId }, { priority: 1_000_000 - seq, expireInSeconds: expire });
+  const ready = new Map<number, ModularImage>(); // seq -> image decoded with its task, not yet lifted
+  let nextSeq = 0;
+  // Images per task: 1 until the first image's time is known, then enough for about
+  // TASK_TARGET_MS each, so that quick images (the 4-site cycle's: 40 ms) do not pay the
+  // queue's and the database's per-task cost (about 8 ms) every time.
+  let perTask = 1;
+  const enqueueImagesUpTo = async (limit: number) => {
+    while (nextSeq < limit) {
+      const start = nextSeq, count = start === 0 ? 1 : perTask;
+      const primesOf = Array.from({ length: count }, (_, i) => primeAt(start + i));
+      const row = await db.insertInto("basis_tasks")
+        .values({ run_id: runId, kind: "image", seq: start, prime: primesOf[0], ...(count > 1 ? { batch: JSON.stringify({ primes: primesOf }) as unknown as JsonObject } : {}) })
+        .returning("id").executeTakeFirstOrThrow();
+      for (let i = 0; i < count; i++) enqueued.set(start + i, row.id);
+      taskFirstSeq.set(row.id, start);
+      nextSeq = start + count;
+      // Earlier primes first: the lift takes them in order.
+      await enqueueTask(o.databaseUrl, { taskId: row.id, runId }, { priority: 1_000_000 - start, expireInSeconds: expire });
+    }
   };
   const workers = async () =>
     (await db.selectFrom("basis_tasks").select("worker_id").distinct().where("run_id", "=", runId).where("worker_id", "is not", null).execute())
@@ -131,6 +154,7 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
         bytes: bytes.byteLength, compute_ms: o.firstImage.ms, started_at: sql`now()`, finished_at: sql`now()`,
       }).execute();
       enqueued.set(0, "first");
+      nextSeq = 1;
       if (o.firstImage.image.p !== primeAt(0)) throw new Error("distributedGroebner: the first image must be modulo the first lift prime");
     }
     const imagesStart = Date.now();
@@ -142,8 +166,9 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
     const batchKinds = proofBatches(input, { basis: [], primes: [], unlucky: [], checkedWith: 0 }, 1).map((b) => b.kind);
     let aborted: string | undefined;
     while (!candidate) {
-      for (let s = seq; s < seq + window; s++) await enqueueImage(s);
-      const image = await waitForImage(runId, seq, () => computeLocally({ kind: "image", prime: primeAt(seq) }));
+      await enqueueImagesUpTo(seq + window * perTask);
+      const image = await imageAt(seq);
+      if (seq === 0) perTask = await imagesPerTask();
       if (seq === 0 && batchKinds.includes("hilbert")) {
         const leads = leadsCandidate(input, image);
         const batch: ProofBatch = { kind: "hilbert", p: image.p };
@@ -176,7 +201,7 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
     }
     const imagesMs = Date.now() - imagesStart;
     // Images no longer needed: cancel those still queued (one a worker is computing finishes; its row is ignored).
-    const extra = [...enqueued.entries()].filter(([s]) => s >= seq).map(([, id]) => id);
+    const extra = [...taskFirstSeq.entries()].filter(([, s]) => s >= seq).map(([id]) => id);
     await cancelRunJobs(db, o.databaseUrl, runId, extra);
 
     const proofStart = Date.now();
@@ -211,7 +236,10 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
     await cancelRunJobs(db, o.databaseUrl, runId); // anything left (a failed proof stops early)
     await db.updateTable("basis_runs").set({ status: failed ? "failed" : "succeeded", error: failed ? `proof step failed: ${failed}` : null, finished_at: sql`now()` }).where("id", "=", runId).execute();
     const stats = await db.selectFrom("basis_tasks")
-      .select([sql<number>`avg(bytes)`.as("bytes"), sql<number>`percentile_cont(0.5) WITHIN GROUP (ORDER BY extract(epoch FROM started_at - enqueued_at) * 1000)`.as("wait")])
+      .select([
+        sql<number>`sum(bytes)::float8 / nullif(sum(CASE WHEN kind = 'image' THEN coalesce(jsonb_array_length(batch->'primes'), 1) END), 0)`.as("bytes"),
+        sql<number>`percentile_cont(0.5) WITHIN GROUP (ORDER BY extract(epoch FROM started_at - enqueued_at) * 1000)`.as("wait"),
+      ])
       .where("run_id", "=", runId).where("status", "=", "done").where("worker_id", "<>", o.coordinatorId)
       .executeTakeFirst();
     // Pick-up latency: from the moment a task could start (enqueued, and its worker free again) to its start.
@@ -234,26 +262,49 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
     throw e;
   }
 
-  /** Waits for image `seq` of this run; computes it here if its job was dead-lettered or cancelled under it. */
-  async function waitForImage(run: string, s: number, local: () => Promise<ModularImage>): Promise<ModularImage> {
+  /**
+   * Image `s` of this run: waits for the task computing it (which may hold a few consecutive
+   * primes) and decodes all of them; computes them here if the task was dead-lettered or failed.
+   */
+  async function imageAt(s: number): Promise<ModularImage> {
+    const have = ready.get(s);
+    if (have) { ready.delete(s); return have; }
+    const id = enqueued.get(s)!;
     for (;;) {
       limits.checkTime();
-      const t = await db.selectFrom("basis_tasks").select(["status", "image"]).where("run_id", "=", run).where("kind", "=", "image").where("seq", "=", s).executeTakeFirstOrThrow();
+      const base = db.selectFrom("basis_tasks").select(["status", "image", "prime", "batch"]).where("run_id", "=", runId).where("kind", "=", "image");
+      const t = await (id === "first" ? base.where("seq", "=", 0) : base.where("id", "=", id)).executeTakeFirstOrThrow();
+      let images: ModularImage[] | null = null;
       if (t.status === "done" && t.image) {
         const bytes = new Uint8Array(t.image);
         // Residues on an earlier image's support (task-child.ts): that image was added before.
-        const ref = imageReference(bytes);
-        const image = ref === null || decoded.has(ref) ? decodeImage(bytes, (q) => decoded.get(q)) : await local();
-        decoded.set(image.p, image);
-        return image;
+        const ref = batchReference(bytes);
+        images = ref === null || decoded.has(ref) ? decodeImageBatch(bytes, (q) => decoded.get(q)) : await computeImagesLocally(imagePrimes(t));
+      } else if (t.status === "failed" || (id !== "first" && (await deadLettered(id)))) {
+        images = await computeImagesLocally(imagePrimes(t));
       }
-      if (t.status === "failed" || (await deadLettered(enqueued.get(s)!))) {
-        const image = await local();
-        decoded.set(image.p, image);
+      if (images) {
+        for (const image of images) {
+          decoded.set(image.p, image);
+          ready.set(seqOfPrime.get(image.p)!, image);
+        }
+        const image = ready.get(s)!;
+        ready.delete(s);
         return image;
       }
       await sleep(pollMs);
     }
+  }
+
+  /** After the first image: how many primes a task takes (TASK_TARGET_MS of work, at most MAX_IMAGES_PER_TASK). */
+  async function imagesPerTask(): Promise<number> {
+    const ms = o.firstImage?.ms ?? (await db.selectFrom("basis_tasks").select("compute_ms").where("run_id", "=", runId).where("kind", "=", "image").where("seq", "=", 0).executeTakeFirst())?.compute_ms ?? null;
+    if (ms === null) return 1;
+    return Math.max(1, Math.min(MAX_IMAGES_PER_TASK, Math.floor(TASK_TARGET_MS / Math.max(1, ms))));
+  }
+
+  async function computeImagesLocally(primesOf: readonly number[]): Promise<ModularImage[]> {
+    return primesOf.map((p) => imageModPrime(input, p, limits));
   }
 
   async function waitForProof(taskId: string, local: () => Promise<{ ok: boolean; failed?: string }>): Promise<{ ok: boolean; failed?: string }> {
@@ -276,11 +327,8 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
     return (rows[0]?.n ?? 0) > 0;
   }
 
-  async function computeLocally(what: { kind: "image"; prime: number }): Promise<ModularImage>;
-  async function computeLocally(what: { kind: "proof"; batch: ProofBatch }, c: LiftCandidate): Promise<{ ok: boolean; failed?: string }>;
-  async function computeLocally(what: { kind: "image"; prime: number } | { kind: "proof"; batch: ProofBatch }, c?: LiftCandidate): Promise<ModularImage | { ok: boolean; failed?: string }> {
-    if (what.kind === "image") return imageModPrime(input, what.prime, limits);
-    const r = proveBatch(input, c!, what.batch, limits);
+  async function computeLocally(what: { kind: "proof"; batch: ProofBatch }, c: LiftCandidate): Promise<{ ok: boolean; failed?: string }> {
+    const r = proveBatch(input, c, what.batch, limits);
     return r.ok ? { ok: true } : { ok: false, failed: r.failed };
   }
 }

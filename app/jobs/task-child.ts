@@ -6,11 +6,11 @@
  */
 import type { LiftCandidate, MultiModularInput, ProofBatch } from "@domain/algebra/f4/multimodular";
 import type { ModularImage } from "@domain/algebra/f4/multimodular";
-import { encodeImage, imageModPrime, proveBatch } from "@domain/algebra/f4/multimodular";
+import { encodeImage, encodeImageBatch, imageModPrime, proveBatch } from "@domain/algebra/f4/multimodular";
 import { Limits } from "@domain/algebra/groebner/limits";
 
 export type TaskRequest =
-  | { kind: "image"; runId: string; input: MultiModularInput; prime: number; deadline: number }
+  | { kind: "image"; runId: string; input: MultiModularInput; primes: number[]; deadline: number }
   | { kind: "proof"; runId: string; input: MultiModularInput; candidate: LiftCandidate; batch: ProofBatch; deadline: number };
 
 export type TaskReply =
@@ -45,11 +45,12 @@ process.on("message", (raw) => {
     const limits = new Limits({ deadline: req.deadline });
     if (req.kind === "image") {
       const input = keep(inputs, req.runId, req.input);
-      const image = imageModPrime(input, req.prime, limits);
+      const images = req.primes.map((p) => imageModPrime(input, p, limits));
       const like = lastImage.get(req.runId);
-      const bytes = encodeImage(image, like && like.p > image.p ? like : undefined);
+      const first = like && like.p > images[0].p ? like : undefined;
+      const bytes = images.length === 1 ? encodeImage(images[0], first) : encodeImageBatch(images, first);
       lastImage.delete(req.runId);
-      keep(lastImage, req.runId, image);
+      keep(lastImage, req.runId, images[images.length - 1]);
       reply = { kind: "image", bytes, ms: Date.now() - t0 };
     } else {
       const input = keep(inputs, req.runId, req.input);

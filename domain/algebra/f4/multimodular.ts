@@ -462,6 +462,54 @@ export function encodeImage(image: ModularImage, like?: ModularImage): Uint8Arra
   return new Uint8Array(out.buffer);
 }
 
+/**
+ * Several images of one input in one piece of bytes (a task that computes a few consecutive
+ * primes when each image is quick): word 0 is −1 (a single image starts with its prime, > 0), then
+ * the count and each image's length in bytes, then the images, each on the support of the one
+ * before it where that matches (the first on `like`'s).
+ */
+export function encodeImageBatch(images: readonly ModularImage[], like?: ModularImage): Uint8Array {
+  const parts: Uint8Array[] = [];
+  let prev = like;
+  for (const image of images) {
+    parts.push(encodeImage(image, prev));
+    prev = image;
+  }
+  const head = new Int32Array(2 + parts.length);
+  head[0] = -1; head[1] = parts.length;
+  parts.forEach((b, i) => { head[2 + i] = b.byteLength; });
+  const out = new Uint8Array(head.byteLength + parts.reduce((a, b) => a + b.byteLength, 0));
+  out.set(new Uint8Array(head.buffer), 0);
+  let at = head.byteLength;
+  for (const b of parts) { out.set(b, at); at += b.byteLength; }
+  return out;
+}
+
+/** The images of encodeImageBatch's bytes, or the one image of encodeImage's; `like` as for decodeImage. */
+export function decodeImageBatch(bytes: Uint8Array, like?: (p: number) => ModularImage | undefined): ModularImage[] {
+  const word = (i: number) => new DataView(bytes.buffer, bytes.byteOffset + 4 * i, 4).getInt32(0, true);
+  if (bytes.byteLength < 8 || word(0) !== -1) return [decodeImage(bytes, like)];
+  const count = word(1);
+  if (count < 0 || bytes.byteLength < 4 * (2 + count)) throw new AlgebraError("domain", "modular images: stored bytes do not match their header");
+  const out: ModularImage[] = [];
+  let at = 4 * (2 + count);
+  for (let i = 0; i < count; i++) {
+    const len = word(2 + i);
+    if (len < 0 || at + len > bytes.byteLength) throw new AlgebraError("domain", "modular images: stored bytes do not match their header");
+    const prev = out[out.length - 1];
+    out.push(decodeImage(bytes.subarray(at, at + len), (q) => (prev && prev.p === q ? prev : like?.(q))));
+    at += len;
+  }
+  return out;
+}
+
+/** The prime whose image the first image of a batch (or a single image) refers to, or null. */
+export function batchReference(bytes: Uint8Array): number | null {
+  const word = (i: number) => new DataView(bytes.buffer, bytes.byteOffset + 4 * i, 4).getInt32(0, true);
+  if (bytes.byteLength >= 8 && word(0) === -1) return word(1) === 0 ? null : imageReference(bytes.subarray(4 * (2 + word(1))));
+  return imageReference(bytes);
+}
+
 /** Header flag (on n) of an image written as residues only, on the support of the image modulo the prime in word 4. */
 const RESIDUES_ONLY = 1 << 30;
 

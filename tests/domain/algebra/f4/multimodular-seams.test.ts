@@ -3,7 +3,7 @@ import { PolynomialRing, QQ, groebnerBasis } from "@domain/algebra/index";
 import { Limits } from "@domain/algebra/groebner/limits";
 import type { LiftCandidate, ModularImage, MultiModularInput } from "@domain/algebra/f4/multimodular";
 import {
-  ImageLifter, candidateBasis, decodeImage, encodeImage, imageModPrime, imageReference, liftImages, liftPrimes, multiModularGroebnerQQ,
+  ImageLifter, batchReference, candidateBasis, decodeImage, decodeImageBatch, encodeImage, encodeImageBatch, imageModPrime, imageReference, liftImages, liftPrimes, multiModularGroebnerQQ,
   multiModularInput, proofBatches, proveBatch,
 } from "@domain/algebra/f4/multimodular";
 import { katsura, randomIdeal } from "../../../fixtures/algebra/systems";
@@ -133,6 +133,22 @@ describe("multi-modular seams (plain data between workers)", () => {
     // A support that differs is written in full.
     const other: ModularImage = { ...first, exps: first.exps.map((e, i) => (i === first.exps.length - 1 ? e + 1 : e)) };
     expect(imageReference(encodeImage(second, other))).toBeNull();
+  });
+
+  it("a batch of images decodes to its images, each on the support of the one before", () => {
+    const { polys } = system(katsura(4).vars, "grevlex", katsura(4).polys);
+    const input = multiModularInput(polys);
+    const images = [...take(liftPrimes(input), 4)].map((p) => imageModPrime(input, p, new Limits()));
+    const [before, ...batch] = images;
+    const bytes = encodeImageBatch(batch, before);
+    expect(batchReference(bytes)).toBe(before.p);
+    const back = decodeImageBatch(bytes, (q) => (q === before.p ? before : undefined));
+    expect(back.map((b) => b.p)).toEqual(batch.map((b) => b.p));
+    back.forEach((b, i) => expect([...b.coeffs]).toEqual([...batch[i].coeffs]));
+    expect(back.every((b) => b.exps === before.exps)).toBe(true);
+    // A single image decodes as a batch of one; a cut batch is refused.
+    expect(decodeImageBatch(encodeImage(before)).map((b) => b.p)).toEqual([before.p]);
+    expect(() => decodeImageBatch(bytes.subarray(0, 12), () => before)).toThrow(/do not match/);
   });
 });
 
