@@ -30,6 +30,12 @@ export interface DistributedBasisRecord {
   homogenised?: boolean;
 }
 
+/** IMAGE_TASK_EXPIRE_SECONDS (README): unset = the coordinator's default (10 × the first image's time, at least 60 s). */
+function taskExpiry(): { taskExpireSeconds?: number } {
+  const v = Number(process.env.IMAGE_TASK_EXPIRE_SECONDS);
+  return Number.isFinite(v) && v > 0 ? { taskExpireSeconds: v } : {};
+}
+
 function recordOf(out: DistributedOutcome): DistributedBasisRecord {
   return {
     runId: out.runId, proven: out.basis !== null, ...(out.failed ? { failed: out.failed } : {}), elements: out.basis?.length ?? null,
@@ -58,6 +64,7 @@ export async function distributeOne(
     coordinatorId: `${o.workerId} (coordinator)`,
     analysisId: o.analysisId,
     firstImage: { image: request.firstImage, ms: request.firstImageMs },
+    ...taskExpiry(),
     limits: new Limits({ deadline }, "Distributed Gröbner basis"),
     onProgress: (p) => progress(progressText(p)),
   });
@@ -69,7 +76,7 @@ export async function distributeOne(
     // the homogenised ideal instead, whose step 3 is the homogeneous case, then set h = 1.
     progress("distributed Gröbner basis: step 3 cannot be proven for this ideal as it stands; spreading its homogenisation instead");
     const outH = await distributedGroebner(viaH.input, {
-      db, databaseUrl: o.databaseUrl, coordinatorId: `${o.workerId} (coordinator)`, analysisId: o.analysisId,
+      db, databaseUrl: o.databaseUrl, coordinatorId: `${o.workerId} (coordinator)`, analysisId: o.analysisId, ...taskExpiry(),
       limits: new Limits({ deadline }, "Distributed Gröbner basis"), onProgress: (p) => progress(progressText(p)),
     });
     records.push({ ...recordOf(outH), homogenised: true });

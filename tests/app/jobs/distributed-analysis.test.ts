@@ -1,3 +1,4 @@
+import { spawn, type ChildProcess } from "node:child_process";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { sql } from "kysely";
 import { hasTestDatabase, type TestDatabase } from "../support/test-db";
@@ -16,6 +17,10 @@ import { startWorker, type RunningWorker } from "~/jobs/worker.server";
  * "Ideals, Varieties, and Algorithms", ch. 2 §7, Prop. 6), and cancelling the analysis leaves no
  * child job queued or running.
  */
+// A dead worker's child job is retried after 3 s (maintenance every second) rather than a minute.
+process.env.QUEUE_MAINTENANCE_SECONDS = "1";
+process.env.IMAGE_TASK_EXPIRE_SECONDS = "3";
+
 describe.skipIf(!hasTestDatabase)("distributed analyses", () => {
   let t: TestDatabase;
   let team: Awaited<ReturnType<typeof makeTeam>>;
@@ -86,6 +91,43 @@ describe.skipIf(!hasTestDatabase)("distributed analyses", () => {
     expect(shared.every((v) => v.workers.length === 0 && v.workerCount >= 1)).toBe(true);
     for (const w of workers.splice(0)) await w.stop();
   }, 120_000);
+
+  it("a worker killed while it holds a child job of an analysis: another worker recomputes it and the analysis stores the one-process result", async () => {
+    // 3-site cycle with three-decimal constants: about 300 primes, so its runs have many child jobs.
+    const measured = (await makeNetwork(t.db, team.lab.id, team.owner.id, "three-site", fixtureCsv("three-site-measured"))).versionId;
+    await start({ images: false }); // takes the analysis; its images go to the worker below only
+    const proc: ChildProcess = spawn("npx", ["tsx", "app/jobs/worker.server.ts"], {
+      env: { ...process.env, DATABASE_URL: t.url, WORKER_QUEUES: "images", QUEUE_MAINTENANCE_SECONDS: "1" }, stdio: "ignore", detached: true,
+    });
+    const params = analysisParams({ initial: { S0: "5.3", E: "1.21", F: "0.97" } });
+    const row0 = await makeJob(t.db, { kind: "analysis", labId: team.lab.id, networkVersionId: measured, params, startedBy: team.owner.id, timeLimitSeconds: 120 });
+    await enqueue(t.url, row0.id, 120);
+    let killed: { id: string; worker: string } | undefined;
+    try {
+      killed = await waitFor(async () => {
+        const r = await t.db.selectFrom("basis_tasks").innerJoin("basis_runs", "basis_runs.id", "basis_tasks.run_id")
+          .select(["basis_tasks.id", "basis_tasks.worker_id"]).where("basis_runs.analysis_id", "=", row0.id).where("basis_tasks.status", "=", "running").executeTakeFirst();
+        return r ? { id: r.id, worker: r.worker_id! } : undefined;
+      }, 60_000, "the separate worker to hold a child job");
+    } finally {
+      process.kill(-proc.pid!, "SIGKILL");
+    }
+    const survivor = await start({ jobs: false });
+    const done = await finished(row0.id, 150_000);
+    expect([done.status, done.error]).toEqual(["succeeded", null]);
+    const alone = computeJob({ kind: "analysis", csv: fixtureCsv("three-site-measured"), params }, { engineTimeoutMs: 120_000 });
+    const { distributedBases, ...rest } = done.result as Record<string, unknown> & { distributedBases: { proven: boolean; workers: string[] }[] };
+    expect(rest).toEqual(JSON.parse(JSON.stringify(alone)));
+    const task = await t.db.selectFrom("basis_tasks").selectAll().where("id", "=", killed!.id).executeTakeFirstOrThrow();
+    // Either recomputed by the survivor once the queue expired the dead worker's job, or no longer needed.
+    if (task.status === "done") {
+      expect(task.worker_id).toBe(survivor.id);
+      expect(task.attempts).toBeGreaterThanOrEqual(2);
+    } else expect(task.status).toBe("cancelled");
+    expect(killed!.worker).not.toBe(survivor.id);
+    expect(distributedBases.some((b) => b.proven && b.workers.includes(survivor.id))).toBe(true);
+    for (const w of workers.splice(0)) await w.stop();
+  }, 240_000);
 
   it("cancelling a distributed analysis leaves no child job queued or running", async () => {
     // No worker takes images here, so the run surely waits on queued child jobs when it is cancelled.
