@@ -15,8 +15,9 @@ import { ReductionKernel } from "./reduce";
 
 /**
  * The homogenised route to a grevlex Gröbner basis over Q (Cox, Little, O'Shea, "Ideals,
- * Varieties, and Algorithms", 4th ed. 2015, ch. 8 §4, Theorem 4 and the order >_h defined
- * before it — numbering recalled from memory):
+ * Varieties, and Algorithms", 4th ed. 2015, ch. 8 §4: homogenisation of ideals and the order
+ * >_h, Theorem 4 there being "G a Gröbner basis of I in a graded order ⇒ G^h a basis of I^h" —
+ * section and numbering recalled from memory; step 3's converse argument is worked out here):
  *  1. F^h in Q[x_1..x_n, h]: each f times h^(deg f − deg term) per term, with h a new last
  *     (smallest) variable, grevlex. For monomials of one total degree grevlex with h last
  *     compares the h-exponents first (smaller wins), i.e. the x-degrees, then grevlex on the
