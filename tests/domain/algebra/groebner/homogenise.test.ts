@@ -2,6 +2,8 @@ import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { PolynomialRing, QQ } from "@domain/algebra/index";
 import { groebnerBasis } from "@domain/algebra/groebner";
+import type { MultiModularStats } from "@domain/algebra/f4/multimodular";
+import { multiModularGroebnerQQ } from "@domain/algebra/f4/multimodular";
 import { dehomogenisedBasis, freshVariable, homogenise, homogenisedGrowth } from "@domain/algebra/groebner/homogenise";
 import { Limits } from "@domain/algebra/groebner/limits";
 import { modularGroebnerQQ } from "@domain/algebra/groebner/modular";
@@ -54,6 +56,17 @@ describe("the homogenised route (F^h, basis, h = 1, inter-reduction)", () => {
       expect(show(groebnerBasis(F, { method: "f4" }))).toEqual(direct);
     });
   }
+
+  it("lets multi-modular F4 prove cyclic-5 through F^h, where its Hilbert step declines on F", () => {
+    const sys = parseSystemFile(readFileSync("bench/systems/cyclic-5.txt", "utf8"), QQ);
+    const F = sys.polys as P[];
+    const stats: MultiModularStats = { primes: 0, unlucky: 0, modularMs: 0, liftMs: 0, proofMs: 0 };
+    expect(multiModularGroebnerQQ(F, new Limits(), { stats })).toBeNull();
+    expect(stats.failed).toBe("hilbert");
+    const Gh = multiModularGroebnerQQ(homogenise(F).polys, new Limits());
+    expect(Gh).not.toBeNull();
+    expect(show(dehomogenisedBasis(Gh!, F[0].ring, new Limits()))).toEqual(show(modularGroebnerQQ(F, "sugar", new Limits())));
+  });
 
   it("agrees with SymPy 1.14 groebner(..., order='grevlex') on a three-variable example", () => {
     // SymPy 1.14: groebner([x**2*y - z**2 + x, x*y*z - y - 1, y**2 + z**2 - x*z - 3], x, y, z, order='grevlex')
