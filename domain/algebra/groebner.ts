@@ -2,11 +2,13 @@ import { AlgebraError } from "./errors";
 import { isPrimeField, isRationalField } from "./field";
 import type { DistributionHook } from "./f4/distribution";
 import { distributedOrLocal } from "./f4/distribution";
+import type { MultiModularStats } from "./f4/multimodular";
 import { multiModularGroebnerQQ } from "./f4/multimodular";
 import { f4GroebnerModP, f4SupportsPrime } from "./f4/prime-field";
 import type { SelectionStrategy } from "./groebner/buchberger";
 import { buchberger, defaultStrategy } from "./groebner/buchberger";
 import { clearDenominators, coefficientsFor, fromEngine, toEngine } from "./groebner/convert";
+import { dehomogenisedBasis, homogenise, homogenisedGrowth, isPlainGrevlex } from "./groebner/homogenise";
 import type { LimitOptions } from "./groebner/limits";
 import { Limits } from "./groebner/limits";
 import { modularGroebnerQQ, plainFractionFree } from "./groebner/modular";
@@ -24,9 +26,13 @@ export interface GroebnerOptions extends LimitOptions {
    * Over Q: 'modular' learns the computation modulo a word-size prime and replays only the useful
    * reductions exactly, then proves the result with Buchberger's criterion (falls back to
    * 'buchberger' on an unlucky prime); 'buchberger' runs fraction-free over Z throughout.
-   * 'auto' (default) = 'modular'; 'modular' also lifts FGLM from images mod primes (fglm-modular.ts),
-   * 'buchberger' runs FGLM over Q.
-   * 'f4' (grevlex/grlex): multi-modular F4 with an exact proof (f4/multimodular.ts), falling back to
+   * 'auto' (default) = 'modular', except in grevlex when ⟨F^h⟩ has much h-torsion (measured by one
+   * F4 image of F^h mod p, see HOMOGENISED_GROWTH): then 'modular' on the homogenised input F^h,
+   * dehomogenised and inter-reduced (groebner/homogenise.ts; same reduced basis); 'modular' also
+   * lifts FGLM from images mod primes (fglm-modular.ts), 'buchberger' runs FGLM over Q.
+   * 'f4' (grevlex/grlex): multi-modular F4 with an exact proof (f4/multimodular.ts); in grevlex,
+   * when its Hilbert step declines (⟨F^h⟩ not saturated) it runs on F^h instead and
+   * dehomogenises; otherwise it falls back to
    * 'modular' when the proof cannot be completed; not the default over Q, as it measured slower
    * than 'modular' here on katsura-6/7 (its exact proof is half its time; see bench/README.md).
    * Over Z/p: 'auto' = F4 (f4/f4.ts) for grevlex/grlex and primes below 2^26, Buchberger otherwise;
@@ -104,7 +110,19 @@ export function groebnerBasis<C>(polys: readonly Polynomial<C>[], options: Groeb
       const known = distributedOrLocal(qpolys, limits, options.distribution);
       if (known) return known as unknown as Polynomial<C>[];
     }
-    const viaF4 = method === "f4" && isDegreeCompatible(ring) ? multiModularGroebnerQQ(qpolys, limits) : null;
+    if (method === "auto" && isPlainGrevlex(ring) && !isHomogeneous(qpolys)) {
+      const { polys: Fh } = homogenise(qpolys);
+      const growth = growthWithinBudget(Fh, options, limits);
+      if (growth && growth.homogenised >= HOMOGENISED_GROWTH * growth.dehomogenised) {
+        return viaHomogenisation(qpolys, Fh, strategy, limits, "auto") as unknown as Polynomial<C>[];
+      }
+    }
+    const mmStats: MultiModularStats = { primes: 0, unlucky: 0, modularMs: 0, liftMs: 0, proofMs: 0 };
+    const viaF4 = method === "f4" && isDegreeCompatible(ring) ? multiModularGroebnerQQ(qpolys, limits, { stats: mmStats }) : null;
+    if (viaF4 === null && method === "f4" && mmStats.failed === "hilbert" && isPlainGrevlex(ring)) {
+      // ⟨F^h⟩ is not saturated, so the Hilbert proof cannot succeed on F; it does on F^h.
+      return viaHomogenisation(qpolys, homogenise(qpolys).polys, strategy, limits, "f4") as unknown as Polynomial<C>[];
+    }
     const result = viaF4 ?? (method === "buchberger"
       ? plainFractionFree(qpolys.map((p) => clearDenominators(toEngine(p))), qpolys[0].ring, strategy, limits)
       : modularGroebnerQQ(qpolys, strategy, limits, { rows: (options as StageOptions).rows }));
@@ -169,6 +187,63 @@ function blockOrderQQ(
     }
   }
   return multiModularGroebnerQQ(qpolys, limits, { reference: grevlex, proveEarly: true, primeLimit: BLOCK_PRIME_LIMIT });
+}
+
+/**
+ * The homogenised route (groebner/homogenise.ts) is taken by 'auto' when the reduced basis of
+ * F^h mod p has at least this many times the elements of F's (both from one F4 run mod p on F^h):
+ * a measure of the h-torsion of ⟨F^h⟩, i.e. of the degree falls whose exact replay swells the
+ * default route's coefficients. Measured here (bench/README.md, "Homogenised route"; ratio,
+ * default → route ms): katsura-5 with 1 − t·x0⋯x5 1.73, > 60 s → 0.4 s; katsura-4 likewise
+ * 2.12, 163 → 13; cyclic-6 2.20, 400 → 120; cyclic-5 1.90, 8 → 7; it lost on the reaction
+ * networks' steady states at ratios 1.07–1.31 (three-site cycle in grevlex 1.11, 94 → 149;
+ * two-site with 1 − t·(all species) 1.31, 17 → 21) and was a wash below 2 ms (one-site, 1.43
+ * and 1.63). Saturated ideals (katsura-n: ratio 1) gain nothing from it.
+ */
+const HOMOGENISED_GROWTH = 1.5;
+
+/**
+ * Time for the growth check (one F4 run mod p on F^h), after which 'auto' stays with the default
+ * route. Measured here (ms): 0.5–80 on the systems of bench/README.md's table and katsura-6 with
+ * 1 − t·x0⋯x6 (route 18 s, default far beyond katsura-5's > 60 s); 560–4800 or more only on
+ * reaction networks in grevlex over all constants plus 1 − t·(all variables), where the default
+ * ran past 60 s as well — there the check alone would be the only cost paid for nothing.
+ */
+const GROWTH_CHECK_MS = 500;
+const GROWTH_CHECK = "Gröbner basis (homogenised growth check)";
+
+function growthWithinBudget(Fh: Polynomial<Rational>[], options: GroebnerOptions, limits: Limits): ReturnType<typeof homogenisedGrowth> {
+  const deadline = Math.min(options.deadline ?? Infinity, Date.now() + GROWTH_CHECK_MS);
+  try {
+    return homogenisedGrowth(Fh, new Limits({ deadline, signal: options.signal }, GROWTH_CHECK));
+  } catch (e) {
+    if (!(e instanceof AlgebraError) || e.code !== "timeout" || !e.message.startsWith(GROWTH_CHECK)) throw e;
+    limits.checkTime(); // the caller's own deadline, if that is what passed
+    return null;
+  }
+}
+
+/**
+ * F^h's reduced basis by the default engine ('auto') or multi-modular F4 ('f4', which can prove
+ * it: F^h is homogeneous, so its own homogenisation is saturated), then h = 1 and inter-reduction.
+ */
+function viaHomogenisation(
+  F: Polynomial<Rational>[],
+  Fh: Polynomial<Rational>[],
+  strategy: SelectionStrategy,
+  limits: Limits,
+  method: "auto" | "f4",
+): Polynomial<Rational>[] {
+  const Gh = (method === "f4" ? multiModularGroebnerQQ(Fh, limits) : null) ?? modularGroebnerQQ(Fh, strategy, limits);
+  return dehomogenisedBasis(Gh, F[0].ring, limits);
+}
+
+function isHomogeneous(polys: readonly Polynomial<Rational>[]): boolean {
+  return polys.every((p) => {
+    const S = p.ring.stride;
+    for (let t = 1; t < p.coeffs.length; t++) if (p.exps[t * S] !== p.exps[0]) return false;
+    return true;
+  });
 }
 
 function useF4ModP<C>(ring: PolynomialRing<C>, method: NonNullable<GroebnerOptions["method"]>): boolean {

@@ -1,4 +1,7 @@
 import { AlgebraError } from "../errors";
+import { primeField } from "../field";
+import { f4GroebnerModP } from "../f4/prime-field";
+import { rationalModP } from "../f4/reconstruction";
 import type { Polynomial } from "../polynomial";
 import { normalizeTerms } from "../polynomial";
 import type { Rational } from "../rational";
@@ -7,12 +10,14 @@ import { reduceBasis } from "./buchberger";
 import { integerCoefficients } from "./coefficients";
 import { clearDenominators, fromEngine, monicRational, toEngine } from "./convert";
 import type { Limits } from "./limits";
+import { MODULAR_PRIMES } from "./modular";
 import { ReductionKernel } from "./reduce";
 
 /**
  * The homogenised route to a grevlex Gröbner basis over Q (Cox, Little, O'Shea, "Ideals,
- * Varieties, and Algorithms", 4th ed. 2015, ch. 8 §4, Theorem 4 and the order >_h defined
- * before it — numbering recalled from memory):
+ * Varieties, and Algorithms", 4th ed. 2015, ch. 8 §4: homogenisation of ideals and the order
+ * >_h, Theorem 4 there being "G a Gröbner basis of I in a graded order ⇒ G^h a basis of I^h" —
+ * section and numbering recalled from memory; step 3's converse argument is worked out here):
  *  1. F^h in Q[x_1..x_n, h]: each f times h^(deg f − deg term) per term, with h a new last
  *     (smallest) variable, grevlex. For monomials of one total degree grevlex with h last
  *     compares the h-exponents first (smaller wins), i.e. the x-degrees, then grevlex on the
@@ -88,6 +93,40 @@ export function dehomogenisedBasis(Gh: readonly Polynomial<Rational>[], ring: Po
   const kernel = new ReductionKernel(integerCoefficients, n, ring.cmp, tick);
   const reduced = reduceBasis(integer, integerCoefficients, n, ring.cmp, kernel);
   return reduced.map((g) => fromEngine(ring, monicRational(g, tick)));
+}
+
+/**
+ * How much larger the reduced basis of ⟨F^h⟩ is than that of ⟨F⟩, both modulo one word-size
+ * prime, from ONE F4 run (f4/f4.ts) on F^h mod p: `homogenised` = #G^h_p, `dehomogenised` = the
+ * number of minimal leading monomials after h = 1, which is #G_p by the argument above (applied
+ * over Z/p). A saturated ⟨F^h⟩ gives equal counts (G^h is then the homogenised G, CLO ch. 8 §4);
+ * extra elements come from h-torsion, i.e. degree falls that the inhomogeneous run meets and
+ * whose exact replay swells coefficients (equal counts do not prove saturation: {x^2 − y,
+ * x^3 − x} has torsion and 3 elements either way). Null when the prime divides a denominator or a leading coefficient
+ * (the image would not be F's).
+ */
+export function homogenisedGrowth(Fh: readonly Polynomial<Rational>[], limits: Limits): { homogenised: number; dehomogenised: number } | null {
+  const p = MODULAR_PRIMES[0], P = BigInt(p);
+  const ring = Fh[0].ring.withField(primeField(p));
+  const images: Polynomial<number>[] = [];
+  for (const f of Fh) {
+    const coeffs: number[] = [];
+    const keep: number[] = [];
+    for (let t = 0; t < f.coeffs.length; t++) {
+      const c = rationalModP(f.coeffs[t], p, P);
+      if (c === null || (t === 0 && c === 0)) return null;
+      if (c !== 0) { coeffs.push(c); keep.push(t); }
+    }
+    const S = ring.stride, exps = new Int32Array(keep.length * S);
+    keep.forEach((t, i) => exps.set(f.exps.subarray(t * S, t * S + S), i * S));
+    images.push({ ring, coeffs, exps });
+  }
+  const Gp = f4GroebnerModP(images, limits);
+  const n = ring.n - 1;
+  const leads = Gp.map((g) => g.exps.subarray(1, n + 1)); // x-part of each leading monomial
+  const divides = (a: Int32Array, b: Int32Array) => a.every((e, k) => e <= b[k]);
+  const minimal = leads.filter((a, i) => !leads.some((b, j) => j !== i && divides(b, a) && (!divides(a, b) || j < i)));
+  return { homogenised: Gp.length, dehomogenised: minimal.length };
 }
 
 export function isPlainGrevlex(ring: PolynomialRing<unknown>): boolean {
