@@ -168,7 +168,7 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
     while (!candidate) {
       await enqueueImagesUpTo(seq + window * perTask);
       const image = await imageAt(seq);
-      if (seq === 0) perTask = await imagesPerTask();
+      if (seq === 0 && o.firstImage) perTask = imagesPerTask(o.firstImage.ms);
       if (seq === 0 && batchKinds.includes("hilbert")) {
         const leads = leadsCandidate(input, image);
         const batch: ProofBatch = { kind: "hilbert", p: image.p };
@@ -272,7 +272,7 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
     const id = enqueued.get(s)!;
     for (;;) {
       limits.checkTime();
-      const base = db.selectFrom("basis_tasks").select(["status", "image", "prime", "batch"]).where("run_id", "=", runId).where("kind", "=", "image");
+      const base = db.selectFrom("basis_tasks").select(["status", "image", "prime", "batch", "compute_ms"]).where("run_id", "=", runId).where("kind", "=", "image");
       const t = await (id === "first" ? base.where("seq", "=", 0) : base.where("id", "=", id)).executeTakeFirstOrThrow();
       let images: ModularImage[] | null = null;
       if (t.status === "done" && t.image) {
@@ -280,6 +280,8 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
         // Residues on an earlier image's support (task-child.ts): that image was added before.
         const ref = batchReference(bytes);
         images = ref === null || decoded.has(ref) ? decodeImageBatch(bytes, (q) => decoded.get(q)) : await computeImagesLocally(imagePrimes(t));
+        // Task size from the latest image time (a process's first images run cold, several times slower).
+        if (t.compute_ms !== null) perTask = imagesPerTask(t.compute_ms / imagePrimes(t).length);
       } else if (t.status === "failed" || (id !== "first" && (await deadLettered(id)))) {
         images = await computeImagesLocally(imagePrimes(t));
       }
@@ -296,10 +298,8 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
     }
   }
 
-  /** After the first image: how many primes a task takes (TASK_TARGET_MS of work, at most MAX_IMAGES_PER_TASK). */
-  async function imagesPerTask(): Promise<number> {
-    const ms = o.firstImage?.ms ?? (await db.selectFrom("basis_tasks").select("compute_ms").where("run_id", "=", runId).where("kind", "=", "image").where("seq", "=", 0).executeTakeFirst())?.compute_ms ?? null;
-    if (ms === null) return 1;
+  /** How many primes a task takes, for images of `ms` each: TASK_TARGET_MS of work, at most MAX_IMAGES_PER_TASK. */
+  function imagesPerTask(ms: number): number {
     return Math.max(1, Math.min(MAX_IMAGES_PER_TASK, Math.floor(TASK_TARGET_MS / Math.max(1, ms))));
   }
 

@@ -32,7 +32,8 @@ const CHILD = path.join(path.dirname(fileURLToPath(import.meta.url)), "child.ts"
  */
 export const JOB_NICENESS = 10;
 
-function yieldToRequests(pid: number) {
+/** Lowers a process that does algebra (a job process, a task process) by JOB_NICENESS. */
+export function yieldToRequests(pid: number) {
   try {
     setPriority(pid, Math.min(19, getPriority() + JOB_NICENESS));
   } catch {

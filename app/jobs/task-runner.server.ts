@@ -8,6 +8,7 @@ import path from "node:path";
 import { fileURLToPath } from "node:url";
 import type { TaskReply, TaskRequest } from "./task-child";
 import { reapWithParent } from "./reaper.server";
+import { yieldToRequests } from "./run-child.server";
 
 const CHILD = path.join(path.dirname(fileURLToPath(import.meta.url)), "task-child.ts");
 
@@ -22,7 +23,11 @@ export class TaskRunner {
       serialization: "advanced", // images travel as bytes
       env: { ...process.env, NODE_OPTIONS: "--max-old-space-size=1536" },
     });
-    if (child.pid !== undefined) reapWithParent(child.pid);
+    if (child.pid !== undefined) {
+      reapWithParent(child.pid);
+      // Algebra, like a job process: page views on the same cores come first.
+      yieldToRequests(child.pid);
+    }
     child.on("message", (m: TaskReply) => {
       const p = this.pending;
       this.pending = null;
@@ -35,6 +40,11 @@ export class TaskRunner {
       p?.resolve({ kind: "error", message: `the task process ended (${signal ? `signal ${signal}` : `exit code ${code}`})` });
     });
     return child;
+  }
+
+  /** The task process' id, once forked (for the tests). */
+  get pid(): number | undefined {
+    return this.child?.pid;
   }
 
   run(req: TaskRequest): Promise<TaskReply> {
