@@ -3,8 +3,9 @@
  * workers). It runs in the process that needs the basis (an analysis' job process, or the bench),
  * and does only the serial part itself:
  *
- *   1. records a basis_runs row and keeps `window` images ahead on the image queue (one
- *      basis_tasks row + one pg-boss job per prime, in liftPrimes order, earlier primes first);
+ *   1. records a basis_runs row and keeps `window` tasks ahead on the image queue (one
+ *      basis_tasks row + one pg-boss job per task, in liftPrimes order, earlier primes first; a
+ *      task is one prime, or a few consecutive primes once images are known to be quick);
  *   2. adds the images to the lift strictly in prime order as they arrive (CRT + rational
  *      reconstruction, unlucky primes set aside by their leading monomials; ImageLifter), so the
  *      primes used and the basis are the same whoever computed which image;
