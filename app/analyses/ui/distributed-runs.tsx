@@ -10,7 +10,7 @@ export function DistributedRuns({ runs }: { runs: DistributedRunView[] }) {
         {runs.map((r) => (
           <li key={r.id} data-testid="distributed-run">
             <span className="tabular-nums">
-              {r.imagesDone} images done of {r.imagesNeeded ?? `at least ${r.imagesDone + 1}`} needed
+              {r.imagesDone} image{r.imagesDone === 1 ? "" : "s"} done of {r.imagesNeeded ?? `at least ${r.imagesDone + 1}`} needed
             </span>
             {r.proofBatches > 0 && <span className="tabular-nums">; proof {r.proofDone} of {r.proofBatches} batches</span>}
             <span> · {runStatus(r)}</span>
