@@ -208,8 +208,8 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
     const proofStart = Date.now();
     // Step 3 already passed on the first image at the same prime: when that image is one the
     // candidate was combined from, the candidate has its leading monomials, so the batch would
-    // compute the same thing again (one more F4 run modulo p on the homogenised input where the
-    // task process has not cached it: 0.24 s on katsura-8).
+    // compute the same thing again (one more F4 run modulo p on the input's homogenisation, in a
+    // task process that has not cached it: 0.24 s on katsura-8).
     const checked = (b: ProofBatch) => early !== null && b.kind === "hilbert" && b.p === primeAt(0) && candidate!.primes.includes(b.p);
     const batches = proofBatches(input, candidate, o.pairBatches ?? 8).filter((b) => !checked(b));
     // Arrays as JSON text: pg would send a JS array as a Postgres array.

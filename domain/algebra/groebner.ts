@@ -198,7 +198,8 @@ function blockOrderQQ(
  * 2.12, 163 → 13; cyclic-6 2.20, 400 → 120; cyclic-5 1.90, 8 → 7; it lost on the reaction
  * networks' steady states at ratios 1.07–1.31 (three-site cycle in grevlex 1.11, 94 → 149;
  * two-site with 1 − t·(all species) 1.31, 17 → 21) and was a wash below 2 ms (one-site, 1.43
- * and 1.63). Saturated ideals (katsura-n: ratio 1) gain nothing from it.
+ * and 1.63). Ideals whose homogenisation is already saturated in h (katsura-n: ratio 1)
+ * gain nothing from it.
  */
 const HOMOGENISED_GROWTH = 1.5;
 
