@@ -27,8 +27,9 @@ export interface GroebnerOptions extends LimitOptions {
    * reductions exactly, then proves the result with Buchberger's criterion (falls back to
    * 'buchberger' on an unlucky prime); 'buchberger' runs fraction-free over Z throughout.
    * 'auto' (default) = 'modular', except in grevlex when ⟨F^h⟩ has much h-torsion (measured by one
-   * F4 image of F^h mod p, see HOMOGENISED_GROWTH): then 'modular' on the homogenised input F^h,
-   * dehomogenised and inter-reduced (groebner/homogenise.ts; same reduced basis); 'modular' also
+   * F4 image of F^h mod p, see HOMOGENISED_GROWTH): then 'modular' on the homogenised input F^h
+   * (multi-modular F4 when that image took long, see ROUTE_F4_CHECK_MS), dehomogenised and
+   * inter-reduced (groebner/homogenise.ts; same reduced basis); 'modular' also
    * lifts FGLM from images mod primes (fglm-modular.ts), 'buchberger' runs FGLM over Q.
    * 'f4' (grevlex/grlex): multi-modular F4 with an exact proof (f4/multimodular.ts); in grevlex,
    * when its Hilbert step declines (⟨F^h⟩ not saturated) it runs on F^h instead and
@@ -114,7 +115,8 @@ export function groebnerBasis<C>(polys: readonly Polynomial<C>[], options: Groeb
       const { polys: Fh } = homogenise(qpolys);
       const growth = growthWithinBudget(Fh, options, limits);
       if (growth && growth.homogenised >= HOMOGENISED_GROWTH * growth.dehomogenised) {
-        return viaHomogenisation(qpolys, Fh, strategy, limits, "auto") as unknown as Polynomial<C>[];
+        const engine = growth.ms >= ROUTE_F4_CHECK_MS ? "f4" : "auto";
+        return viaHomogenisation(qpolys, Fh, strategy, limits, engine) as unknown as Polynomial<C>[];
       }
     }
     const mmStats: MultiModularStats = { primes: 0, unlucky: 0, modularMs: 0, liftMs: 0, proofMs: 0 };
@@ -208,15 +210,32 @@ const HOMOGENISED_GROWTH = 1.5;
  * route. Measured here (ms): 0.5–80 on the systems of bench/README.md's table and katsura-6 with
  * 1 − t·x0⋯x6 (route 18 s, default far beyond katsura-5's > 60 s); 560–4800 or more only on
  * reaction networks in grevlex over all constants plus 1 − t·(all variables), where the default
- * ran past 60 s as well — there the check alone would be the only cost paid for nothing.
+ * ran past 60 s as well. cyclic-7 checks in 740–840 ms (ratio 2.12): with 500 ms it stayed on
+ * the default, whose exact replay then ran past 180 s, while the route takes about 20 s; so the
+ * budget is 2 s, and what a check between 0.5 and 2 s costs where it finds no growth (ratio
+ * < 1.5) is at most 2 s on a run that is long anyway (katsura-8: 460 ms of 10 s).
  */
-const GROWTH_CHECK_MS = 500;
+const GROWTH_CHECK_MS = 2000;
+
+/**
+ * Which engine the homogenised route uses on F^h, by how long the growth check's F4 image of F^h
+ * took: below this, the traced modular run ('auto'); from it on, multi-modular F4 with its exact
+ * proof ('f4', proven by the Hilbert step as F^h is homogeneous; the traced run if it declines).
+ * The exact replay of a large F^h swells where independent images do not. Measured here (warm,
+ * one process, medians of 3 except cyclic-7, ms; check → traced / F4; -sat = with 1 − t·x0⋯xn):
+ * katsura-4-sat 2 → 28 / 72, katsura-5-sat 9 → 399 / 679, cyclic-5 11 → 64 / 44, cyclic-6 15 →
+ * 169 / 197, katsura-6-sat 61 → 19584 / 11228, cyclic-7 740 → 58962 / 19709. The threshold lies
+ * between 15 and 61 and is fitted on these six systems, not derived.
+ */
+const ROUTE_F4_CHECK_MS = 40;
 const GROWTH_CHECK = "Gröbner basis (homogenised growth check)";
 
-function growthWithinBudget(Fh: Polynomial<Rational>[], options: GroebnerOptions, limits: Limits): ReturnType<typeof homogenisedGrowth> {
-  const deadline = Math.min(options.deadline ?? Infinity, Date.now() + GROWTH_CHECK_MS);
+function growthWithinBudget(Fh: Polynomial<Rational>[], options: GroebnerOptions, limits: Limits): { homogenised: number; dehomogenised: number; ms: number } | null {
+  const start = Date.now();
+  const deadline = Math.min(options.deadline ?? Infinity, start + GROWTH_CHECK_MS);
   try {
-    return homogenisedGrowth(Fh, new Limits({ deadline, signal: options.signal }, GROWTH_CHECK));
+    const growth = homogenisedGrowth(Fh, new Limits({ deadline, signal: options.signal }, GROWTH_CHECK));
+    return growth && { ...growth, ms: Date.now() - start };
   } catch (e) {
     if (!(e instanceof AlgebraError) || e.code !== "timeout" || !e.message.startsWith(GROWTH_CHECK)) throw e;
     limits.checkTime(); // the caller's own deadline, if that is what passed
@@ -226,7 +245,8 @@ function growthWithinBudget(Fh: Polynomial<Rational>[], options: GroebnerOptions
 
 /**
  * F^h's reduced basis by the default engine ('auto') or multi-modular F4 ('f4', which can prove
- * it: F^h is homogeneous, so its own homogenisation is saturated), then h = 1 and inter-reduction.
+ * it: F^h is homogeneous, so its own homogenisation is saturated; the default engine when it
+ * still cannot), then h = 1 and inter-reduction.
  */
 function viaHomogenisation(
   F: Polynomial<Rational>[],
