@@ -102,10 +102,11 @@ export function dehomogenisedBasis(Gh: readonly Polynomial<Rational>[], ring: Po
  * over Z/p). A saturated ⟨F^h⟩ gives equal counts (G^h is then the homogenised G, CLO ch. 8 §4);
  * extra elements come from h-torsion, i.e. degree falls that the inhomogeneous run meets and
  * whose exact replay swells coefficients (equal counts do not prove saturation: {x^2 − y,
- * x^3 − x} has torsion and 3 elements either way). Null when the prime divides a denominator or a leading coefficient
+ * x^3 − x} has torsion and 3 elements either way). `terms` is the number of terms of G^h_p, a
+ * measure of the route's work. Null when the prime divides a denominator or a leading coefficient
  * (the image would not be F's).
  */
-export function homogenisedGrowth(Fh: readonly Polynomial<Rational>[], limits: Limits): { homogenised: number; dehomogenised: number } | null {
+export function homogenisedGrowth(Fh: readonly Polynomial<Rational>[], limits: Limits): { homogenised: number; dehomogenised: number; terms: number } | null {
   const p = MODULAR_PRIMES[0], P = BigInt(p);
   const ring = Fh[0].ring.withField(primeField(p));
   const images: Polynomial<number>[] = [];
@@ -126,7 +127,7 @@ export function homogenisedGrowth(Fh: readonly Polynomial<Rational>[], limits: L
   const leads = Gp.map((g) => g.exps.subarray(1, n + 1)); // x-part of each leading monomial
   const divides = (a: Int32Array, b: Int32Array) => a.every((e, k) => e <= b[k]);
   const minimal = leads.filter((a, i) => !leads.some((b, j) => j !== i && divides(b, a) && (!divides(a, b) || j < i)));
-  return { homogenised: Gp.length, dehomogenised: minimal.length };
+  return { homogenised: Gp.length, dehomogenised: minimal.length, terms: Gp.reduce((sum, g) => sum + g.coeffs.length, 0) };
 }
 
 export function isPlainGrevlex(ring: PolynomialRing<unknown>): boolean {
