@@ -36,8 +36,10 @@ export interface GroebnerOptions extends LimitOptions {
    * dehomogenises; otherwise it falls back to
    * 'modular' when the proof cannot be completed; not the default over Q, as it measured slower
    * than 'modular' here on katsura-6/7 (its exact proof is half its time; see bench/README.md).
-   * Over Z/p: 'auto' = F4 (f4/f4.ts) for grevlex/grlex and primes below 2^26, Buchberger otherwise;
-   * 'f4' = F4 in every order (primes below 2^26); 'buchberger' and 'modular' = Buchberger.
+   * Over Z/p: 'auto' and 'f4' = F4 (f4/f4.ts) for primes below 2^26 — in orders that are not
+   * degree-compatible on the homogenised ideal (f4/homogenised-image.ts), where Buchberger's
+   * algorithm and sugar-driven F4 ran for minutes on the three-site cycle — Buchberger otherwise;
+   * 'buchberger' and 'modular' = Buchberger.
    */
   readonly method?: "auto" | "buchberger" | "modular" | "f4";
   /**
@@ -76,9 +78,9 @@ export function ringOf<C>(polys: readonly Polynomial<C>[], what: string): Polyno
  * Buchberger's algorithm with Gebauer–Möller criteria and sugar (graded orders) or normal (lex,
  * block) selection, then inter-reduction (Cox, Little, O'Shea, "Ideals, Varieties, and
  * Algorithms", 4th ed. 2015, ch. 2 §7 and §10). Over Q the run is learnt modulo a prime and
- * replayed exactly, then proven (groebner/modular.ts); over Z/p graded orders use F4
- * (f4/f4.ts); for lex/block/weighted orders a zero-dimensional ideal goes through grevlex and
- * FGLM (fglm.ts). `method` selects another engine (multi-modular F4 over Q, plain Buchberger).
+ * replayed exactly, then proven (groebner/modular.ts); over Z/p F4 (f4/f4.ts; other orders than
+ * grevlex/grlex on the homogenised ideal); for lex/block/weighted orders a zero-dimensional ideal
+ * goes through grevlex and FGLM (fglm.ts). `method` selects another engine (multi-modular F4 over Q, plain Buchberger).
  *
  * Example (CLO ch. 2 §7, Example 1, grlex x > y): groebnerBasis([x^3 - 2*x*y, x^2*y - 2*y^2 + x])
  * is [y^2 - 1/2*x, x*y, x^2].
@@ -268,7 +270,7 @@ function isHomogeneous(polys: readonly Polynomial<Rational>[]): boolean {
 
 function useF4ModP<C>(ring: PolynomialRing<C>, method: NonNullable<GroebnerOptions["method"]>): boolean {
   if (!isPrimeField(ring.field) || !f4SupportsPrime(ring.field.p)) return false;
-  return method === "f4" || (method === "auto" && isDegreeCompatible(ring));
+  return method === "f4" || method === "auto";
 }
 
 function isDegreeCompatible<C>(ring: PolynomialRing<C>): boolean {

@@ -136,6 +136,21 @@ export function f4ModP(
   return reduced;
 }
 
+/**
+ * The reduced basis from a Gröbner basis `G` mod p (any order): the elements with minimal leading
+ * monomials (one per monomial), each tail reduced by the others (one matrix), monic, sorted by
+ * increasing leading monomial — the last step of f4ModP, for bases found another way.
+ */
+export function reducedModP(G: readonly F4Poly[], T: MonomialTable, p: number, cmp: MonomialComparator, limits: Limits, stats: F4Stats = { matrices: 0, rows: 0, maxRows: 0, maxColumns: 0 }): F4Poly[] {
+  const mcmp = T.comparator(cmp);
+  const nonzero = G.filter((g) => g.mons.length > 0).map((g) => monic(g, p));
+  if (nonzero.some((g) => T.degree(g.mons[0]) === 0)) return [{ mons: Int32Array.of(T.intern(new Int32Array(T.S), 0)), coeffs: Int32Array.of(1) }];
+  const minimal = nonzero.filter((g, i) => !nonzero.some((h, j) => j !== i && T.divides(h.mons[0], g.mons[0]) && (h.mons[0] !== g.mons[0] || j < i)));
+  const reduced = interReduce(minimal, T, mcmp, new Eliminator(p, limits), stats);
+  reduced.sort((a, b) => mcmp(a.mons[0], b.mons[0]));
+  return reduced;
+}
+
 function liveCount(entries: readonly F4Entry[]): number {
   let c = 0;
   for (const e of entries) if (e.live) c++;

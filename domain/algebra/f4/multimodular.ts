@@ -15,6 +15,7 @@ import { verifyGroebner } from "../groebner/verify";
 import { ZeroTest } from "../groebner/zero-test";
 import type { F4Poly, F4Stats } from "./f4";
 import { f4ModP } from "./f4";
+import { homogenisedF4ModP } from "./homogenised-image";
 import { invModP } from "./modp";
 import { primesBelow } from "./modp";
 import { MonomialTable } from "./monomial-table";
@@ -238,7 +239,11 @@ export function imageModPrime(input: MultiModularInput, p: number, limits: Limit
     }
     return dropZeros(inputMons[i], coeffs);
   });
-  const Gp = f4ModP(polys, T, p, pr.ring.cmp, { limits, sugared: !pr.graded, ...(prime ? { prime } : {}) }, f4stats ?? { matrices: 0, rows: 0, maxRows: 0, maxColumns: 0 });
+  const stats = f4stats ?? { matrices: 0, rows: 0, maxRows: 0, maxColumns: 0 };
+  const f4options = { limits, ...(prime ? { prime } : {}) };
+  const Gp = pr.graded
+    ? f4ModP(polys, T, p, pr.ring.cmp, f4options, stats)
+    : homogenisedF4ModP(polys, T, p, pr.ring.order, pr.ring.cmp, f4options, stats);
   let terms = 0;
   for (const g of Gp) terms += g.mons.length;
   const lengths = new Int32Array(Gp.length), exps = new Int32Array(terms * S), coeffs = new Int32Array(terms);

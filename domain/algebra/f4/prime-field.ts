@@ -4,6 +4,7 @@ import type { PolynomialRing } from "../ring";
 import type { Limits } from "../groebner/limits";
 import type { F4Poly } from "./f4";
 import { f4ModP } from "./f4";
+import { homogenisedF4ModP } from "./homogenised-image";
 import { F4_MAX_PRIME } from "./modp";
 import { MonomialTable } from "./monomial-table";
 
@@ -23,7 +24,8 @@ export function toF4(T: MonomialTable, exps: Int32Array, coeffs: ArrayLike<numbe
 }
 
 /**
- * Reduced Gröbner basis over Z/p (p < 2^26) by F4 (f4.ts), in the ring's order. Exact: every step
+ * Reduced Gröbner basis over Z/p (p < 2^26) by F4 (f4.ts), in the ring's order (orders other than
+ * grevlex/grlex through the homogenised ideal, homogenised-image.ts). Exact: every step
  * is arithmetic in Z/p, so no proof is needed. Sorted by increasing leading monomial, monic.
  *
  * Example: over GF(32003), grevlex, [x^2 - y, x*y - 1] gives [y^2 - x, x*y - 1, x^2 - y].
@@ -33,6 +35,6 @@ export function f4GroebnerModP(polys: readonly Polynomial<number>[], limits: Lim
   const p = (ring.field as PrimeField).p;
   const T = new MonomialTable(ring.n);
   const input = polys.filter((f) => f.coeffs.length > 0).map((f) => toF4(T, f.exps, f.coeffs));
-  const G = f4ModP(input, T, p, ring.cmp, { limits, sugared: !isGradedOrder(ring) });
+  const G = isGradedOrder(ring) ? f4ModP(input, T, p, ring.cmp, { limits }) : homogenisedF4ModP(input, T, p, ring.order, ring.cmp, { limits });
   return G.map((g) => ({ ring, coeffs: Array.from(g.coeffs), exps: T.packed(g.mons) }));
 }

@@ -60,24 +60,31 @@ describe.runIf(existsSync(SINGULAR))("agreement with Singular 4.3 std (reduced, 
  * path here is F4 modulo primes in the block order, lifted and proven against the grevlex basis.
  */
 describe.runIf(existsSync(SINGULAR))("block orders against Singular 4.3 std", () => {
-  const files = ["phospho-2site-k3k6", "phospho-2site-k2k5", "phospho-2site-totals"];
-  for (const name of files) {
-    it(`${name} over Q (default and F4 paths)`, () => {
+  // Over Z/32003 the F4 path goes through the homogenised ideal (f4/homogenised-image.ts); the
+  // three-site cycle is the case sugar-driven F4 and Buchberger in the block order did not finish
+  // (minutes); Buchberger is compared only where it ends within seconds.
+  const cases: [string, number, readonly ("auto" | "f4" | "buchberger")[]][] = [
+    ["phospho-2site-k3k6", 0, ["auto", "f4"]], ["phospho-2site-k2k5", 0, ["auto", "f4"]], ["phospho-2site-totals", 0, ["auto", "f4"]],
+    ["phospho-2site-k2k5", 32003, ["auto", "f4", "buchberger"]], ["phospho-2site-totals", 32003, ["auto", "f4", "buchberger"]],
+    ["phospho-2site-k3k6", 32003, ["auto", "f4"]], ["phospho-3site-k3k6", 32003, ["auto"]],
+  ];
+  for (const [name, characteristic, methods] of cases) {
+    it(`${name} over ${characteristic ? `Z/${characteristic}` : "Q"} (${methods.join(", ")})`, () => {
       const text = readFileSync(`bench/systems/${name}.txt`, "utf8");
-      const sys = parseSystemFile(text, QQ);
+      const sys = parseSystemFile(text, (characteristic ? primeField(characteristic) : QQ) as Field<unknown>);
       const R = sys.ring;
       const order = /order:\s*lex\((\d+)\),\s*grevlex\((\d+)\)/.exec(text)!;
       const script = [
         "option(redSB);",
-        `ring r = 0,(${R.vars.join(",")}),(lp(${order[1]}),dp(${order[2]}));`,
+        `ring r = ${characteristic},(${R.vars.join(",")}),(lp(${order[1]}),dp(${order[2]}));`,
         `ideal i = ${sys.polys.map((p) => R.format(p)).join(",\n")};`,
         "ideal g = std(i);",
         "int k; for (k = 1; k <= size(g); k++) { print(g[k]); }",
         "quit;",
       ].join("\n");
-      const theirs = execFileSync(SINGULAR, ["-q"], { input: script, timeout: 60_000 }).toString().trim().split("\n")
+      const theirs = execFileSync(SINGULAR, ["-q"], { input: script, timeout: 60_000, maxBuffer: 64 * 1024 * 1024 }).toString().trim().split("\n")
         .map((s) => R.format(makeMonic(R.parse(s))));
-      for (const method of ["auto", "f4"] as const) {
+      for (const method of methods) {
         const ours = groebnerBasis(sys.polys, { method }).map((g) => R.format(g));
         expect(new Set(ours), method).toEqual(new Set(theirs));
         expect(ours.length, method).toBe(theirs.length);
