@@ -169,7 +169,8 @@ const TRIAL = "Gröbner basis (trial of the traced run)";
 /**
  * A lex or block order on a positive-dimensional ideal over Q: the traced Buchberger run within
  * a step budget (reducing by dense rows, groebner/row-kernel.ts: these ideals' remainders are
- * long), then F4 modulo primes below 2^26 in the target order, lifted and proven against the
+ * long), then the reduced bases in the target order modulo primes below 2^26 (F4 on the
+ * homogenised ideal, f4/homogenised-image.ts), lifted and proven against the
  * grevlex basis as soon as a candidate reconstructs (f4/multimodular.ts, `proveEarly`); null when
  * neither completes (the caller goes on).
  */
