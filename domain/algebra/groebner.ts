@@ -38,8 +38,8 @@ export interface GroebnerOptions extends LimitOptions {
    * than 'modular' here on katsura-6/7 (its exact proof is half its time; see bench/README.md).
    * Over Z/p: 'auto' and 'f4' = F4 (f4/f4.ts) for primes below 2^26 — in orders that are not
    * degree-compatible on the homogenised ideal (f4/homogenised-image.ts), where Buchberger's
-   * algorithm and sugar-driven F4 ran for minutes on the three-site cycle — Buchberger otherwise;
-   * 'buchberger' and 'modular' = Buchberger.
+   * algorithm and sugar-driven F4 ran for minutes on the three-site cycle — and Buchberger for
+   * larger primes; 'buchberger' and 'modular' = Buchberger.
    */
   readonly method?: "auto" | "buchberger" | "modular" | "f4";
   /**

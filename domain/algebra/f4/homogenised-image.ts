@@ -1,4 +1,4 @@
-import type { Limits } from "../groebner/limits";
+import { Limits } from "../groebner/limits";
 import type { MonomialComparator, OrderSpec } from "../order";
 import { makeComparator, resolveOrderSpec } from "../order";
 import type { F4Options, F4Poly, F4Stats } from "./f4";
@@ -68,13 +68,12 @@ export function homogenisedF4ModP(
     }
     return { mons, coeffs: g.coeffs };
   });
-  return reducedModP(dehomogenised, T, p, cmp, options.limits as Limits, stats);
+  return reducedModP(dehomogenised, T, p, cmp, options.limits ?? new Limits(), stats);
 }
 
 /** >' on n + 1 variables (h last): total degree, then `order` on the first n, then h (never needed). */
 function degreeThen(order: OrderSpec, n: number): MonomialComparator {
-  const blocks = resolveOrderSpec(order, n).map((b) => ({ ...b }));
   // Two or more blocks: the block comparator reads only the exponents, never the degree slot.
-  const tail = makeComparator([...blocks, { kind: "lex", size: 1 }], n + 1);
+  const tail = makeComparator([...resolveOrderSpec(order, n), { kind: "lex", size: 1 }], n + 1);
   return (a, ia, b, ib) => a[ia] - b[ib] || tail(a, ia, b, ib);
 }
