@@ -14,8 +14,6 @@ export interface F4Poly {
 
 export interface F4Options {
   readonly limits?: Limits;
-  /** Select pairs by sugar (for orders that are not degree-compatible); otherwise by lcm degree. */
-  readonly sugared?: boolean;
   /** Reported in progress: this is prime number `k` of at most `of` (multi-modular runs). */
   readonly prime?: { readonly k: number; readonly of: number };
 }
@@ -42,8 +40,8 @@ export interface F4Stats {
 
 /**
  * F4 modulo a prime p < 2^26 (Faugère, "A new efficient algorithm for computing Gröbner bases
- * (F4)", J. Pure Appl. Algebra 139, 1999): all critical pairs of the lowest degree (the normal
- * strategy; the sugar degree for non-graded orders, Giovini et al., ISSAC 1991) go into one matrix;
+ * (F4)", J. Pure Appl. Algebra 139, 1999) in a degree-compatible order (others: homogenised-image.ts):
+ * all critical pairs of the lowest lcm degree (the normal strategy) go into one matrix;
  * symbolic preprocessing adds a reducer m·g for every monomial divisible by a leading monomial of
  * the basis; the matrix is reduced by Gaussian elimination mod p (sparse rows, one dense
  * accumulator, see modp.ts), and the rows with new leading monomials join the basis with the
@@ -62,7 +60,6 @@ export function f4ModP(
 ): F4Poly[] {
   if (p >= F4_MAX_PRIME) throw new AlgebraError("domain", `F4: prime ${p} is not below 2^26`);
   const limits = options.limits ?? new Limits();
-  const sugared = options.sugared ?? false;
   const mcmp = T.comparator(cmp);
   const basis: F4Poly[] = [];
   const entries: F4Entry[] = [];
@@ -79,10 +76,10 @@ export function f4ModP(
     ...(options.prime ? { prime: options.prime.k, primes: options.prime.of } : {}),
   });
 
-  const add = (f: F4Poly, sugar: number): void => {
+  const add = (f: F4Poly): void => {
     basis.push(f);
-    entries.push({ lm: f.mons[0], sugar, live: true });
-    pairs = updateF4Pairs(T, entries, pairs, basis.length - 1, sugared);
+    entries.push({ lm: f.mons[0], live: true });
+    pairs = updateF4Pairs(T, entries, pairs, basis.length - 1);
     limits.checkSizes(liveCount(entries), pairs.length, f.mons.length);
   };
 
@@ -95,7 +92,7 @@ export function f4ModP(
     fresh.sort((a, b) => mcmp(a.mons[0], b.mons[0]));
     for (const f of fresh) {
       if (T.degree(f.mons[0]) === 0) return one();
-      add(f, maxDeg(f, T));
+      add(f);
     }
   }
 
@@ -123,7 +120,7 @@ export function f4ModP(
     fresh.sort((a, b) => mcmp(a.mons[0], b.mons[0]));
     for (const f of fresh) {
       if (T.degree(f.mons[0]) === 0) return one();
-      add(f, sugared ? degree : T.degree(f.mons[0]));
+      add(f);
     }
     report();
   }
@@ -163,11 +160,6 @@ function liveIndices(entries: readonly F4Entry[]): number[] {
   return out;
 }
 
-function maxDeg(f: F4Poly, T: MonomialTable): number {
-  let d = 0;
-  for (let t = 0; t < f.mons.length; t++) d = Math.max(d, T.degree(f.mons[t]));
-  return d;
-}
 
 export function monic(f: F4Poly, p: number): F4Poly {
   if (f.coeffs[0] === 1) return f;

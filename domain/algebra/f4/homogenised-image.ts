@@ -55,7 +55,7 @@ export function homogenisedF4ModP(
     const idx = Array.from(mons.keys()).sort((a, b) => hcmp(mons[b], mons[a]));
     return { mons: Int32Array.from(idx, (i) => mons[i]), coeffs: Int32Array.from(idx, (i) => f.coeffs[i]) };
   });
-  const Gh = f4ModP(homogenised, Th, p, cmpH, { ...options, sugared: false }, stats);
+  const Gh = f4ModP(homogenised, Th, p, cmpH, options, stats);
   const x = new Int32Array(n + 1);
   const dehomogenised = Gh.map((g) => {
     // Terms of a homogeneous g have distinct x-parts, already in the order > (see above).

@@ -5,14 +5,13 @@ export interface F4Pair {
   readonly i: number;
   readonly j: number;
   readonly lcm: number;
-  /** Total degree of the lcm (normal strategy) or the pair's sugar (non-graded orders). */
+  /** Total degree of the lcm (normal strategy). */
   readonly deg: number;
 }
 
 /** What the pair bookkeeping needs of a basis element. */
 export interface F4Entry {
   readonly lm: number;
-  readonly sugar: number;
   live: boolean;
 }
 
@@ -22,9 +21,10 @@ export interface F4Entry {
  * for live g minus those whose lcm a pending or kept new pair's lcm properly divides (chain
  * criterion, keeping one of equal lcms) and coprime ones (product criterion); old pairs that h
  * makes redundant (B_k criterion); live elements whose LM is a multiple of LM(h) retire.
- * `sugared`: the pair degree is its sugar; otherwise the total degree of the lcm.
+ * The pair degree is the total degree of the lcm: F4 runs only in graded orders (other orders go
+ * through the homogenised ideal, homogenised-image.ts).
  */
-export function updateF4Pairs(T: MonomialTable, basis: F4Entry[], pairs: F4Pair[], h: number, sugared: boolean): F4Pair[] {
+export function updateF4Pairs(T: MonomialTable, basis: F4Entry[], pairs: F4Pair[], h: number): F4Pair[] {
   const H = basis[h];
   const hm = H.lm;
   const cand: { g: number; lcm: number; coprime: boolean }[] = [];
@@ -54,11 +54,7 @@ export function updateF4Pairs(T: MonomialTable, basis: F4Entry[], pairs: F4Pair[
   }
   for (const c of kept) {
     if (c.coprime) continue;
-    const dl = T.degree(c.lcm);
-    const deg = sugared
-      ? Math.max(basis[c.g].sugar + dl - T.degree(basis[c.g].lm), H.sugar + dl - T.degree(hm))
-      : dl;
-    out.push({ i: c.g, j: h, lcm: c.lcm, deg });
+    out.push({ i: c.g, j: h, lcm: c.lcm, deg: T.degree(c.lcm) });
   }
   for (let g = 0; g < h; g++) if (basis[g].live && T.divides(hm, basis[g].lm)) basis[g].live = false;
   return out;

@@ -8,7 +8,7 @@ import { homogenisedF4ModP } from "./homogenised-image";
 import { F4_MAX_PRIME } from "./modp";
 import { MonomialTable } from "./monomial-table";
 
-/** Orders whose pairs F4 selects by lcm degree (the normal strategy); the others by sugar. */
+/** Orders F4 runs in directly (pairs by lcm degree, the normal strategy); the others go through F^h. */
 export function isGradedOrder(ring: PolynomialRing<unknown>): boolean {
   return ring.order.length === 1 && (ring.order[0].kind === "grlex" || ring.order[0].kind === "grevlex");
 }
