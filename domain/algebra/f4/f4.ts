@@ -5,6 +5,7 @@ import type { MonomialTable } from "./monomial-table";
 import { F4_MAX_PRIME, invModP, mulModP, reduceDouble } from "./modp";
 import type { F4Entry, F4Pair } from "./pairs";
 import { updateF4Pairs } from "./pairs";
+import type { F4Recorder } from "./trace";
 
 /** A polynomial for F4: monomial ids (terms decreasing in the order) and residues mod p. */
 export interface F4Poly {
@@ -16,6 +17,8 @@ export interface F4Options {
   readonly limits?: Limits;
   /** Reported in progress: this is prime number `k` of at most `of` (multi-modular runs). */
   readonly prime?: { readonly k: number; readonly of: number };
+  /** Records the run for replay at other primes (trace.ts). */
+  readonly recorder?: F4Recorder;
 }
 
 /** One matrix row to be: the basis polynomial `f` times the monomial `m`. */
@@ -60,12 +63,16 @@ export function f4ModP(
 ): F4Poly[] {
   if (p >= F4_MAX_PRIME) throw new AlgebraError("domain", `F4: prime ${p} is not below 2^26`);
   const limits = options.limits ?? new Limits();
+  const rec = options.recorder;
   const mcmp = T.comparator(cmp);
   const basis: F4Poly[] = [];
   const entries: F4Entry[] = [];
   let pairs: F4Pair[] = [];
   const elim = new Eliminator(p, limits);
-  const one = (): F4Poly[] => [{ mons: Int32Array.of(T.intern(new Int32Array(T.S), 0)), coeffs: Int32Array.of(1) }];
+  const one = (): F4Poly[] => {
+    if (rec) rec.broken = true;
+    return [{ mons: Int32Array.of(T.intern(new Int32Array(T.S), 0)), coeffs: Int32Array.of(1) }];
+  };
   let degree = 0;
   const report = (matrix?: { rows: number; cols: number }) => limits.progress({
     pairsLeft: pairs.length,
@@ -84,11 +91,15 @@ export function f4ModP(
   };
 
   // The inputs: one echelon form, so equal leading monomials and linear dependencies go first.
-  const inputs = input.filter((f) => f.mons.length > 0).map((f) => monic(f, p));
+  const inputs = input.filter((f) => f.mons.length > 0).map((f) => {
+    const g = monic(f, p);
+    rec?.monic(f, g);
+    return g;
+  });
   if (inputs.length === 0) return [];
   {
     const gens: RowGen[] = inputs.map((f) => ({ m: -1, f }));
-    const fresh = reduceRows(gens, [], [], T, mcmp, elim, stats, true);
+    const fresh = reduceRows(gens, [], [], T, mcmp, elim, stats, true, undefined, rec);
     fresh.sort((a, b) => mcmp(a.mons[0], b.mons[0]));
     for (const f of fresh) {
       if (T.degree(f.mons[0]) === 0) return one();
@@ -116,7 +127,7 @@ export function f4ModP(
       }
     }
     const live = liveIndices(entries);
-    const fresh = reduceRows(gens, live.map((g) => basis[g]), live.map((g) => entries[g].lm), T, mcmp, elim, stats, false, report);
+    const fresh = reduceRows(gens, live.map((g) => basis[g]), live.map((g) => entries[g].lm), T, mcmp, elim, stats, false, report, rec);
     fresh.sort((a, b) => mcmp(a.mons[0], b.mons[0]));
     for (const f of fresh) {
       if (T.degree(f.mons[0]) === 0) return one();
@@ -128,7 +139,7 @@ export function f4ModP(
   // Reduced basis: the minimal elements, each tail reduced by the others (one more matrix).
   const live = liveIndices(entries).filter((g) => !liveIndices(entries).some((h) => h !== g && T.divides(entries[h].lm, entries[g].lm)));
   const minimal = live.map((g) => basis[g]);
-  const reduced = interReduce(minimal, T, mcmp, elim, stats);
+  const reduced = interReduce(minimal, T, mcmp, elim, stats, rec);
   reduced.sort((a, b) => mcmp(a.mons[0], b.mons[0]));
   return reduced;
 }
@@ -138,12 +149,27 @@ export function f4ModP(
  * monomials (one per monomial), each tail reduced by the others (one matrix), monic, sorted by
  * increasing leading monomial — the last step of f4ModP, for bases found another way.
  */
-export function reducedModP(G: readonly F4Poly[], T: MonomialTable, p: number, cmp: MonomialComparator, limits: Limits, stats: F4Stats = { matrices: 0, rows: 0, maxRows: 0, maxColumns: 0 }): F4Poly[] {
+export function reducedModP(
+  G: readonly F4Poly[],
+  T: MonomialTable,
+  p: number,
+  cmp: MonomialComparator,
+  limits: Limits,
+  stats: F4Stats = { matrices: 0, rows: 0, maxRows: 0, maxColumns: 0 },
+  rec?: F4Recorder,
+): F4Poly[] {
   const mcmp = T.comparator(cmp);
-  const nonzero = G.filter((g) => g.mons.length > 0).map((g) => monic(g, p));
-  if (nonzero.some((g) => T.degree(g.mons[0]) === 0)) return [{ mons: Int32Array.of(T.intern(new Int32Array(T.S), 0)), coeffs: Int32Array.of(1) }];
+  const nonzero = G.filter((g) => g.mons.length > 0).map((g) => {
+    const m = monic(g, p);
+    rec?.monic(g, m);
+    return m;
+  });
+  if (nonzero.some((g) => T.degree(g.mons[0]) === 0)) {
+    if (rec) rec.broken = true;
+    return [{ mons: Int32Array.of(T.intern(new Int32Array(T.S), 0)), coeffs: Int32Array.of(1) }];
+  }
   const minimal = nonzero.filter((g, i) => !nonzero.some((h, j) => j !== i && T.divides(h.mons[0], g.mons[0]) && (h.mons[0] !== g.mons[0] || j < i)));
-  const reduced = interReduce(minimal, T, mcmp, new Eliminator(p, limits), stats);
+  const reduced = interReduce(minimal, T, mcmp, new Eliminator(p, limits), stats, rec);
   reduced.sort((a, b) => mcmp(a.mons[0], b.mons[0]));
   return reduced;
 }
@@ -195,6 +221,7 @@ function reduceRows(
   stats: F4Stats,
   allLower: boolean,
   report?: (m: { rows: number; cols: number }) => void,
+  rec?: F4Recorder,
 ): F4Poly[] {
   const pivotGen = new Map<number, RowGen>();
   const lower: RowGen[] = [];
@@ -242,8 +269,18 @@ function reduceRows(
     return { cols, coeffs: g.f.coeffs };
   };
   const pivots: (Row | undefined)[] = new Array(ncols);
-  for (const [m, g] of pivotGen) pivots[colOf[m]] = toRow(g);
-  const lowerRows = lower.map(toRow);
+  // Recording: which generator each row came from, and the pivots the productive rows used.
+  const genOf = rec ? new Map<Row, RowGen>() : null;
+  for (const [m, g] of pivotGen) {
+    const r = toRow(g);
+    pivots[colOf[m]] = r;
+    genOf?.set(r, g);
+  }
+  const lowerRows = lower.map((g) => {
+    const r = toRow(g);
+    genOf?.set(r, g);
+    return r;
+  });
   lowerRows.sort((a, b) => a.cols[0] - b.cols[0]);
   stats.matrices++;
   stats.rows += lowerRows.length;
@@ -251,13 +288,27 @@ function reduceRows(
   stats.maxColumns = Math.max(stats.maxColumns, ncols);
   report?.({ rows: lowerRows.length + pivotGen.size, cols: ncols });
   const out: F4Poly[] = [];
+  const used = new Set<Row>();
+  const productive: { f: F4Poly; cols: Int32Array; result: F4Poly; resultCols: Int32Array }[] = [];
+  if (rec) elim.recording = [];
   for (const r of lowerRows) {
     const red = elim.reduce(r, pivots, ncols, 0);
+    if (elim.recording) {
+      if (red) for (const u of elim.recording) used.add(u);
+      elim.recording.length = 0;
+    }
     if (!red) continue;
     pivots[red.cols[0]] = red;
     const mons = new Int32Array(red.cols.length);
     for (let t = 0; t < mons.length; t++) mons[t] = monList[red.cols[t]];
-    out.push({ mons, coeffs: red.coeffs });
+    const f = { mons, coeffs: red.coeffs };
+    out.push(f);
+    if (genOf) productive.push({ f: genOf.get(r)!.f, cols: r.cols, result: f, resultCols: red.cols });
+  }
+  if (rec && genOf) {
+    elim.recording = null;
+    const usedPivots = [...used].filter((u) => genOf.has(u)).map((u) => ({ f: genOf.get(u)!.f, cols: u.cols }));
+    rec.matrix(ncols, productive.length > 0 ? T.degree(productive[0].result.mons[0]) : 0, usedPivots, productive, 0, true);
   }
   return out;
 }
@@ -269,6 +320,7 @@ function interReduce(
   mcmp: (a: number, b: number) => number,
   elim: Eliminator,
   stats: F4Stats,
+  rec?: F4Recorder,
 ): F4Poly[] {
   const lms = minimal.map((f) => f.mons[0]);
   const gens: RowGen[] = minimal.map((f) => ({ m: -1, f }));
@@ -301,21 +353,38 @@ function interReduce(
   monList.forEach((m, c) => colOf.set(m, c));
   const ncols = monList.length;
   const pivots: (Row | undefined)[] = new Array(ncols);
+  const genOf = rec ? new Map<Row, RowGen>() : null;
   for (const [m, g] of pivotGen) {
     const ms = rowMonomials(g, T);
     const cols = new Int32Array(ms.length);
     for (let t = 0; t < ms.length; t++) cols[t] = colOf.get(ms[t])!;
-    pivots[colOf.get(m)!] = { cols, coeffs: g.f.coeffs };
+    const r = { cols, coeffs: g.f.coeffs };
+    pivots[colOf.get(m)!] = r;
+    genOf?.set(r, g);
   }
   stats.matrices++;
   stats.maxColumns = Math.max(stats.maxColumns, ncols);
-  return minimal.map((f) => {
+  const used = new Set<Row>();
+  const productive: { f: F4Poly; cols: Int32Array; result: F4Poly; resultCols: Int32Array }[] = [];
+  if (rec) elim.recording = [];
+  const reduced = minimal.map((f) => {
     const row = pivots[colOf.get(f.mons[0])!]!;
     const red = elim.reduce(row, pivots, ncols, 1)!;
     const mons = new Int32Array(red.cols.length);
     for (let t = 0; t < mons.length; t++) mons[t] = monList[red.cols[t]];
-    return { mons, coeffs: red.coeffs };
+    const g = { mons, coeffs: red.coeffs };
+    if (elim.recording) {
+      for (const u of elim.recording) used.add(u);
+      elim.recording.length = 0;
+      productive.push({ f, cols: row.cols, result: g, resultCols: red.cols });
+    }
+    return g;
   });
+  if (rec && genOf) {
+    elim.recording = null;
+    rec.matrix(ncols, productive.length > 0 ? T.degree(productive[0].result.mons[0]) : 0, [...used].map((u) => ({ f: genOf.get(u)!.f, cols: u.cols })), productive, 1, false);
+  }
+  return reduced;
 }
 
 /**
@@ -324,7 +393,9 @@ function interReduce(
  * only touches columns still to come and the result is fully reduced. `skip` leading entries are
  * kept as they are (1 for the tail reduction of a basis element by the others).
  */
-class Eliminator {
+export class Eliminator {
+  /** When set, every pivot row applied by `reduce` is appended (trace.ts learns from it). */
+  recording: Row[] | null = null;
   private dense = new Float64Array(1024);
   private readonly invp: number;
   /** Entries stay below this, so one more product (< p²) keeps them exact (< 2^53). */
@@ -378,6 +449,7 @@ class Eliminator {
       const pr = pivots[c];
       if (pr === undefined || pr === row) { nnz++; continue; }
       d[c] = 0;
+      if (this.recording) this.recording.push(pr);
       const m = p - v;
       const pc = pr.cols, pv = pr.coeffs;
       for (let k = 1; k < pc.length; k++) {

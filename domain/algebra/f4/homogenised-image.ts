@@ -52,8 +52,10 @@ export function homogenisedF4ModP(
       mons[t] = Th.intern(e, 0);
     }
     // Within one degree >' is > on the x-part, but a non-homogeneous f's terms change places.
-    const idx = Array.from(mons.keys()).sort((a, b) => hcmp(mons[b], mons[a]));
-    return { mons: Int32Array.from(idx, (i) => mons[i]), coeffs: Int32Array.from(idx, (i) => f.coeffs[i]) };
+    const idx = Int32Array.from(Array.from(mons.keys()).sort((a, b) => hcmp(mons[b], mons[a])));
+    const fh = { mons: Int32Array.from(idx, (i) => mons[i]), coeffs: Int32Array.from(idx, (i) => f.coeffs[i]) };
+    options.recorder?.permute(f, fh, idx);
+    return fh;
   });
   const Gh = f4ModP(homogenised, Th, p, cmpH, options, stats);
   const x = new Int32Array(n + 1);
@@ -66,9 +68,11 @@ export function homogenisedF4ModP(
       for (let k = 1; k <= n; k++) x[k] = eh[k];
       mons[t] = T.intern(x, 0);
     }
-    return { mons, coeffs: g.coeffs };
+    const dh = { mons, coeffs: g.coeffs };
+    options.recorder?.alias(g, dh);
+    return dh;
   });
-  return reducedModP(dehomogenised, T, p, cmp, options.limits ?? new Limits(), stats);
+  return reducedModP(dehomogenised, T, p, cmp, options.limits ?? new Limits(), stats, options.recorder);
 }
 
 /** >' on n + 1 variables (h last): total degree, then `order` on the first n, then h (never needed). */

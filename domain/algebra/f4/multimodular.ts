@@ -20,6 +20,8 @@ import { invModP } from "./modp";
 import { primesBelow } from "./modp";
 import { MonomialTable } from "./monomial-table";
 import { isGradedOrder } from "./prime-field";
+import type { F4Trace, ReplayStats } from "./trace";
+import { F4Recorder, replayF4 } from "./trace";
 import { bitLength, crtStep, guidedReconstruction, rationalModP } from "./reconstruction";
 
 /**
@@ -61,6 +63,18 @@ export interface MultiModularOptions {
   readonly proveEarly?: boolean;
   /** Primes below this bound (default LIFT_PRIME_LIMIT, at most 2^26 for f4.ts). */
   readonly primeLimit?: number;
+  /**
+   * Learn the F4 run at the first prime and replay it at the others (trace.ts; default true).
+   * A traced lift whose proof fails is run again untraced, so the result never depends on it.
+   */
+  readonly traced?: boolean;
+  /** Replays done and declined (a result left its learnt columns: F4 ran itself). */
+  readonly replays?: ReplayStats;
+}
+
+/** One learnt run per multi-modular run: undefined until learnt, null when it cannot be replayed. */
+export interface ImageTracing extends ReplayStats {
+  trace: F4Trace | null | undefined;
 }
 
 interface Lifted {
@@ -225,7 +239,14 @@ export function* liftPrimes(input: MultiModularInput): Generator<number> {
 }
 
 /** The reduced basis modulo p by F4 (f4.ts), as plain data. `prime` only labels progress. */
-export function imageModPrime(input: MultiModularInput, p: number, limits: Limits, prime?: { k: number; of: number }, f4stats?: F4Stats): ModularImage {
+export function imageModPrime(
+  input: MultiModularInput,
+  p: number,
+  limits: Limits,
+  prime?: { k: number; of: number },
+  f4stats?: F4Stats,
+  tracing?: ImageTracing,
+): ModularImage {
   const pr = preparedFor(input);
   const { T, integer, inputMons } = pr;
   const n = pr.ring.n, S = n + 1;
@@ -240,10 +261,21 @@ export function imageModPrime(input: MultiModularInput, p: number, limits: Limit
     return dropZeros(inputMons[i], coeffs);
   });
   const stats = f4stats ?? { matrices: 0, rows: 0, maxRows: 0, maxColumns: 0 };
-  const f4options = { limits, ...(prime ? { prime } : {}) };
-  const Gp = pr.graded
-    ? f4ModP(polys, T, p, pr.ring.cmp, f4options, stats)
-    : homogenisedF4ModP(polys, T, p, pr.ring.order, pr.ring.cmp, f4options, stats);
+  let Gp: F4Poly[] | null = null;
+  if (tracing?.trace) {
+    Gp = replayF4(tracing.trace, polys, p, limits, prime);
+    if (Gp) tracing.replayed++;
+    else tracing.declined++;
+  }
+  if (!Gp) {
+    const recorder = tracing && tracing.trace === undefined ? new F4Recorder() : undefined;
+    if (recorder) for (const f of polys) recorder.input(f);
+    const f4options = { limits, ...(prime ? { prime } : {}), ...(recorder ? { recorder } : {}) };
+    Gp = pr.graded
+      ? f4ModP(polys, T, p, pr.ring.cmp, f4options, stats)
+      : homogenisedF4ModP(polys, T, p, pr.ring.order, pr.ring.cmp, f4options, stats);
+    if (recorder && tracing) tracing.trace = recorder.finish(Gp);
+  }
   let terms = 0;
   for (const g of Gp) terms += g.mons.length;
   const lengths = new Int32Array(Gp.length), exps = new Int32Array(terms * S), coeffs = new Int32Array(terms);
@@ -602,36 +634,47 @@ export function multiModularGroebnerQQ(
   const graded = isGradedOrder(polys[0].ring as Polynomial<unknown>["ring"]);
   const f4stats: F4Stats = { matrices: 0, rows: 0, maxRows: 0, maxColumns: 0 };
   const lifter = new ImageLifter(input, () => limits.checkTime());
-  let candidate: LiftCandidate | null = null;
-  let k = 0;
-  for (const p of liftPrimes(input)) {
-    if (k >= maxPrimes) { stats.failed = "primes"; return null; }
-    limits.checkTime();
-    k++;
-    stats.primes = k;
-    const t0 = Date.now();
-    const image = imageModPrime(input, p, limits, { k, of: maxPrimes }, f4stats);
-    stats.modularMs += Date.now() - t0;
-    if (graded && k === 1) {
-      // Step 3 first, as it needs only residues: when it cannot succeed, do not lift at all.
-      const th = Date.now();
-      const covered = leadsOfImageCovered(input, image, limits);
-      stats.proofMs += Date.now() - th;
-      if (!covered) { stats.failed = "hilbert"; return null; }
-    }
-    candidate = lifter.add(image);
-    stats.unlucky = lifter.unlucky;
-    if (candidate) break;
-    const early = options.proveEarly ? lifter.reconstructed() : null;
-    if (early) {
-      if (prove(early)) { stats.liftMs += lifter.liftMs; return candidateBasis(input, early); }
-      lifter.reject(); // reconstructed from too few primes
-      stats.failed = undefined;
-    }
+  const tracing: ImageTracing | undefined = options.traced === false ? undefined : { trace: undefined, replayed: 0, declined: 0 };
+  const result = lift();
+  if (options.replays && tracing) { options.replays.replayed += tracing.replayed; options.replays.declined += tracing.declined; }
+  if (result === null && tracing && tracing.replayed > 0 && stats.failed !== "hilbert") {
+    // A replay can miss a row that reduces to zero only at the learning prime; the plain run cannot.
+    return multiModularGroebnerQQ(polys, limits, { ...options, stats, traced: false });
   }
-  stats.liftMs += lifter.liftMs;
-  if (!candidate) return null;
-  return prove(candidate) ? candidateBasis(input, candidate) : null;
+  return result;
+
+  function lift(): Polynomial<Rational>[] | null {
+    let candidate: LiftCandidate | null = null;
+    let k = 0;
+    for (const p of liftPrimes(input)) {
+      if (k >= maxPrimes) { stats.failed = "primes"; return null; }
+      limits.checkTime();
+      k++;
+      stats.primes = k;
+      const t0 = Date.now();
+      const image = imageModPrime(input, p, limits, { k, of: maxPrimes }, f4stats, tracing);
+      stats.modularMs += Date.now() - t0;
+      if (graded && k === 1) {
+        // Step 3 first, as it needs only residues: when it cannot succeed, do not lift at all.
+        const th = Date.now();
+        const covered = leadsOfImageCovered(input, image, limits);
+        stats.proofMs += Date.now() - th;
+        if (!covered) { stats.failed = "hilbert"; return null; }
+      }
+      candidate = lifter.add(image);
+      stats.unlucky = lifter.unlucky;
+      if (candidate) break;
+      const early = options.proveEarly ? lifter.reconstructed() : null;
+      if (early) {
+        if (prove(early)) { stats.liftMs += lifter.liftMs; return candidateBasis(input, early); }
+        lifter.reject(); // reconstructed from too few primes
+        stats.failed = undefined;
+      }
+    }
+    stats.liftMs += lifter.liftMs;
+    if (!candidate) return null;
+    return prove(candidate) ? candidateBasis(input, candidate) : null;
+  }
 
   function prove(cand: LiftCandidate): boolean {
     const t2 = Date.now();
