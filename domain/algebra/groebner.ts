@@ -113,6 +113,8 @@ export function groebnerBasis<C>(polys: readonly Polynomial<C>[], options: Groeb
       const known = distributedOrLocal(qpolys, limits, options.distribution);
       if (known) return known as unknown as Polynomial<C>[];
     }
+    const mmStats: MultiModularStats = { primes: 0, unlucky: 0, modularMs: 0, liftMs: 0, proofMs: 0 };
+    let liftF4 = method === "auto" && isDegreeCompatible(ring);
     if (method === "auto" && isPlainGrevlex(ring) && !isHomogeneous(qpolys)) {
       const { polys: Fh } = homogenise(qpolys);
       const growth = growthWithinBudget(Fh, options, limits);
@@ -120,8 +122,13 @@ export function groebnerBasis<C>(polys: readonly Polynomial<C>[], options: Groeb
         const engine = growth.terms >= ROUTE_F4_TERMS ? "f4" : "auto";
         return viaHomogenisation(qpolys, Fh, strategy, limits, engine) as unknown as Polynomial<C>[];
       }
+      liftF4 = growth?.saturated === true;
     }
-    const mmStats: MultiModularStats = { primes: 0, unlucky: 0, modularMs: 0, liftMs: 0, proofMs: 0 };
+    if (liftF4) {
+      // See F4_FIRST: multi-modular F4 wherever its Hilbert step can succeed.
+      const viaF4 = multiModularGroebnerQQ(qpolys, limits, { stats: mmStats });
+      if (viaF4) return viaF4 as unknown as Polynomial<C>[];
+    }
     const viaF4 = method === "f4" && isDegreeCompatible(ring) ? multiModularGroebnerQQ(qpolys, limits, { stats: mmStats }) : null;
     if (viaF4 === null && method === "f4" && mmStats.failed === "hilbert" && isPlainGrevlex(ring)) {
       // ⟨F^h⟩ is not saturated, so the Hilbert proof cannot succeed on F; it does on F^h.
