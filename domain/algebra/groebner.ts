@@ -3,7 +3,7 @@ import { isPrimeField, isRationalField } from "./field";
 import type { DistributionHook } from "./f4/distribution";
 import { distributedOrLocal } from "./f4/distribution";
 import type { MultiModularStats } from "./f4/multimodular";
-import { multiModularGroebnerQQ } from "./f4/multimodular";
+import { firstLiftPrime, multiModularGroebnerQQ } from "./f4/multimodular";
 import { f4GroebnerModP, f4SupportsPrime } from "./f4/prime-field";
 import type { SelectionStrategy } from "./groebner/buchberger";
 import { buchberger, defaultStrategy } from "./groebner/buchberger";
@@ -26,16 +26,18 @@ export interface GroebnerOptions extends LimitOptions {
    * Over Q: 'modular' learns the computation modulo a word-size prime and replays only the useful
    * reductions exactly, then proves the result with Buchberger's criterion (falls back to
    * 'buchberger' on an unlucky prime); 'buchberger' runs fraction-free over Z throughout.
-   * 'auto' (default) = 'modular', except in grevlex when ⟨F^h⟩ has much h-torsion (measured by one
-   * F4 image of F^h mod p, see HOMOGENISED_GROWTH): then 'modular' on the homogenised input F^h
-   * (multi-modular F4 when that image is large, see ROUTE_F4_TERMS), dehomogenised and
-   * inter-reduced (groebner/homogenise.ts; same reduced basis); 'modular' also
-   * lifts FGLM from images mod primes (fglm-modular.ts), 'buchberger' runs FGLM over Q.
+   * 'auto' (default), in grevlex: one F4 image of F^h mod p (the growth check) decides. When ⟨F^h⟩
+   * has much h-torsion (HOMOGENISED_GROWTH): 'modular' on the homogenised input F^h (multi-modular
+   * F4 when that image is large, see ROUTE_F4_TERMS), dehomogenised and inter-reduced
+   * (groebner/homogenise.ts; same reduced basis). Otherwise, when the image shows that the Hilbert
+   * step of the proof succeeds (homogeneous input, or ⟨F^h⟩ saturated at p, as for katsura-n):
+   * multi-modular F4 with its images replayed from the first (f4/trace.ts), which measured twice
+   * as fast as 'modular' on katsura-6/7/8 (bench/README.md, 4 December); else 'modular'. In
+   * grlex 'auto' tries multi-modular F4 first. 'modular' also lifts FGLM from images mod primes
+   * (fglm-modular.ts), 'buchberger' runs FGLM over Q.
    * 'f4' (grevlex/grlex): multi-modular F4 with an exact proof (f4/multimodular.ts); in grevlex,
    * when its Hilbert step declines (⟨F^h⟩ not saturated) it runs on F^h instead and
-   * dehomogenises; otherwise it falls back to
-   * 'modular' when the proof cannot be completed; not the default over Q, as it measured slower
-   * than 'modular' here on katsura-6/7 (its exact proof is half its time; see bench/README.md).
+   * dehomogenises; otherwise it falls back to 'modular' when the proof cannot be completed.
    * Over Z/p: 'auto' and 'f4' = F4 (f4/f4.ts) for primes below 2^26 — in orders that are not
    * degree-compatible on the homogenised ideal (f4/homogenised-image.ts), where Buchberger's
    * algorithm and sugar-driven F4 ran for minutes on the three-site cycle — and Buchberger for
@@ -115,18 +117,22 @@ export function groebnerBasis<C>(polys: readonly Polynomial<C>[], options: Groeb
     }
     const mmStats: MultiModularStats = { primes: 0, unlucky: 0, modularMs: 0, liftMs: 0, proofMs: 0 };
     let liftF4 = method === "auto" && isDegreeCompatible(ring);
+    let hFreeLeads: { p: number; leads: Int32Array[] } | undefined;
     if (method === "auto" && isPlainGrevlex(ring) && !isHomogeneous(qpolys)) {
       const { polys: Fh } = homogenise(qpolys);
-      const growth = growthWithinBudget(Fh, options, limits);
+      // At the Hilbert step's prime, so that multi-modular F4 reuses the check's basis of F^h.
+      const p = firstLiftPrime(qpolys);
+      const growth = growthWithinBudget(Fh, options, limits, p);
       if (growth && growth.homogenised >= HOMOGENISED_GROWTH * growth.dehomogenised) {
         const engine = growth.terms >= ROUTE_F4_TERMS ? "f4" : "auto";
         return viaHomogenisation(qpolys, Fh, strategy, limits, engine) as unknown as Polynomial<C>[];
       }
       liftF4 = growth?.saturated === true;
+      if (growth) hFreeLeads = { p, leads: growth.hFreeLeads };
     }
     if (liftF4) {
-      // See F4_FIRST: multi-modular F4 wherever its Hilbert step can succeed.
-      const viaF4 = multiModularGroebnerQQ(qpolys, limits, { stats: mmStats });
+      // Multi-modular F4 (traced, f4/trace.ts) wherever its Hilbert step can succeed: see `method`.
+      const viaF4 = multiModularGroebnerQQ(qpolys, limits, { stats: mmStats, ...(hFreeLeads ? { hFreeLeads } : {}) });
       if (viaF4) return viaF4 as unknown as Polynomial<C>[];
     }
     const viaF4 = method === "f4" && isDegreeCompatible(ring) ? multiModularGroebnerQQ(qpolys, limits, { stats: mmStats }) : null;
@@ -241,10 +247,10 @@ const GROWTH_CHECK_MS = 2000;
 const ROUTE_F4_TERMS = 5000;
 const GROWTH_CHECK = "Gröbner basis (homogenised growth check)";
 
-function growthWithinBudget(Fh: Polynomial<Rational>[], options: GroebnerOptions, limits: Limits): ReturnType<typeof homogenisedGrowth> {
+function growthWithinBudget(Fh: Polynomial<Rational>[], options: GroebnerOptions, limits: Limits, p: number): ReturnType<typeof homogenisedGrowth> {
   const deadline = Math.min(options.deadline ?? Infinity, Date.now() + GROWTH_CHECK_MS);
   try {
-    return homogenisedGrowth(Fh, new Limits({ deadline, signal: options.signal }, GROWTH_CHECK));
+    return homogenisedGrowth(Fh, new Limits({ deadline, signal: options.signal }, GROWTH_CHECK), p);
   } catch (e) {
     if (!(e instanceof AlgebraError) || e.code !== "timeout" || !e.message.startsWith(GROWTH_CHECK)) throw e;
     limits.checkTime(); // the caller's own deadline, if that is what passed

@@ -70,6 +70,11 @@ export interface MultiModularOptions {
   readonly traced?: boolean;
   /** Replays done and declined (a result left its learnt columns: F4 ran itself). */
   readonly replays?: ReplayStats;
+  /**
+   * Step 3's h-free leads at prime p, when the caller has them (groebner.ts's growth check
+   * computes the same reduced basis of ⟨F^h⟩ mod p, homogenise.ts `homogenisedGrowth`).
+   */
+  readonly hFreeLeads?: { readonly p: number; readonly leads: readonly Int32Array[] };
 }
 
 /** One learnt run per multi-modular run: undefined until learnt, null when it cannot be replayed. */
@@ -156,6 +161,11 @@ export type ProofBatch =
   | { readonly kind: "membership" };
 
 export type ProofOutcome = { readonly ok: true } | { readonly ok: false; readonly failed: NonNullable<MultiModularStats["failed"]> };
+
+/** The first prime of liftPrimes for these generators (the Hilbert step's prime in graded orders). */
+export function firstLiftPrime(polys: readonly Polynomial<Rational>[]): number {
+  return liftPrimes(multiModularInput(polys)).next().value as number;
+}
 
 /** The input's ring, integer generators and monomial table, built once per input object and process. */
 interface Prepared {
@@ -631,6 +641,7 @@ export function multiModularGroebnerQQ(
   const maxPrimes = options.maxPrimes ?? 1000;
   const input = multiModularInput(polys, options.reference, options.primeLimit);
   if (!canLift(input)) return null;
+  if (options.hFreeLeads) preparedFor(input).hFree.set(options.hFreeLeads.p, { n: polys[0].ring.n, leads: [...options.hFreeLeads.leads] });
   const graded = isGradedOrder(polys[0].ring as Polynomial<unknown>["ring"]);
   const f4stats: F4Stats = { matrices: 0, rows: 0, maxRows: 0, maxColumns: 0 };
   const lifter = new ImageLifter(input, () => limits.checkTime());

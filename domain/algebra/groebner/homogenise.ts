@@ -103,13 +103,19 @@ export function dehomogenisedBasis(Gh: readonly Polynomial<Rational>[], ring: Po
  * extra elements come from h-torsion, i.e. degree falls that the inhomogeneous run meets and
  * whose exact replay swells coefficients (equal counts do not prove saturation: {x^2 − y,
  * x^3 − x} has torsion and 3 elements either way). `terms` is the number of terms of G^h_p, a
- * measure of the route's work. `saturated`: every minimal lead after h = 1 is divisible by a
- * leading monomial of G^h_p free of h, which is the Hilbert step of multi-modular F4's proof at p
- * (f4/multimodular.ts, `leadsOfImageCovered`), so F4 can be lifted on F itself. Null when the
- * prime divides a denominator or a leading coefficient (the image would not be F's).
+ * measure of the route's work. `hFreeLeads`: the leading monomials of G^h_p free of h
+ * (packed [degree, x-exponents]), which multi-modular F4's Hilbert step at p needs, so that step
+ * need not compute G^h_p again; `saturated`: every minimal lead after h = 1 is divisible by one of
+ * them, which is that step at p (f4/multimodular.ts, `leadsCovered`), so F4 can be lifted on F
+ * itself. Null when the prime divides a denominator or a leading coefficient (the image would not
+ * be F's).
  */
-export function homogenisedGrowth(Fh: readonly Polynomial<Rational>[], limits: Limits): { homogenised: number; dehomogenised: number; terms: number; saturated: boolean } | null {
-  const p = MODULAR_PRIMES[0], P = BigInt(p);
+export function homogenisedGrowth(
+  Fh: readonly Polynomial<Rational>[],
+  limits: Limits,
+  p: number = MODULAR_PRIMES[0],
+): { homogenised: number; dehomogenised: number; terms: number; saturated: boolean; hFreeLeads: Int32Array[] } | null {
+  const P = BigInt(p);
   const ring = Fh[0].ring.withField(primeField(p));
   const images: Polynomial<number>[] = [];
   for (const f of Fh) {
@@ -129,9 +135,11 @@ export function homogenisedGrowth(Fh: readonly Polynomial<Rational>[], limits: L
   const leads = Gp.map((g) => g.exps.subarray(1, n + 1)); // x-part of each leading monomial
   const divides = (a: Int32Array, b: Int32Array) => a.every((e, k) => e <= b[k]);
   const minimal = leads.filter((a, i) => !leads.some((b, j) => j !== i && divides(b, a) && (!divides(a, b) || j < i)));
-  const hFree = leads.filter((_, i) => Gp[i].exps[n + 1] === 0);
+  const free = Gp.filter((g) => g.exps[n + 1] === 0);
+  const hFree = free.map((g) => g.exps.subarray(1, n + 1));
   const saturated = minimal.every((a) => hFree.some((b) => divides(b, a)));
-  return { homogenised: Gp.length, dehomogenised: minimal.length, terms: Gp.reduce((sum, g) => sum + g.coeffs.length, 0), saturated };
+  const hFreeLeads = free.map((g) => g.exps.slice(0, n + 1));
+  return { homogenised: Gp.length, dehomogenised: minimal.length, terms: Gp.reduce((sum, g) => sum + g.coeffs.length, 0), saturated, hFreeLeads };
 }
 
 export function isPlainGrevlex(ring: PolynomialRing<unknown>): boolean {

@@ -3,7 +3,8 @@ import { AlgebraError, PolynomialRing, QQ, groebnerBasis } from "@domain/algebra
 import type { Progress } from "@domain/algebra/groebner/limits";
 import { Limits } from "@domain/algebra/groebner/limits";
 import type { MultiModularStats } from "@domain/algebra/f4/multimodular";
-import { multiModularGroebnerQQ } from "@domain/algebra/f4/multimodular";
+import { firstLiftPrime, multiModularGroebnerQQ } from "@domain/algebra/f4/multimodular";
+import { homogenise, homogenisedGrowth } from "@domain/algebra/groebner/homogenise";
 import { cyclic, katsura, randomIdeal } from "../../../fixtures/algebra/systems";
 
 /**
@@ -75,6 +76,21 @@ describe("multi-modular F4 over Q agrees with Buchberger (reference implementati
     expect(unit.ref).toEqual(["1"]);
     const U = new PolynomialRing(["x", "y"], QQ, "grevlex");
     expect(groebnerBasis(["x*y - 1", "x^2 - 1/3", "y - 5"].map((s) => U.parse(s)), { method: "f4" }).map((g) => U.format(g))).toEqual(["1"]);
+  });
+
+  it("takes step 3's h-free leads from the growth check's basis of F^h at the same prime, and uses them", () => {
+    const R = new PolynomialRing(katsura(4).vars, QQ, "grevlex");
+    const F = katsura(4).polys.map((s) => R.parse(s));
+    const p = firstLiftPrime(F);
+    const growth = homogenisedGrowth(homogenise(F).polys, new Limits(), p)!;
+    expect(growth.saturated).toBe(true); // katsura-n: <F^h> is saturated
+    const ref = groebnerBasis(F, { method: "buchberger" }).map((g) => R.format(g));
+    const seeded = multiModularGroebnerQQ(F, new Limits(), { hFreeLeads: { p, leads: growth.hFreeLeads } });
+    expect(seeded?.map((g) => R.format(g))).toEqual(ref);
+    // Leads that cover nothing make step 3 fail: the seeded leads are the ones checked.
+    const stats = fresh();
+    expect(multiModularGroebnerQQ(F, new Limits(), { stats, hFreeLeads: { p, leads: [] } })).toBeNull();
+    expect(stats.failed).toBe("hilbert");
   });
 
   it("reports which prime it is on", () => {

@@ -95,7 +95,8 @@ describe("the homogenised route (F^h, basis, h = 1, inter-reduction)", () => {
     // G^h = {x^2 - y*h, x*y*h - x*h^2, y^2*h^2 - y*h^3}: h divides two leading monomials, yet the
     // counts agree, so equal counts do not prove saturation (the decision rule only needs growth).
     expect(show(Gh)).toEqual(["x^2 - y*h", "x*y*h - x*h^2", "y^2*h^2 - y*h^3"]);
-    expect(homogenisedGrowth(Fh, new Limits())).toEqual({ homogenised: 3, dehomogenised: 3, terms: 6 }); // the three binomials above
+    // The three binomials above; only x^2 is free of h, and it does not divide x*y or y^2: not saturated.
+    expect(homogenisedGrowth(Fh, new Limits())).toEqual({ homogenised: 3, dehomogenised: 3, terms: 6, saturated: false, hFreeLeads: [Int32Array.of(2, 2, 0)] });
     // SymPy 1.14: groebner([x**2 - y, x**3 - x], x, y, order='grevlex') = [x**2 - y, x*y - x, y**2 - y]
     expect([...show(viaRoute(F))].sort()).toEqual(["x*y - x", "x^2 - y", "y^2 - y"].sort());
   });
