@@ -5,7 +5,7 @@
  * cancelled mid-task, and forked again for the next one.
  */
 import type { LiftCandidate, MultiModularInput, ProofBatch } from "@domain/algebra/f4/multimodular";
-import type { ModularImage } from "@domain/algebra/f4/multimodular";
+import type { ImageTracing, ModularImage } from "@domain/algebra/f4/multimodular";
 import { encodeImage, encodeImageBatch, imageModPrime, proveBatch } from "@domain/algebra/f4/multimodular";
 import { Limits } from "@domain/algebra/groebner/limits";
 
@@ -36,6 +36,10 @@ function keep<T>(m: Map<string, T>, key: string, value: T): T {
 // adds images in prime order, so it has decoded that earlier image before it meets this one.
 const lastImage = new Map<string, ModularImage>();
 
+// Per run, the F4 run this process learnt at its first prime and replays at the others
+// (domain/algebra/f4/trace.ts): a replay gives the same image as F4 afresh, or declines and F4 runs.
+const tracings = new Map<string, ImageTracing>();
+
 process.on("disconnect", () => process.exit(1));
 process.on("message", (raw) => {
   const req = raw as TaskRequest;
@@ -45,7 +49,8 @@ process.on("message", (raw) => {
     const limits = new Limits({ deadline: req.deadline });
     if (req.kind === "image") {
       const input = keep(inputs, req.runId, req.input);
-      const images = req.primes.map((p) => imageModPrime(input, p, limits));
+      const tracing = keep(tracings, req.runId, { trace: undefined, replayed: 0, declined: 0 });
+      const images = req.primes.map((p) => imageModPrime(input, p, limits, undefined, undefined, tracing));
       const like = lastImage.get(req.runId);
       const first = like && like.p > images[0].p ? like : undefined;
       const bytes = images.length === 1 ? encodeImage(images[0], first) : encodeImageBatch(images, first);
