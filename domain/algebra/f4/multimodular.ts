@@ -112,6 +112,16 @@ interface Group {
 const RETRY_GROWTH = 1.03;
 
 /**
+ * `proveEarly` proves a reconstruction at once only up to this many primes; after that it waits
+ * for a fresh prime to agree, as without the option. Early proofs pay where the basis lifts from
+ * a few primes and a proof costs about one image (the two-site cycles: 3–4 primes); with hundreds
+ * of primes an extra image costs a fraction of a percent, while a proof of a wrong reconstruction
+ * on coefficients of thousands of bits runs for minutes (the three-site cycle with k3, k6
+ * symbolic: no end 5 minutes after a reconstruction at its 383rd prime; measured here).
+ */
+const EARLY_PROOF_PRIMES = 8;
+
+/**
  * What every worker needs to compute one image or one proof batch, as plain data: variables,
  * order and generators as exact text (ring.format / ring.parse round-trip exactly), and for lex
  * and block orders the proven grevlex basis that step 3 of the proof checks membership against.
@@ -675,7 +685,7 @@ export function multiModularGroebnerQQ(
       candidate = lifter.add(image);
       stats.unlucky = lifter.unlucky;
       if (candidate) break;
-      const early = options.proveEarly ? lifter.reconstructed() : null;
+      const early = options.proveEarly && k <= EARLY_PROOF_PRIMES ? lifter.reconstructed() : null;
       if (early) {
         if (prove(early)) { stats.liftMs += lifter.liftMs; return candidateBasis(input, early); }
         lifter.reject(); // reconstructed from too few primes
