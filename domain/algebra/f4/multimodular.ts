@@ -660,8 +660,10 @@ export function multiModularGroebnerQQ(
   const tracing: ImageTracing | undefined = options.traced === false ? undefined : { trace: undefined, replayed: 0, declined: 0 };
   const result = lift();
   if (options.replays && tracing) { options.replays.replayed += tracing.replayed; options.replays.declined += tracing.declined; }
-  if (result === null && tracing && tracing.replayed > 0 && stats.failed !== "hilbert") {
+  const proofFailed = stats.failed === "groebner" || stats.failed === "inputs" || stats.failed === "membership";
+  if (result === null && tracing && tracing.replayed > 0 && proofFailed) {
     // A replay can miss a row that reduces to zero only at the learning prime; the plain run cannot.
+    // (Out of primes, the caller's fallback answers instead: a rerun would double a hopeless run.)
     return multiModularGroebnerQQ(polys, limits, { ...options, stats, traced: false });
   }
   return result;
