@@ -62,6 +62,24 @@ describe("F4 replayed from a learnt run (trace.ts) equals F4 run afresh", () => 
     expect(plain(atQ)).toEqual(plain(imageModPrime(input, q, new Limits())));
   });
 
+  it("runs untraced when a replayed lift fails its proof: a row that is zero only at the learning prime", () => {
+    // x − y and x − (1 + p0)·y: their difference −p0·y vanishes at the learning prime p0, so the
+    // learnt run has one element and every replay repeats it; over Q the basis is {y, x}. In lex,
+    // with the grevlex basis as reference (proof step 3 by membership; in grevlex step 3 itself
+    // would fail at p0, which the traced and the untraced run share).
+    const R = new PolynomialRing(["x", "y"], QQ, "lex");
+    const [p0] = [...liftPrimes(multiModularInput([R.parse("x - y")]))].slice(0, 1);
+    const F = ["x - y", `x - ${1 + p0}*y`].map((s) => R.parse(s));
+    const Rg = R.withOrder("grevlex");
+    const reference = groebnerBasis(["x - y", `x - ${1 + p0}*y`].map((s) => Rg.parse(s)));
+    expect(reference.map((g) => Rg.format(g))).toEqual(["y", "x"]);
+    const replays = { replayed: 0, declined: 0 };
+    const G = multiModularGroebnerQQ(F, new Limits(), { replays, reference });
+    expect(replays.replayed).toBeGreaterThan(0);
+    expect(G?.map((g) => R.format(g))).toEqual(["y", "x"]);
+    expect(G?.map((g) => R.format(g))).toEqual(groebnerBasis(F, { method: "buchberger" }).map((g) => R.format(g)));
+  });
+
   it("does not trace the unit ideal", () => {
     const { tracing } = compare(["x", "y"], "grevlex", ["x*y - 1", "x^2 - 1/3", "y - 5"], 2);
     expect(tracing.trace).toBeNull();
