@@ -96,14 +96,10 @@ export class F4Recorder {
       ncols,
       degree,
       pivots: pivots.map((r) => ({ src: this.slot(r.f), cols: r.cols })),
-      rows: rows.map((r) => ({ src: this.slot(r.f), cols: r.cols, out: -1, outCols: r.resultCols, skip })),
+      rows: rows.map((r) => ({ src: this.slot(r.f), cols: r.cols, out: this.next++, outCols: r.resultCols, skip })),
       resultsPivot,
     };
-    rows.forEach((r, k) => {
-      const out = this.next++;
-      this.slotOf.set(r.result, out);
-      (m.rows[k] as { out: number }).out = out;
-    });
+    rows.forEach((r, k) => this.slotOf.set(r.result, m.rows[k].out));
     this.ops.push({ kind: "matrix", matrix: m });
   }
 
