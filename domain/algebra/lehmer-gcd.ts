@@ -20,19 +20,7 @@ export function lehmerGcd(a: bigint, b: bigint, small: (a: bigint, b: bigint) =>
     const bitsA = bitLength(a);
     if (bitsA <= LEHMER_MIN_BITS) return small(a, b);
     tick?.(); // one round is O(size) work: a cheap place for a deadline check
-    const shift = BigInt(bitsA - PRECISION);
-    let ah = Number(a >> shift), bh = Number(b >> shift);
-    // Cofactors: the true remainders are A·a + B·b and C·a + D·b.
-    let A = 1, B = 0, C = 0, D = 1;
-    for (;;) {
-      // Both bounds of the true quotient must exist and agree (Knuth's step L2).
-      if (bh + C <= 0 || bh + D <= 0 || ah + A < 0 || ah + B < 0) break;
-      const q = floorDiv(ah + A, bh + C);
-      if (q !== floorDiv(ah + B, bh + D)) break;
-      let t = A - q * C; A = C; C = t;
-      t = B - q * D; B = D; D = t;
-      t = ah - q * bh; ah = bh; bh = t;
-    }
+    const { A, B, C, D } = lehmerCofactors(a, b, bitsA);
     if (B === 0) {
       // The leading digits decided nothing: one ordinary division step.
       const r = a % b;
@@ -50,6 +38,28 @@ export function lehmerGcd(a: bigint, b: bigint, small: (a: bigint, b: bigint) =>
     }
   }
   return a;
+}
+
+/**
+ * One round of Lehmer's simulation (Knuth's steps L1–L3) for a ≥ b > 0, `bitsA` = bitLength(a):
+ * the cofactors of as many Euclid steps as the leading PRECISION bits decide, each with a quotient
+ * of at most `maxQuotient`. The true remainders after them are A·a + B·b and C·a + D·b; B = 0 means
+ * no step was decided (do one ordinary division).
+ */
+export function lehmerCofactors(a: bigint, b: bigint, bitsA: number, maxQuotient = Infinity): { A: number; B: number; C: number; D: number } {
+  const shift = BigInt(bitsA - PRECISION);
+  let ah = Number(a >> shift), bh = Number(b >> shift);
+  let A = 1, B = 0, C = 0, D = 1;
+  for (;;) {
+    // Both bounds of the true quotient must exist and agree (Knuth's step L2).
+    if (bh + C <= 0 || bh + D <= 0 || ah + A < 0 || ah + B < 0) break;
+    const q = floorDiv(ah + A, bh + C);
+    if (q !== floorDiv(ah + B, bh + D) || q > maxQuotient) break;
+    let t = A - q * C; A = C; C = t;
+    t = B - q * D; B = D; D = t;
+    t = ah - q * bh; ah = bh; bh = t;
+  }
+  return { A, B, C, D };
 }
 
 /** Bits of precision simulated in doubles; quotients, cofactors and partial remainders stay < 2^53. */

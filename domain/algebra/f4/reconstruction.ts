@@ -1,4 +1,5 @@
 import { invMod } from "../field";
+import { bitLength as lehmerBitLength, isHuge, lehmerCofactors } from "../lehmer-gcd";
 import { gcdBig } from "../rational";
 import type { Rational } from "../rational";
 
@@ -35,6 +36,24 @@ export function mqrr(u: bigint, m: bigint, logm = bitLength(m)): Rational | null
   if (u === 0n) return m > T ? { num: 0n, den: 1n } : null;
   let n = 0n, d = 0n;
   let r0 = m, r1 = u, t0 = 0n, t1 = 1n;
+  // Lehmer's method while the remainders are long (lehmer-gcd.ts): the rounds take only quotients
+  // up to 2^20, below T (T ≥ 2^20·log2(m) and r0 > 2^LEHMER_MIN_BITS here), so every quotient that
+  // could be the maximal one comes from an ordinary division step, where it is compared. The
+  // quotient sequence, hence the result, is the plain loop's (tested against it).
+  while (r1 !== 0n && isHuge(r1)) {
+    const { A, B, C, D } = lehmerCofactors(r0, r1, lehmerBitLength(r0), SMALL_QUOTIENT);
+    if (B === 0) {
+      const q = r0 / r1;
+      if (q > T) { n = r1; d = t1; T = q; }
+      const r2 = r0 - q * r1; r0 = r1; r1 = r2;
+      const t2 = t0 - q * t1; t0 = t1; t1 = t2;
+    } else {
+      const a = BigInt(A), b = BigInt(B), c = BigInt(C), e = BigInt(D);
+      const nr0 = a * r0 + b * r1, nr1 = c * r0 + e * r1;
+      const nt0 = a * t0 + b * t1, nt1 = c * t0 + e * t1;
+      r0 = nr0; r1 = nr1; t0 = nt0; t1 = nt1;
+    }
+  }
   while (r1 !== 0n && r0 > T) {
     const q = r0 / r1;
     if (q > T) { n = r1; d = t1; T = q; }
@@ -44,6 +63,9 @@ export function mqrr(u: bigint, m: bigint, logm = bitLength(m)): Rational | null
   if (d === 0n || gcdBig(n, d) !== 1n) return null;
   return d < 0n ? { num: -n, den: -d } : { num: n, den: d };
 }
+
+/** Largest quotient a Lehmer round of mqrr may take (see there). */
+const SMALL_QUOTIENT = 2 ** 20;
 
 /** Rational r modulo a prime p (null when p divides the denominator). */
 export function rationalModP(r: Rational, p: number, P: bigint = BigInt(p)): number | null {

@@ -27,6 +27,42 @@ describe("Chinese remaindering and rational reconstruction", () => {
     expect(mqrr(u, M)).toEqual({ num, den });
   });
 
+  it("takes the same quotients with Lehmer's rounds on long numbers as the plain loop (1500–4900-bit numerators and denominators modulo a 9689-bit prime)", () => {
+    // The plain maximal-quotient loop as Monagan (ISSAC 2004) states it, the reference here.
+    const plain = (u: bigint, m: bigint, logm: number) => {
+      let T = (1n << 20n) * BigInt(logm), n = 0n, d = 0n, r0 = m, r1 = u, t0 = 0n, t1 = 1n;
+      while (r1 !== 0n && r0 > T) {
+        const q = r0 / r1;
+        if (q > T) { n = r1; d = t1; T = q; }
+        [r0, r1] = [r1, r0 - q * r1];
+        [t0, t1] = [t1, t0 - q * t1];
+      }
+      const g = (a: bigint, b: bigint): bigint => (b === 0n ? (a < 0n ? -a : a) : g(b, a % b));
+      if (d === 0n || g(n, d) !== 1n) return null;
+      return d < 0n ? { num: -n, den: -d } : { num: n, den: d };
+    };
+    let seed = 12345n;
+    const rnd = (bits: number) => { // a deterministic pseudo-random integer of about `bits` bits
+      let x = 0n;
+      for (let k = 0; k < bits; k += 31) { seed = (seed * 1103515245n + 12345n) % 2147483648n; x = (x << 31n) | seed; }
+      return x >> BigInt(Math.max(0, Math.ceil(bits / 31) * 31 - bits));
+    };
+    const m = 2n ** 9689n - 1n, logm = 9689; // a Mersenne prime (exponent recalled from memory): every denominator is invertible
+    let reconstructed = 0;
+    for (const bits of [1500, 2500, 4000, 4900]) {
+      for (let k = 0; k < 3; k++) {
+        const num = rnd(bits) * (k % 2 ? -1n : 1n), den = rnd(bits) | 1n;
+        const u = (((num % m) + m) % m) * modInv(den, m) % m;
+        const want = plain(u, m, logm);
+        expect(mqrr(u, m, logm)).toEqual(want);
+        if (want) reconstructed++;
+        const noise = rnd(9000) % m; // almost surely no small fraction: both must refuse alike
+        expect(mqrr(noise, m, logm)).toEqual(plain(noise, m, logm));
+      }
+    }
+    expect(reconstructed).toBeGreaterThanOrEqual(6); // the fractions below half the modulus' size come back
+  });
+
   it("refuses when the modulus is too small for the fraction, and maps rationals mod p", () => {
     const m = 1000003n;
     const u = (123456n * modInv(654321n, m)) % m;
