@@ -1,5 +1,5 @@
 import { invMod } from "../field";
-import { bitLength as lehmerBitLength, isHuge, lehmerCofactors } from "../lehmer-gcd";
+import { bitLength, isHuge, lehmerCofactors } from "../lehmer-gcd";
 import { gcdBig } from "../rational";
 import type { Rational } from "../rational";
 
@@ -17,10 +17,8 @@ export function crtStep(a: bigint, M: bigint, b: number, p: number, mInvP: numbe
   return a + M * BigInt(t);
 }
 
-/** bit length of a positive bigint. */
-export function bitLength(m: bigint): number {
-  return m.toString(2).length;
-}
+/** Bit length of a positive bigint (the integer layer's one, lehmer-gcd.ts). */
+export { bitLength };
 
 /**
  * Maximal-quotient rational reconstruction (Monagan, "Maximal quotient rational reconstruction:
@@ -41,7 +39,7 @@ export function mqrr(u: bigint, m: bigint, logm = bitLength(m)): Rational | null
   // could be the maximal one comes from an ordinary division step, where it is compared. The
   // quotient sequence, hence the result, is the plain loop's (tested against it).
   while (r1 !== 0n && isHuge(r1)) {
-    const { A, B, C, D } = lehmerCofactors(r0, r1, lehmerBitLength(r0), SMALL_QUOTIENT);
+    const { A, B, C, D } = lehmerCofactors(r0, r1, bitLength(r0), SMALL_QUOTIENT);
     if (B === 0) {
       const q = r0 / r1;
       if (q > T) { n = r1; d = t1; T = q; }

@@ -136,7 +136,7 @@ export function replayF4(trace: F4Trace, inputs: readonly F4Poly[], p: number, l
     slots[i] = inputs[i].coeffs;
   }
   const elim = new Eliminator(p, limits);
-  let rows = 0;
+  let rows = 0, made = 0; // rows reduced so far; of them, new basis elements (F4's lower rows)
   for (const op of trace.ops) {
     if (op.kind === "monic") {
       const src = slots[op.src];
@@ -151,9 +151,10 @@ export function replayF4(trace: F4Trace, inputs: readonly F4Poly[], p: number, l
     } else {
       const m = op.matrix;
       rows += m.rows.length;
+      if (m.resultsPivot) made += m.rows.length;
       limits.checkTime();
       limits.progress({
-        pairsLeft: 0, basisSize: rows, degree: m.degree, reductions: rows,
+        pairsLeft: 0, basisSize: made, degree: m.degree, reductions: rows,
         matrixRows: m.pivots.length + m.rows.length, matrixColumns: m.ncols,
         ...(prime ? { prime: prime.k, primes: prime.of } : {}),
       });
