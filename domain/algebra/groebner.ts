@@ -8,7 +8,7 @@ import { f4GroebnerModP, f4SupportsPrime } from "./f4/prime-field";
 import type { SelectionStrategy } from "./groebner/buchberger";
 import { buchberger, defaultStrategy } from "./groebner/buchberger";
 import { clearDenominators, coefficientsFor, fromEngine, toEngine } from "./groebner/convert";
-import { dehomogenisedBasis, homogenise, homogenisedGrowth, isPlainGrevlex } from "./groebner/homogenise";
+import { dehomogenisedBasis, homogenise, homogenisedGrowth, homogeniseInto, isPlainGrevlex, orderWithH } from "./groebner/homogenise";
 import type { LimitOptions } from "./groebner/limits";
 import { Limits } from "./groebner/limits";
 import { modularGroebnerQQ, plainFractionFree } from "./groebner/modular";
@@ -204,7 +204,9 @@ function blockOrderQQ(
       if (!(e instanceof AlgebraError) || e.code !== "budget" || !e.message.startsWith(TRIAL)) throw e;
     }
   }
-  return multiModularGroebnerQQ(qpolys, limits, { reference: grevlex, proveEarly: true, primeLimit: BLOCK_PRIME_LIMIT });
+  const Rh = homogeniseInto(grevlex, orderWithH(qpolys[0].ring));
+  const Gh = multiModularGroebnerQQ(Rh.polys, limits, { reference: grevlex, series: true, proveEarly: true, primeLimit: BLOCK_PRIME_LIMIT });
+  return Gh === null ? null : dehomogenisedBasis(Gh, qpolys[0].ring, limits);
 }
 
 /**

@@ -22,6 +22,7 @@ import { MonomialTable } from "./monomial-table";
 import { isGradedOrder } from "./prime-field";
 import type { F4Trace, ReplayStats } from "./trace";
 import { F4Recorder, replayF4 } from "./trace";
+import { hilbertNumerator, sameNumerator } from "../hilbert-series";
 import { bitLength, crtStep, guidedReconstruction, rationalModP } from "./reconstruction";
 
 /**
@@ -41,7 +42,7 @@ export interface MultiModularStats {
   /** Of proofMs: Buchberger's criterion (step 1). */
   criterionMs?: number;
   /** Which proof step failed, when the result could not be proven (the caller falls back). */
-  failed?: "groebner" | "inputs" | "hilbert" | "membership" | "primes";
+  failed?: "groebner" | "inputs" | "hilbert" | "membership" | "series" | "primes";
 }
 
 export interface MultiModularOptions {
@@ -63,6 +64,13 @@ export interface MultiModularOptions {
   readonly proveEarly?: boolean;
   /** Primes below this bound (default LIFT_PRIME_LIMIT, at most 2^26 for f4.ts). */
   readonly primeLimit?: number;
+  /**
+   * The generators are homogeneous and generate I^h (last variable h), where `reference` is a
+   * proven grevlex basis of I in the other variables; the order is >_h (homogeniseInto). The
+   * proof is then by Hilbert series instead of S-pairs (proveBatch, "series"), and the result is
+   * the reduced basis of I^h in >_h, whose h = 1 is a Gröbner basis of I in > (homogenise.ts).
+   */
+  readonly series?: boolean;
   /**
    * Learn the F4 run at the first prime and replay it at the others (trace.ts; default true).
    * A traced lift whose proof fails is run again untraced, so the result never depends on it.
@@ -135,6 +143,8 @@ export interface MultiModularInput {
   readonly reference?: readonly string[];
   /** Lift with primes below this bound (default 2^21); part of the input so every worker uses the same primes. */
   readonly primeLimit?: number;
+  /** Generators of I^h for `reference`'s I, proof by Hilbert series (MultiModularOptions.series). */
+  readonly series?: boolean;
 }
 
 /**
@@ -164,13 +174,15 @@ export interface LiftCandidate {
 /**
  * One independent part of the exact proof (see multiModularGroebnerQQ): the S-pairs of
  * Buchberger's criterion whose index is `index` modulo `of`; every input reduces to zero; step 3
- * (Hilbert functions at prime `p`, or membership in the reference basis).
+ * (Hilbert functions at prime `p`, or membership in the reference basis); for `series` inputs
+ * instead: elements `index` modulo `of` lie in I^h, and (batch 0) the Hilbert series agree.
  */
 export type ProofBatch =
   | { readonly kind: "pairs"; readonly index: number; readonly of: number }
   | { readonly kind: "inputs" }
   | { readonly kind: "hilbert"; readonly p: number }
-  | { readonly kind: "membership" };
+  | { readonly kind: "membership" }
+  | { readonly kind: "series"; readonly index: number; readonly of: number };
 
 export type ProofOutcome = { readonly ok: true } | { readonly ok: false; readonly failed: NonNullable<MultiModularStats["failed"]> };
 
@@ -186,7 +198,9 @@ interface Prepared {
   readonly integer: EPoly<bigint>[];
   readonly T: MonomialTable;
   readonly inputMons: Int32Array[];
+  /** In the input ring's variables (h-free for `series`), grevlex. */
   readonly reference: Polynomial<Rational>[] | null;
+  readonly series: boolean;
   /** Step 3's h-free leads per prime (the single-process run computes them with its first image). */
   readonly hFree: Map<number, HFreeLeads>;
   /** Interned monomials of an image's exponents (images decoded on a shared support share the array). */
@@ -200,7 +214,7 @@ interface Prepared {
 const prepared = new WeakMap<MultiModularInput, Prepared>();
 
 /** The plain-data input for `polys` (and a grevlex `reference` for lex and block orders). */
-export function multiModularInput(polys: readonly Polynomial<Rational>[], reference?: readonly Polynomial<Rational>[], primeLimit?: number): MultiModularInput {
+export function multiModularInput(polys: readonly Polynomial<Rational>[], reference?: readonly Polynomial<Rational>[], primeLimit?: number, series = false): MultiModularInput {
   const ring = polys[0].ring;
   const nonzero = polys.filter((p) => p.coeffs.length > 0);
   const input: MultiModularInput = {
@@ -209,13 +223,17 @@ export function multiModularInput(polys: readonly Polynomial<Rational>[], refere
     polys: nonzero.map((p) => ring.format(p)),
     ...(reference ? { reference: reference.map((r) => r.ring.format(r)) } : {}),
     ...(primeLimit !== undefined ? { primeLimit } : {}),
+    ...(series ? { series } : {}),
   };
-  prepared.set(input, prepare(ring, nonzero, reference ? [...reference] : null));
+  prepared.set(input, prepare(ring, nonzero, reference ? reference.map((r) => ring.withOrder("grevlex").parse(r.ring.format(r))) : null, series));
   return input;
 }
 
-function prepare(ring: PolynomialRing<Rational>, polys: readonly Polynomial<Rational>[], reference: Polynomial<Rational>[] | null): Prepared {
+function prepare(ring: PolynomialRing<Rational>, polys: readonly Polynomial<Rational>[], reference: Polynomial<Rational>[] | null, series: boolean): Prepared {
   const n = ring.n;
+  if (series && (reference === null || reference.some((r) => r.coeffs.length > 0 && hasLast(r)))) {
+    throw new AlgebraError("domain", "multi-modular input: a Hilbert-series proof needs a reference basis free of the last variable h");
+  }
   const integer = polys.filter((p) => p.coeffs.length > 0).map((p) => clearDenominators(toEngine(p)));
   const T = new MonomialTable(n);
   const inputMons = integer.map((f) => {
@@ -224,7 +242,7 @@ function prepare(ring: PolynomialRing<Rational>, polys: readonly Polynomial<Rati
     return mons;
   });
   const graded = isGradedOrder(ring as Polynomial<unknown>["ring"]);
-  return { ring, graded, integer, T, inputMons, reference, hFree: new Map(), interned: new WeakMap(), parsed: new WeakMap(), integerCandidates: new WeakMap() };
+  return { ring, graded, integer, T, inputMons, reference, series, hFree: new Map(), interned: new WeakMap(), parsed: new WeakMap(), integerCandidates: new WeakMap() };
 }
 
 function preparedFor(input: MultiModularInput): Prepared {
@@ -232,7 +250,7 @@ function preparedFor(input: MultiModularInput): Prepared {
   if (!p) {
     const ring = new PolynomialRing(input.vars, QQ, input.order);
     const reference = input.reference ? input.reference.map((r) => ring.withOrder("grevlex").parse(r)) : null;
-    p = prepare(ring, input.polys.map((s) => ring.parse(s)), reference);
+    p = prepare(ring, input.polys.map((s) => ring.parse(s)), reference, input.series === true);
     prepared.set(input, p);
   }
   return p;
@@ -437,6 +455,7 @@ export function liftImages(input: MultiModularInput, images: readonly ModularIma
 export function proofBatches(input: MultiModularInput, candidate: LiftCandidate, pairBatches = 1): ProofBatch[] {
   const pr = preparedFor(input);
   const of = Math.max(1, Math.floor(pairBatches));
+  if (pr.series) return Array.from({ length: of }, (_, index) => ({ kind: "series", index, of }) as const);
   return [
     ...Array.from({ length: of }, (_, index) => ({ kind: "pairs", index, of }) as const),
     { kind: "inputs" } as const,
@@ -483,6 +502,7 @@ export function proveBatch(input: MultiModularInput, candidate: LiftCandidate, b
     Gz.sort((a, b) => cmp(a.exps, 0, b.exps, 0));
     pr.integerCandidates.set(candidate, Gz); // the next batch in this process starts from here
   }
+  if (batch.kind === "series") return proveSeriesBatch(pr, G, Gz, batch, limits) ? { ok: true } : { ok: false, failed: "series" };
   if (batch.kind === "pairs") {
     return verifyGroebner(Gz, K, n, cmp, limits, { index: batch.index, of: batch.of }) ? { ok: true } : { ok: false, failed: "groebner" };
   }
@@ -651,7 +671,7 @@ export function multiModularGroebnerQQ(
 ): Polynomial<Rational>[] | null {
   const stats: MultiModularStats = options.stats ?? { primes: 0, unlucky: 0, modularMs: 0, liftMs: 0, proofMs: 0 };
   const maxPrimes = options.maxPrimes ?? 1000;
-  const input = multiModularInput(polys, options.reference, options.primeLimit);
+  const input = multiModularInput(polys, options.reference, options.primeLimit, options.series === true);
   if (!canLift(input)) return null;
   if (options.hFreeLeads) preparedFor(input).hFree.set(options.hFreeLeads.p, { n: polys[0].ring.n, leads: [...options.hFreeLeads.leads] });
   const graded = isGradedOrder(polys[0].ring as Polynomial<unknown>["ring"]);
@@ -660,7 +680,7 @@ export function multiModularGroebnerQQ(
   const tracing: ImageTracing | undefined = options.traced === false ? undefined : { trace: undefined, replayed: 0, declined: 0 };
   const result = lift();
   if (options.replays && tracing) { options.replays.replayed += tracing.replayed; options.replays.declined += tracing.declined; }
-  const proofFailed = stats.failed === "groebner" || stats.failed === "inputs" || stats.failed === "membership";
+  const proofFailed = stats.failed === "groebner" || stats.failed === "inputs" || stats.failed === "membership" || stats.failed === "series";
   if (result === null && tracing && tracing.replayed > 0 && proofFailed) {
     // A replay can miss a row that reduces to zero only at the learning prime; the plain run cannot.
     // (Out of primes, the caller's fallback answers instead: a rerun would double a hopeless run.)
@@ -831,6 +851,51 @@ function agreesModP(cand: readonly { mons: number[]; coeffs: Rational[] }[], Gp:
     for (let t = 0; t < g.mons.length; t++) if (got.get(g.mons[t]) !== g.coeffs[t]) return false;
   }
   return true;
+}
+
+/**
+ * The Hilbert-series proof for a `series` input (I^h generated by the input, R = `reference` a
+ * proven grevlex basis of I, h the last variable, the order >_h): a candidate G is the reduced
+ * basis of I^h when
+ *  (a) every g ∈ G is homogeneous and g(x, 1) ∈ I — then g = h^k·(g(x, 1))^h ∈ I^h (Cox, Little,
+ *      O'Shea, 4th ed. 2015, ch. 8 §4: I^h is spanned by the f^h, f ∈ I; recalled from memory);
+ *      g(x, 1) ∈ I is decided by its remainder modulo R (ch. 2 §6, Corollary 2);
+ *  (b) HS(Q[x,h]/⟨LM(G)⟩) = HS(Q[x,h]/I^h). By (a), ⟨LM(G)⟩ ⊆ LM(I^h), and monomial ideals one
+ *      inside the other with equal Hilbert series are equal, so G is a Gröbner basis of I^h.
+ *      The right side is known exactly: R^h is a Gröbner basis of I^h in grevlex with h last
+ *      (ch. 8 §4, Theorem 4) with LM(r^h) = LM(r), so LM(I^h) = ⟨LM(R)⟩ in Q[x, h]
+ *      (hilbert-series.ts computes both numerators).
+ * No S-polynomial is formed. Batch `index` of `of` checks (a) for the elements index mod of, and
+ * batch 0 also (b) and the homogeneity.
+ */
+function proveSeriesBatch(pr: Prepared, G: readonly Polynomial<Rational>[], Gz: readonly EPoly<bigint>[], batch: { index: number; of: number }, limits: Limits): boolean {
+  const n = pr.ring.n, S = n + 1;
+  const reference = pr.reference;
+  if (!reference) return false;
+  if (batch.index === 0) {
+    for (const g of G) {
+      for (let t = 1; t < g.coeffs.length; t++) if (g.exps[t * S] !== g.exps[0]) return false;
+    }
+    const leads = (polys: readonly Polynomial<Rational>[]) => polys.filter((g) => g.coeffs.length > 0).map((g) => Array.from(g.exps.subarray(1, S)));
+    const tick = () => limits.checkTime();
+    if (!sameNumerator(hilbertNumerator(leads(G), n, tick), hilbertNumerator(leads(reference), n, tick))) return false;
+  }
+  // g(x, 1): h's exponent to 0 (terms of a homogeneous g keep distinct x-parts).
+  const mine = Gz.filter((_, e) => e % batch.of === batch.index).map((g) => {
+    const exps = Int32Array.from(g.exps);
+    for (let t = 0; t < g.coeffs.length; t++) {
+      exps[t * S] -= exps[t * S + n];
+      exps[t * S + n] = 0;
+    }
+    return { coeffs: g.coeffs, exps };
+  });
+  return allMembers(mine, reference, limits);
+}
+
+function hasLast(r: Polynomial<Rational>): boolean {
+  const S = r.ring.n + 1;
+  for (let t = 0; t < r.coeffs.length; t++) if (r.exps[t * S + r.ring.n] !== 0) return true;
+  return false;
 }
 
 /** Does every polynomial of `polys` (engine form, this ring's order) lie in the ideal of the Gröbner basis `reference`? */

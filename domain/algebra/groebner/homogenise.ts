@@ -2,6 +2,7 @@ import { AlgebraError } from "../errors";
 import { primeField } from "../field";
 import { f4GroebnerModP } from "../f4/prime-field";
 import { rationalModP } from "../f4/reconstruction";
+import type { OrderSpec } from "../order";
 import type { Polynomial } from "../polynomial";
 import { normalizeTerms } from "../polynomial";
 import type { Rational } from "../rational";
@@ -50,9 +51,21 @@ export function freshVariable(vars: readonly string[]): string {
  */
 export function homogenise(polys: readonly Polynomial<Rational>[]): { ring: PolynomialRing<Rational>; polys: Polynomial<Rational>[] } {
   if (polys.length === 0) throw new AlgebraError("domain", "homogenise: needs at least one polynomial");
+  if (!isPlainGrevlex(polys[0].ring)) throw new AlgebraError("domain", "homogenise: only for grevlex in one block");
+  return homogeniseInto(polys, "grevlex");
+}
+
+/**
+ * F^h in Q[vars, h] (h a new last variable) under `order` on all n + 1 variables; the ring of
+ * `polys` may have any order. With `order` = the blocks of an order > followed by lex(1) for h,
+ * a homogeneous polynomial's terms are ordered as > orders their dehomogenisations (the x-parts
+ * of its terms are distinct and compared first), which is Cox, Little, O'Shea's >_h (ch. 8 §4)
+ * for any >; f4/multimodular.ts's Hilbert-series proof lifts bases of I^h in it.
+ */
+export function homogeniseInto(polys: readonly Polynomial<Rational>[], order: OrderSpec | string): { ring: PolynomialRing<Rational>; polys: Polynomial<Rational>[] } {
+  if (polys.length === 0) throw new AlgebraError("domain", "homogenise: needs at least one polynomial");
   const base = polys[0].ring;
-  if (!isPlainGrevlex(base)) throw new AlgebraError("domain", "homogenise: only for grevlex in one block");
-  const ring = new PolynomialRing([...base.vars, freshVariable(base.vars)], base.field, "grevlex");
+  const ring = new PolynomialRing([...base.vars, freshVariable(base.vars)], base.field, order);
   const n = base.n, S = n + 1, T = n + 2;
   const out = polys.filter((p) => p.coeffs.length > 0).map((p) => {
     const len = p.coeffs.length;
@@ -67,6 +80,11 @@ export function homogenise(polys: readonly Polynomial<Rational>[]): { ring: Poly
     return normalizeTerms(ring, p.coeffs, exps);
   });
   return { ring, polys: out };
+}
+
+/** `ring`'s order followed by lex(1) for a new last variable h (>_h, see homogeniseInto). */
+export function orderWithH(ring: PolynomialRing<unknown>): OrderSpec {
+  return [...ring.order, { kind: "lex", size: 1 }];
 }
 
 /**

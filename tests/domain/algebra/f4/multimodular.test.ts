@@ -2,9 +2,9 @@ import { describe, expect, it } from "vitest";
 import { AlgebraError, PolynomialRing, QQ, groebnerBasis } from "@domain/algebra/index";
 import type { Progress } from "@domain/algebra/groebner/limits";
 import { Limits } from "@domain/algebra/groebner/limits";
-import type { MultiModularStats } from "@domain/algebra/f4/multimodular";
-import { firstLiftPrime, multiModularGroebnerQQ } from "@domain/algebra/f4/multimodular";
-import { homogenise, homogenisedGrowth } from "@domain/algebra/groebner/homogenise";
+import type { LiftCandidate, MultiModularStats } from "@domain/algebra/f4/multimodular";
+import { firstLiftPrime, multiModularGroebnerQQ, multiModularInput, proofBatches, proveBatch } from "@domain/algebra/f4/multimodular";
+import { dehomogenisedBasis, homogenise, homogeniseInto, homogenisedGrowth, orderWithH } from "@domain/algebra/groebner/homogenise";
 import { cyclic, katsura, randomIdeal } from "../../../fixtures/algebra/systems";
 
 /**
@@ -111,5 +111,69 @@ describe("multi-modular F4 over Q agrees with Buchberger (reference implementati
     const ac = new AbortController();
     expect(code(() => groebnerBasis(polys, { method: "f4", signal: ac.signal, onProgress: (p) => { if (p.prime === 2) ac.abort(); } }))).toBe("cancelled");
     expect(code(() => groebnerBasis(polys, { method: "f4", maxBasisSize: 4 }))).toBe("budget");
+  });
+});
+
+/**
+ * Lex and block orders through I^h: the reduced basis of I^h in >_h lifted from the homogenised
+ * grevlex basis R^h and proven by Hilbert series (no S-pairs), then h = 1 and inter-reduction.
+ * Compared with the reference implementation's basis in the order itself; wrong candidates must
+ * fail the proof, each for its own reason.
+ */
+describe("the Hilbert-series proof through I^h (lex and block orders)", () => {
+  function viaSeries(vars: string[], order: string, polys: string[]) {
+    const R = new PolynomialRing(vars, QQ, order);
+    const F = polys.map((s) => R.parse(s));
+    const grevlex = R.withOrder("grevlex");
+    const G = groebnerBasis(F.map((f) => grevlex.parse(R.format(f))), { method: "buchberger" });
+    const Rh = homogeniseInto(G, orderWithH(R));
+    const stats = fresh();
+    const Gh = multiModularGroebnerQQ(Rh.polys, new Limits(), { reference: G, series: true, primeLimit: 2 ** 26, stats });
+    return { R, F, G, Rh, Gh, stats };
+  }
+
+  const orders = ["lex", "lex(1), grevlex(2)", "lex(2), grevlex(1)", "grevlex(1), lex(2)"];
+  for (let seed = 1; seed <= 8; seed++) {
+    const order = orders[seed % orders.length];
+    it(`random ideal ${seed} in ${order} (fractions${seed % 3 === 0 ? ", 30-digit coefficients" : ""}) equals Buchberger's basis in the order`, () => {
+      const s = randomIdeal(seed * 37, {
+        nvars: 3, npolys: 2, maxDegree: 2, minTerms: 2, minDegree: 1, maxTerms: 3, coeffBound: seed % 3 === 0 ? 10n ** 30n : 99n, fractions: true,
+      });
+      const { R, F, Gh, stats } = viaSeries(s.vars, order, s.polys);
+      expect(stats.failed).toBeUndefined();
+      expect(Gh).not.toBeNull();
+      const ours = dehomogenisedBasis(Gh!, R, new Limits()).map((g) => R.format(g));
+      expect(ours).toEqual(groebnerBasis(F, { method: "buchberger" }).map((g) => R.format(g)));
+    });
+  }
+
+  it("rejects a missing element (series), a wrong coefficient (membership) and a non-homogeneous element", () => {
+    // A parametric steady state: x, y eliminated above the constant k (x + y = 1 conserved).
+    const { Rh, G, Gh } = viaSeries(["x", "y", "k"], "lex(2), grevlex(1)", ["k*x^2 - y", "x + y - 1", "x*y*k - 2*y^2"]);
+    expect(Gh).not.toBeNull();
+    const input = multiModularInput(Rh.polys, G, 2 ** 26, true);
+    const H = Rh.ring;
+    const proves = (basis: string[]) => {
+      const cand: LiftCandidate = { basis, primes: [], unlucky: [], checkedWith: 0 };
+      return proofBatches(input, cand, 2).map((b) => proveBatch(input, cand, b, new Limits()));
+    };
+    const good = Gh!.map((g) => H.format(g));
+    expect(proves(good).every((o) => o.ok)).toBe(true);
+    expect(proves(good.slice(1))[0]).toEqual({ ok: false, failed: "series" });
+    // A changed tail coefficient keeps the leading monomials (so the series) but leaves I^h.
+    const last = Gh!.length - 1, g = Gh![last];
+    const bent = H.format({ ...g, coeffs: g.coeffs.map((c, t) => (t === g.coeffs.length - 1 ? { num: c.num + 1n, den: c.den } : c)) });
+    expect(proves([...good.slice(0, last), bent]).some((o) => !o.ok)).toBe(true);
+    // The largest element plus one of another degree: same leading monomial, still in I^h, not homogeneous.
+    const low = Gh!.findIndex((x) => x.exps[0] !== g.exps[0]);
+    expect(low).toBeGreaterThanOrEqual(0);
+    const mixed = H.format(H.parse(`${good[last]} + (${good[low]})`));
+    expect(H.parse(mixed).exps.slice(0, H.stride)).toEqual(g.exps.slice(0, H.stride));
+    expect(proves([...good.slice(0, last), mixed])[0]).toEqual({ ok: false, failed: "series" });
+  });
+
+  it("needs a reference free of h", () => {
+    const R = new PolynomialRing(["x", "y", "h"], QQ, "lex(2), lex(1)");
+    expect(() => multiModularInput([R.parse("x*h - y^2")], [R.withOrder("grevlex").parse("x*h - y")], 2 ** 26, true)).toThrow(/free of the last variable/);
   });
 });
