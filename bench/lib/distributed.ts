@@ -15,7 +15,7 @@ import type { Polynomial, Rational } from "@domain/algebra/index";
 import { Limits } from "@domain/algebra/groebner/limits";
 import type { MultiModularStats } from "@domain/algebra/f4/multimodular";
 import { multiModularGroebnerQQ, multiModularInput } from "@domain/algebra/f4/multimodular";
-import { homogenisedRoute } from "@domain/algebra/f4/distribution";
+import { homogenisedRoute, seriesRoute } from "@domain/algebra/f4/distribution";
 import { ensureDatabase, serverUrl, startThrowawayCluster } from "../../scripts/db/postgres";
 import { outputTail, sleep, startProcess, type Managed } from "../../scripts/lib/processes";
 import { migrate } from "../../scripts/migrate";
@@ -84,7 +84,7 @@ function readSystem(root: string, name: string) {
   const R = new PolynomialRing(f.vars, QQ, f.order);
   const polys = f.polys.map((s) => R.parse(s));
   const graded = /^(grevlex|grlex)$/.test(f.order);
-  // Lex and block orders are proven against a grevlex basis (membership), computed first and not timed.
+  // Lex and block orders are proven against a grevlex basis (Hilbert series of I^h), computed first and not timed.
   let reference: Polynomial<Rational>[] | undefined;
   if (!graded) {
     const Rg = R.withOrder("grevlex");
@@ -98,7 +98,12 @@ async function measure(name: string, root: string, url: string, db: ReturnType<t
   // The CLI's path: one process, no database.
   let stats: MultiModularStats = { primes: 0, unlucky: 0, modularMs: 0, liftMs: 0, proofMs: 0 };
   const t0 = Date.now();
-  let single = multiModularGroebnerQQ(polys, new Limits(), { stats, ...(reference ? { reference } : {}) });
+  // Lex and block orders go through I^h with the Hilbert-series proof, as groebnerBasis does (f4/distribution.ts).
+  const series = reference ? seriesRoute(R, reference) : null;
+  const seriesInput = series?.input();
+  let single = series
+    ? (() => { const Gh = multiModularGroebnerQQ(series.polys, new Limits(), { stats, reference, series: true }); return Gh && series.finish(Gh, new Limits()); })()
+    : multiModularGroebnerQQ(polys, new Limits(), { stats });
   // Step 3 by Hilbert functions cannot prove an ideal whose homogenisation is not saturated (a
   // saturated steady-state ideal): as an analysis does, compute the homogenised ideal's basis and
   // set h = 1 (f4/distribution.ts, homogenisedRoute), here and in the distributed runs below.
@@ -122,8 +127,11 @@ async function measure(name: string, root: string, url: string, db: ReturnType<t
       const small = new PolynomialRing(["a", "b", "c"], QQ, "grevlex");
       await distributedGroebner(multiModularInput(["a^2 + b*c - 1", "b^2 - a*c + 2", "c^2 + a*b - 3"].map((s) => small.parse(s))), { db, databaseUrl: url, coordinatorId: "bench", window: 2 * k, pairBatches: 2 * k });
       const w0 = Date.now();
-      const outcome = await distributedGroebner(route ? route.input : multiModularInput(polys, reference), { db, databaseUrl: url, coordinatorId: "bench", window, pairBatches: batches });
-      const basis = route && outcome.basis ? route.finish(outcome.basis, new Limits()) : outcome.basis;
+      const outcome = await distributedGroebner(route ? route.input : seriesInput ?? multiModularInput(polys), { db, databaseUrl: url, coordinatorId: "bench", window, pairBatches: batches });
+      const basis = !outcome.basis ? outcome.basis
+        : route ? route.finish(outcome.basis, new Limits())
+        : series ? series.finish(outcome.basis.map((s) => series.polys[0].ring.parse(s)), new Limits()).map((g) => R.format(g))
+        : outcome.basis;
       const wallMs = Date.now() - w0;
       const ok = JSON.stringify(basis) === JSON.stringify(want);
       same &&= ok;

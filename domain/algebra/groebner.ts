@@ -1,14 +1,14 @@
 import { AlgebraError } from "./errors";
 import { isPrimeField, isRationalField } from "./field";
 import type { DistributionHook } from "./f4/distribution";
-import { distributedOrLocal } from "./f4/distribution";
+import { distributedOrLocal, seriesRoute } from "./f4/distribution";
 import type { MultiModularStats } from "./f4/multimodular";
 import { firstLiftPrime, multiModularGroebnerQQ } from "./f4/multimodular";
 import { f4GroebnerModP, f4SupportsPrime } from "./f4/prime-field";
 import type { SelectionStrategy } from "./groebner/buchberger";
 import { buchberger, defaultStrategy } from "./groebner/buchberger";
 import { clearDenominators, coefficientsFor, fromEngine, toEngine } from "./groebner/convert";
-import { dehomogenisedBasis, homogenise, homogenisedGrowth, homogeniseInto, isPlainGrevlex, orderWithH } from "./groebner/homogenise";
+import { dehomogenisedBasis, homogenise, homogenisedGrowth, isPlainGrevlex } from "./groebner/homogenise";
 import type { LimitOptions } from "./groebner/limits";
 import { Limits } from "./groebner/limits";
 import { modularGroebnerQQ, plainFractionFree } from "./groebner/modular";
@@ -182,10 +182,13 @@ const TRIAL = "Gröbner basis (trial of the traced run)";
 /**
  * A lex or block order on a positive-dimensional ideal over Q: the traced Buchberger run within
  * a step budget (reducing by dense rows, groebner/row-kernel.ts: these ideals' remainders are
- * long), then the reduced bases in the target order modulo primes below 2^26 (F4 on the
- * homogenised ideal, f4/homogenised-image.ts), lifted and proven against the
- * grevlex basis as soon as a candidate reconstructs (f4/multimodular.ts, `proveEarly`); null when
- * neither completes (the caller goes on).
+ * long), then through I^h (f4/distribution.ts, `seriesRoute`): the reduced bases of the
+ * homogenised grevlex basis in >_h modulo primes below 2^26 (F4 degree by degree,
+ * f4/homogenised-image.ts), lifted and proven by Hilbert series against the grevlex basis as soon
+ * as a candidate reconstructs (f4/multimodular.ts, `series`, `proveEarly`), then h = 1; null when
+ * neither completes (the caller goes on). The Hilbert-series proof replaced Buchberger's
+ * criterion in the block order, which was most of this path's time (two-site cycle, k3 and k6
+ * symbolic, warm: proof 60–64 → 16–19 ms, the route 96–97 → 66–69 ms; bench/README.md).
  */
 function blockOrderQQ(
   qpolys: Polynomial<Rational>[],
@@ -204,9 +207,9 @@ function blockOrderQQ(
       if (!(e instanceof AlgebraError) || e.code !== "budget" || !e.message.startsWith(TRIAL)) throw e;
     }
   }
-  const Rh = homogeniseInto(grevlex, orderWithH(qpolys[0].ring));
-  const Gh = multiModularGroebnerQQ(Rh.polys, limits, { reference: grevlex, series: true, proveEarly: true, primeLimit: BLOCK_PRIME_LIMIT });
-  return Gh === null ? null : dehomogenisedBasis(Gh, qpolys[0].ring, limits);
+  const route = seriesRoute(qpolys[0].ring, grevlex, BLOCK_PRIME_LIMIT);
+  const Gh = multiModularGroebnerQQ(route.polys, limits, { reference: grevlex, series: true, proveEarly: true, primeLimit: BLOCK_PRIME_LIMIT });
+  return Gh === null ? null : route.finish(Gh, limits);
 }
 
 /**

@@ -3,7 +3,7 @@ import type { Limits } from "../groebner/limits";
 import type { Polynomial } from "../polynomial";
 import type { Rational } from "../rational";
 import { QQ } from "../field";
-import { dehomogenisedBasis, homogenise, isPlainGrevlex } from "../groebner/homogenise";
+import { dehomogenisedBasis, homogenise, homogeniseInto, isPlainGrevlex, orderWithH } from "../groebner/homogenise";
 import { PolynomialRing } from "../ring";
 import type { ModularImage, MultiModularInput } from "./multimodular";
 import { canLift, imageModPrime, liftPrimes, multiModularInput } from "./multimodular";
@@ -77,5 +77,25 @@ export function homogenisedRoute(input: MultiModularInput): { input: MultiModula
   return {
     input: multiModularInput(H.polys, undefined, input.primeLimit),
     finish: (basis, limits) => dehomogenisedBasis(basis.map((s) => H.ring.parse(s)), ring, limits).map((g) => ring.format(g)),
+  };
+}
+
+/**
+ * Lex and block orders over Q, in one process or distributed: the homogenised grevlex basis R^h
+ * (R = `reference`, proven) in >_h, whose reduced basis multi-modular F4 lifts and proves by
+ * Hilbert series (multimodular.ts, `series`), and `finish`, which sets h = 1 and inter-reduces to
+ * the reduced basis of ⟨F⟩ in the ring's order (groebner/homogenise.ts has why that is it).
+ */
+export function seriesRoute(ring: PolynomialRing<Rational>, reference: readonly Polynomial<Rational>[], primeLimit?: number): {
+  polys: Polynomial<Rational>[];
+  /** The plain-data input for a distributed run (built on demand: the one-process run needs only `polys`). */
+  input: () => MultiModularInput;
+  finish: (basis: readonly Polynomial<Rational>[], limits: Limits) => Polynomial<Rational>[];
+} {
+  const H = homogeniseInto(reference, orderWithH(ring));
+  return {
+    polys: H.polys,
+    input: () => multiModularInput(H.polys, reference, primeLimit, true),
+    finish: (basis, limits) => dehomogenisedBasis(basis, ring, limits),
   };
 }
