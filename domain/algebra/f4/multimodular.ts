@@ -225,8 +225,18 @@ export function multiModularInput(polys: readonly Polynomial<Rational>[], refere
     ...(primeLimit !== undefined ? { primeLimit } : {}),
     ...(series ? { series } : {}),
   };
-  prepared.set(input, prepare(ring, nonzero, reference ? reference.map((r) => ring.withOrder("grevlex").parse(r.ring.format(r))) : null, series));
+  prepared.set(input, prepare(ring, nonzero, reference ? reference.map((r) => inGrevlexOf(ring, r)) : null, series));
   return input;
+}
+
+/** r (in the same variables, or in all but `ring`'s last) as a polynomial of `ring` in grevlex. */
+function inGrevlexOf(ring: PolynomialRing<Rational>, r: Polynomial<Rational>): Polynomial<Rational> {
+  const m = r.ring.n, n = ring.n;
+  if (m === n) return r;
+  if (m !== n - 1 || r.ring.vars.some((v, i) => ring.vars[i] !== v)) throw new AlgebraError("ring", "multi-modular input: the reference basis is in other variables");
+  const exps = new Int32Array(r.coeffs.length * (n + 1));
+  for (let t = 0; t < r.coeffs.length; t++) exps.set(r.exps.subarray(t * (m + 1), (t + 1) * (m + 1)), t * (n + 1));
+  return normalizeTerms(ring.withOrder("grevlex"), r.coeffs, exps);
 }
 
 function prepare(ring: PolynomialRing<Rational>, polys: readonly Polynomial<Rational>[], reference: Polynomial<Rational>[] | null, series: boolean): Prepared {
