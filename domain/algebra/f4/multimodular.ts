@@ -668,6 +668,8 @@ export function decodeImage(bytes: Uint8Array, like?: (p: number) => ModularImag
  *     For lex and block orders, given `reference` (a proven Gröbner basis R of ⟨F⟩ in grevlex):
  *     every g ∈ G reduces to zero modulo R, i.e. g ∈ ⟨R⟩ = ⟨F⟩ (Cox, Little, O'Shea, ch. 2 §6,
  *     Corollary 2: the remainder on division by a Gröbner basis decides membership).
+ * With `series` (lex and block orders through I^h, f4/distribution.ts `seriesRoute`) steps 1–3
+ * are replaced by the Hilbert-series proof of proveSeriesBatch, which forms no S-polynomial.
  * Returns null when a step cannot be completed (the caller then uses the traced Buchberger path,
  * which is proven by construction); `stats.failed` says which.
  *
