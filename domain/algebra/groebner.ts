@@ -1,7 +1,8 @@
 import { AlgebraError } from "./errors";
 import { isPrimeField, isRationalField } from "./field";
 import type { DistributionHook } from "./f4/distribution";
-import { distributedOrLocal, seriesRoute } from "./f4/distribution";
+import { blockOrderBasisQQ } from "./f4/block-order-lift";
+import { distributedOrLocal } from "./f4/distribution";
 import type { MultiModularStats } from "./f4/multimodular";
 import { firstLiftPrime, multiModularGroebnerQQ } from "./f4/multimodular";
 import { f4GroebnerModP, f4SupportsPrime } from "./f4/prime-field";
@@ -182,11 +183,10 @@ const TRIAL = "Gröbner basis (trial of the traced run)";
 /**
  * A lex or block order on a positive-dimensional ideal over Q: the traced Buchberger run within
  * a step budget (reducing by dense rows, groebner/row-kernel.ts: these ideals' remainders are
- * long), then through I^h (f4/distribution.ts, `seriesRoute`): the reduced bases of the
- * homogenised grevlex basis in >_h modulo primes below 2^26 (F4 degree by degree,
- * f4/homogenised-image.ts), lifted and proven by Hilbert series against the grevlex basis as soon
- * as a candidate reconstructs (f4/multimodular.ts, `series`, `proveEarly`), then h = 1; null when
- * neither completes (the caller goes on). The Hilbert-series proof replaced Buchberger's
+ * long), then through I^h (f4/block-order-lift.ts): the reduced bases of the homogenised
+ * grevlex basis in >_h modulo primes below 2^26 (F4 degree by degree, f4/homogenised-image.ts),
+ * lifted and proven by Hilbert series against the grevlex basis, and the basis of ⟨F⟩ lifted
+ * beside it and proven against it; null when neither completes (the caller goes on). The Hilbert-series proof replaced Buchberger's
  * criterion in the block order, which was most of this path's time (two-site cycle, k3 and k6
  * symbolic, warm: proof 60–64 → 16–19 ms, the route 96–97 → 66–69 ms; bench/README.md).
  */
@@ -207,9 +207,7 @@ function blockOrderQQ(
       if (!(e instanceof AlgebraError) || e.code !== "budget" || !e.message.startsWith(TRIAL)) throw e;
     }
   }
-  const route = seriesRoute(qpolys[0].ring, grevlex, BLOCK_PRIME_LIMIT);
-  const Gh = multiModularGroebnerQQ(route.polys, limits, { reference: grevlex, series: true, proveEarly: true, primeLimit: BLOCK_PRIME_LIMIT });
-  return Gh === null ? null : route.finish(Gh, limits);
+  return blockOrderBasisQQ(qpolys, grevlex, limits, { primeLimit: BLOCK_PRIME_LIMIT });
 }
 
 /**
