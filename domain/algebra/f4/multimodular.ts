@@ -536,7 +536,7 @@ export function proveBatch(input: MultiModularInput, candidate: LiftCandidate, b
  * inter-reduction mod p — the image that `target`'s ImageLifter combines. (h = 1 turns a Gröbner
  * basis of I^h in >_h into one of I in >: groebner/homogenise.ts.)
  */
-export function dehomogenisedImage(target: MultiModularInput, image: ModularImage, limits: Limits): ModularImage {
+export function dehomogenisedImage(target: MultiModularInput, image: ModularImage, limits: Limits, tracing?: ImageTracing): ModularImage {
   const pr = preparedFor(target);
   const n = pr.ring.n, S = n + 1, Sh = n + 2;
   if (image.n !== n + 1) throw new AlgebraError("domain", "dehomogenisedImage: the image must have one variable more than the target");
@@ -554,7 +554,15 @@ export function dehomogenisedImage(target: MultiModularInput, image: ModularImag
     }
     polys.push({ mons, coeffs: image.coeffs.slice(t - len, t) });
   }
-  const G = reducedModP(polys, pr.T, image.p, pr.ring.cmp, limits);
+  // Learnt once and replayed like the images (trace.ts): the inter-reduction's rows are the same at every lucky prime.
+  let G = tracing?.trace ? replayF4(tracing.trace, polys, image.p, limits) : null;
+  if (tracing?.trace) { if (G) tracing.replayed++; else tracing.declined++; }
+  if (!G) {
+    const recorder = tracing && tracing.trace === undefined ? new F4Recorder() : undefined;
+    if (recorder) for (const f of polys) recorder.input(f);
+    G = reducedModP(polys, pr.T, image.p, pr.ring.cmp, limits, undefined, recorder);
+    if (recorder && tracing) tracing.trace = recorder.finish(G);
+  }
   return toImage(pr, image.p, G);
 }
 
