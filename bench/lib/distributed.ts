@@ -15,6 +15,7 @@ import type { Polynomial, Rational } from "@domain/algebra/index";
 import { Limits } from "@domain/algebra/groebner/limits";
 import type { MultiModularStats } from "@domain/algebra/f4/multimodular";
 import { multiModularGroebnerQQ, multiModularInput } from "@domain/algebra/f4/multimodular";
+import { blockOrderBasisQQ } from "@domain/algebra/f4/block-order-lift";
 import { homogenisedRoute, seriesRoute } from "@domain/algebra/f4/distribution";
 import { ensureDatabase, serverUrl, startThrowawayCluster } from "../../scripts/db/postgres";
 import { outputTail, sleep, startProcess, type Managed } from "../../scripts/lib/processes";
@@ -98,12 +99,11 @@ async function measure(name: string, root: string, url: string, db: ReturnType<t
   // The CLI's path: one process, no database.
   let stats: MultiModularStats = { primes: 0, unlucky: 0, modularMs: 0, liftMs: 0, proofMs: 0 };
   const t0 = Date.now();
-  // Lex and block orders go through I^h with the Hilbert-series proof, as groebnerBasis does (f4/distribution.ts).
+  // Lex and block orders go through I^h with the Hilbert-series proof, as groebnerBasis does
+  // (f4/block-order-lift.ts); the distributed runs lift I^h's basis and set h = 1 over Q at the end.
   const series = reference ? seriesRoute(R, reference) : null;
   const seriesInput = series?.input();
-  let single = series
-    ? (() => { const Gh = multiModularGroebnerQQ(series.polys, new Limits(), { stats, reference, series: true }); return Gh && series.finish(Gh, new Limits()); })()
-    : multiModularGroebnerQQ(polys, new Limits(), { stats });
+  let single = reference ? blockOrderBasisQQ(polys, reference, new Limits(), { stats }) : multiModularGroebnerQQ(polys, new Limits(), { stats });
   // Step 3 by Hilbert functions cannot prove an ideal whose homogenisation is not saturated (a
   // saturated steady-state ideal): as an analysis does, compute the homogenised ideal's basis and
   // set h = 1 (f4/distribution.ts, homogenisedRoute), here and in the distributed runs below.
