@@ -14,7 +14,7 @@ import type { EPoly } from "../groebner/reduce";
 import { verifyGroebner } from "../groebner/verify";
 import { ZeroTest } from "../groebner/zero-test";
 import type { F4Poly, F4Stats } from "./f4";
-import { f4ModP, reducedModP } from "./f4";
+import { f4ModP } from "./f4";
 import { homogenisedF4ModP } from "./homogenised-image";
 import { invModP } from "./modp";
 import { primesBelow } from "./modp";
@@ -280,12 +280,13 @@ export function canLift(input: MultiModularInput): boolean {
  * The same sequence on every worker, so which primes a run uses does not depend on who computed them.
  */
 export function* liftPrimes(input: MultiModularInput): Generator<number> {
-  const { integer } = preparedFor(input);
-  for (const p of primesBelow(input.primeLimit ?? LIFT_PRIME_LIMIT)) {
-    const P = BigInt(p);
-    if (integer.some((f) => f.coeffs[0] % P === 0n)) continue;
-    yield p;
-  }
+  for (const p of primesBelow(input.primeLimit ?? LIFT_PRIME_LIMIT)) if (isLiftPrime(input, p)) yield p;
+}
+
+/** Is p one of liftPrimes(input) (no leading coefficient of an integer generator a multiple of p)? Below the prime limit is the caller's. */
+export function isLiftPrime(input: MultiModularInput, p: number): boolean {
+  const P = BigInt(p);
+  return !preparedFor(input).integer.some((f) => f.coeffs[0] % P === 0n);
 }
 
 /** The reduced basis modulo p by F4 (f4.ts), as plain data. `prime` only labels progress. */
@@ -528,42 +529,6 @@ export function proveBatch(input: MultiModularInput, candidate: LiftCandidate, b
     return pr.integer.every((f) => rows.reducesToZero(f)) ? { ok: true } : { ok: false, failed: "inputs" };
   }
   return pr.reference && allMembers(Gz, pr.reference, limits) ? { ok: true } : { ok: false, failed: "membership" };
-}
-
-/**
- * For a `series` image (the reduced basis of I^h mod p in >_h): the reduced basis of I mod p in
- * `target`'s order (target = the same variables without h, the same order on them), by h = 1 and
- * inter-reduction mod p — the image that `target`'s ImageLifter combines. (h = 1 turns a Gröbner
- * basis of I^h in >_h into one of I in >: groebner/homogenise.ts.)
- */
-export function dehomogenisedImage(target: MultiModularInput, image: ModularImage, limits: Limits, tracing?: ImageTracing): ModularImage {
-  const pr = preparedFor(target);
-  const n = pr.ring.n, S = n + 1, Sh = n + 2;
-  if (image.n !== n + 1) throw new AlgebraError("domain", "dehomogenisedImage: the image must have one variable more than the target");
-  const x = new Int32Array(S);
-  const polys: F4Poly[] = [];
-  let t = 0;
-  for (let e = 0; e < image.lengths.length; e++) {
-    const len = image.lengths[e];
-    const mons = new Int32Array(len);
-    for (let i = 0; i < len; i++, t++) {
-      const at = t * Sh;
-      x[0] = image.exps[at] - image.exps[at + n + 1];
-      for (let k = 1; k <= n; k++) x[k] = image.exps[at + k];
-      mons[i] = pr.T.intern(x, 0);
-    }
-    polys.push({ mons, coeffs: image.coeffs.slice(t - len, t) });
-  }
-  // Learnt once and replayed like the images (trace.ts): the inter-reduction's rows are the same at every lucky prime.
-  let G = tracing?.trace ? replayF4(tracing.trace, polys, image.p, limits) : null;
-  if (tracing?.trace) { if (G) tracing.replayed++; else tracing.declined++; }
-  if (!G) {
-    const recorder = tracing && tracing.trace === undefined ? new F4Recorder() : undefined;
-    if (recorder) for (const f of polys) recorder.input(f);
-    G = reducedModP(polys, pr.T, image.p, pr.ring.cmp, limits, undefined, recorder);
-    if (recorder && tracing) tracing.trace = recorder.finish(G);
-  }
-  return toImage(pr, image.p, G);
 }
 
 /**
