@@ -76,7 +76,8 @@ describe.runIf(existsSync(SINGULAR))("cyclic-7 over Q against Singular 4.3 std m
  * multiple futile cycle", J. Math. Biol. 57, 2008, for the mechanism; constants invented) with two
  * or three quantities symbolic, species in lex above the symbols in grevlex — the modeller's
  * everyday elimination. Singular: ordering (lp(a),dp(b)), std with option(redSB). The default
- * path here is F4 modulo primes in the block order, lifted and proven against the grevlex basis.
+ * path over Q (after a traced trial) and method "f4" lift through I^h from F4 images modulo
+ * primes, proven by Hilbert series against the grevlex basis (f4/block-order-lift.ts).
  */
 describe.runIf(existsSync(SINGULAR))("block orders against Singular 4.3 std", () => {
   // Over Z/32003 the F4 path goes through the homogenised ideal (f4/homogenised-image.ts); the
