@@ -186,9 +186,10 @@ const TRIAL = "Gröbner basis (trial of the traced run)";
  * long), then through I^h (f4/block-order-lift.ts): the reduced bases of the homogenised
  * grevlex basis in >_h modulo primes below 2^26 (F4 degree by degree, f4/homogenised-image.ts),
  * lifted and proven by Hilbert series against the grevlex basis, and the basis of ⟨F⟩ lifted
- * beside it and proven against it; null when neither completes (the caller goes on). The Hilbert-series proof replaced Buchberger's
- * criterion in the block order, which was most of this path's time (two-site cycle, k3 and k6
- * symbolic, warm: proof 60–64 → 16–19 ms, the route 96–97 → 66–69 ms; bench/README.md).
+ * beside it and proven against it; null when neither completes (the caller goes on). The
+ * Hilbert-series proof replaced Buchberger's criterion in the block order, which was most of
+ * this path's time (two-site cycle, k3 and k6 symbolic, warm: proof 60–64 → 16–19 ms, the route
+ * 96–97 → 65–69 ms; the three-site cycle over Q finishes in about 8 minutes; bench/README.md).
  */
 function blockOrderQQ(
   qpolys: Polynomial<Rational>[],
