@@ -5,7 +5,7 @@
  *
  * The recursion is the pivot rule of Bigatti, "Computation of Hilbert–Poincaré series", J. Pure
  * Appl. Algebra 119, 1997 (also Cox, Little, O'Shea, "Ideals, Varieties, and Algorithms", 4th ed.
- * 2015, ch. 9 §2): for a monomial p, the exact sequence 0 → k[x]/(M : p)(−deg p) → k[x]/M →
+ * 2015, ch. 9 §2; both references recalled from memory; the recursion is re-derived here): for a monomial p, the exact sequence 0 → k[x]/(M : p)(−deg p) → k[x]/M →
  * k[x]/(M + ⟨p⟩) → 0 gives N(M) = N(M + ⟨p⟩) + t^deg p · N(M : p). Generators with pairwise
  * disjoint supports form a regular sequence, so N = Π (1 − t^deg m_i) ends the recursion.
  *
