@@ -105,8 +105,10 @@ export async function cancelBasisRuns(db: DbExecutor, databaseUrl: string, where
 
 /** Cancels the run's child jobs that pg-boss has not finished (queued, waiting for a retry, active). */
 export async function cancelRunJobs(db: DbExecutor, databaseUrl: string, runId: string, onlyTaskIds?: readonly string[]): Promise<void> {
+  // The whole run: tasks still marked running are cancelled too (their pg-boss jobs are, below;
+  // a worker that died holding one never writes its row). Some tasks only: a worker computing one finishes.
   await db.updateTable("basis_tasks").set({ status: "cancelled", finished_at: sql`now()` })
-    .where("run_id", "=", runId).where("status", "=", "queued")
+    .where("run_id", "=", runId).where("status", "in", onlyTaskIds === undefined ? ["queued", "running"] : ["queued"])
     .$if(onlyTaskIds !== undefined, (qb) => qb.where("id", "in", onlyTaskIds!.length ? onlyTaskIds! : ["00000000-0000-0000-0000-000000000000"]))
     .execute();
   const { rows } = await sql<{ id: string }>`
