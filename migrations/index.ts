@@ -7,6 +7,7 @@ import * as publicLabs from "./20261202130000_public_labs";
 import * as analysisRuns from "./20261202131000_analysis_runs";
 import * as networkStructures from "./20261202140000_network_structures";
 import * as distributedBases from "./20261202160000_distributed_bases";
+import * as basisRunTraces from "./20261204180000_basis_run_traces";
 
 /**
  * Every migration, keyed by its file name without extension, in the order they run.
@@ -22,4 +23,5 @@ export const migrations: Record<string, Migration> = {
   "20261202131000_analysis_runs": analysisRuns,
   "20261202140000_network_structures": networkStructures,
   "20261202160000_distributed_bases": distributedBases,
+  "20261204180000_basis_run_traces": basisRunTraces,
 };

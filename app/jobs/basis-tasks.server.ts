@@ -34,9 +34,13 @@ export async function processTask(db: DbExecutor, message: TaskMessage, ctx: Tas
   const run = await db.selectFrom("basis_runs").select(["input", "candidate"]).where("id", "=", task.run_id).executeTakeFirstOrThrow();
   const input = run.input as unknown as MultiModularInput;
   const deadline = Date.now() + 24 * 3600_000; // the run's own limit stops it (it is cancelled at the analysis' limit)
+  // The run's learnt F4 trace, with the first image task this worker's task process gets of the run.
+  const trace = task.kind === "image" && ctx.runner.needsTrace(task.run_id)
+    ? ((await db.selectFrom("basis_runs").select("trace").where("id", "=", task.run_id).executeTakeFirst())?.trace ?? null)
+    : undefined;
   const request =
     task.kind === "image"
-      ? ({ kind: "image", runId: task.run_id, input, primes: imagePrimes(task), deadline } as const)
+      ? ({ kind: "image", runId: task.run_id, input, primes: imagePrimes(task), deadline, ...(trace === undefined ? {} : { trace: trace && new Uint8Array(trace.buffer, trace.byteOffset, trace.byteLength) }) } as const)
       : ({ kind: "proof", runId: task.run_id, input, candidate: proofCandidate(task.batch, run.candidate, task.seq), batch: task.batch as unknown as ProofBatch, deadline } as const);
   let runEnded = false;
   const beat = setInterval(() => {
@@ -71,7 +75,7 @@ export async function processTask(db: DbExecutor, message: TaskMessage, ctx: Tas
     const bytes = Buffer.from(reply.bytes.buffer, reply.bytes.byteOffset, reply.bytes.byteLength);
     await mine().set({ status: "done", image: bytes, bytes: bytes.byteLength, compute_ms: reply.ms, finished_at: sql`now()` }).execute();
     const primes = imagePrimes(task);
-    return `image${primes.length > 1 ? `s mod ${primes.length} primes from` : " mod"} ${task.prime} (${bytes.byteLength} bytes, ${reply.ms} ms)`;
+    return `image${primes.length > 1 ? `s mod ${primes.length} primes from` : " mod"} ${task.prime} (${bytes.byteLength} bytes, ${reply.ms} ms, ${reply.replayed} of ${primes.length} replayed${trace ? " from the run's stored trace" : ""})`;
   }
   await mine().set({ status: "done", ok: reply.ok, failed_step: reply.failed ?? null, compute_ms: reply.ms, finished_at: sql`now()` }).execute();
   return `proof batch ${task.seq}: ${reply.ok ? "ok" : `failed (${reply.failed})`} (${reply.ms} ms)`;

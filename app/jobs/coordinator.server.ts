@@ -36,8 +36,12 @@ export interface CoordinatorOptions {
   window?: number;
   /** Proof S-pair batches (default 8: more batches than workers balance uneven batches). */
   pairBatches?: number;
-  /** The first image, when the caller already computed it (it decided to distribute on its time). */
-  firstImage?: { image: ModularImage; ms: number };
+  /**
+   * The first image, when the caller already computed it (it decided to distribute on its time),
+   * and the F4 run it learnt there (encodeImageTrace): stored with the run, so that every worker
+   * replays it at its primes (a tenth of an image) instead of learning it again.
+   */
+  firstImage?: { image: ModularImage; ms: number; trace?: Uint8Array };
   /** How long an active task may take before pg-boss fails it (its worker presumed dead) and retries it. */
   taskExpireSeconds?: number;
   pollMs?: number;
@@ -96,7 +100,10 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
   }
   const run = await db
     .insertInto("basis_runs")
-    .values({ analysis_id: o.analysisId ?? null, input: input as unknown as JsonObject, coordinator: o.coordinatorId, engine_version: ENGINE_VERSION })
+    .values({
+      analysis_id: o.analysisId ?? null, input: input as unknown as JsonObject, coordinator: o.coordinatorId, engine_version: ENGINE_VERSION,
+      trace: o.firstImage?.trace ? Buffer.from(o.firstImage.trace.buffer, o.firstImage.trace.byteOffset, o.firstImage.trace.byteLength) : null,
+    })
     .returning("id")
     .executeTakeFirstOrThrow();
   const runId = run.id;

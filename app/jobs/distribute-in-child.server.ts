@@ -63,7 +63,7 @@ export async function distributeOne(
     databaseUrl: o.databaseUrl,
     coordinatorId: `${o.workerId} (coordinator)`,
     analysisId: o.analysisId,
-    firstImage: { image: request.firstImage, ms: request.firstImageMs },
+    firstImage: { image: request.firstImage, ms: request.firstImageMs, ...(request.firstTrace ? { trace: request.firstTrace } : {}) },
     ...taskExpiry(),
     limits: new Limits({ deadline }, "Distributed Gröbner basis"),
     onProgress: (p) => progress(progressText(p)),

@@ -6,15 +6,17 @@
  */
 import type { LiftCandidate, MultiModularInput, ProofBatch } from "@domain/algebra/f4/multimodular";
 import type { ImageTracing, ModularImage } from "@domain/algebra/f4/multimodular";
-import { encodeImage, encodeImageBatch, imageModPrime, proveBatch } from "@domain/algebra/f4/multimodular";
+import { decodeImageTrace, encodeImage, encodeImageBatch, imageModPrime, proveBatch } from "@domain/algebra/f4/multimodular";
 import { Limits } from "@domain/algebra/groebner/limits";
 
 export type TaskRequest =
-  | { kind: "image"; runId: string; input: MultiModularInput; primes: number[]; deadline: number }
+  /** `trace`: the run's stored trace (null: it has none), sent with a run's first task to this process. */
+  | { kind: "image"; runId: string; input: MultiModularInput; primes: number[]; deadline: number; trace?: Uint8Array | null }
   | { kind: "proof"; runId: string; input: MultiModularInput; candidate: LiftCandidate; batch: ProofBatch; deadline: number };
 
 export type TaskReply =
-  | { kind: "image"; bytes: Uint8Array; ms: number }
+  /** `replayed`: of this task's primes, how many the run's trace gave (the others ran F4 afresh). */
+  | { kind: "image"; bytes: Uint8Array; ms: number; replayed: number }
   | { kind: "proof"; ok: boolean; failed?: string; ms: number }
   | { kind: "error"; message: string };
 
@@ -36,8 +38,9 @@ function keep<T>(m: Map<string, T>, key: string, value: T): T {
 // adds images in prime order, so it has decoded that earlier image before it meets this one.
 const lastImage = new Map<string, ModularImage>();
 
-// Per run, the F4 run this process learnt at its first prime and replays at the others
-// (domain/algebra/f4/trace.ts): a replay gives the same image as F4 afresh, or declines and F4 runs.
+// Per run, the F4 run this process replays at its primes (domain/algebra/f4/trace.ts): the one
+// the coordinator learnt and stored, or else the one this process learnt at its first prime. A
+// replay gives the same image as F4 afresh, or declines and F4 runs.
 const tracings = new Map<string, ImageTracing>();
 
 process.on("disconnect", () => process.exit(1));
@@ -50,13 +53,16 @@ process.on("message", (raw) => {
     if (req.kind === "image") {
       const input = keep(inputs, req.runId, req.input);
       const tracing = keep(tracings, req.runId, { trace: undefined, replayed: 0, declined: 0 });
+      // The coordinator's learnt run, when it stored one: replayed from the first prime on.
+      if (req.trace && tracing.trace === undefined) tracing.trace = decodeImageTrace(input, req.trace);
+      const before = tracing.replayed;
       const images = req.primes.map((p) => imageModPrime(input, p, limits, undefined, undefined, tracing));
       const like = lastImage.get(req.runId);
       const first = like && like.p > images[0].p ? like : undefined;
       const bytes = images.length === 1 ? encodeImage(images[0], first) : encodeImageBatch(images, first);
       lastImage.delete(req.runId);
       keep(lastImage, req.runId, images[images.length - 1]);
-      reply = { kind: "image", bytes, ms: Date.now() - t0 };
+      reply = { kind: "image", bytes, ms: Date.now() - t0, replayed: tracing.replayed - before };
     } else {
       const input = keep(inputs, req.runId, req.input);
       const candidate = keep(candidates, `${req.runId}:${req.candidate.checkedWith}`, req.candidate);

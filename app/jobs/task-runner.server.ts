@@ -15,8 +15,11 @@ const CHILD = path.join(path.dirname(fileURLToPath(import.meta.url)), "task-chil
 export class TaskRunner {
   private child: ChildProcess | null = null;
   private pending: { resolve: (r: TaskReply) => void } | null = null;
+  /** Runs whose stored trace (if any) this task process has been sent: it keeps it, so once is enough. */
+  private traceSent = new Set<string>();
 
   private spawn(): ChildProcess {
+    this.traceSent = new Set();
     const child = fork(CHILD, [], {
       execArgv: ["--import", "tsx"],
       stdio: ["ignore", "ignore", "inherit", "ipc"],
@@ -47,9 +50,18 @@ export class TaskRunner {
     return this.child?.pid;
   }
 
+  /** Whether the next image task of `runId` must carry the run's stored trace (this process has not had it). */
+  needsTrace(runId: string): boolean {
+    return !(this.child && this.traceSent.has(runId));
+  }
+
   run(req: TaskRequest): Promise<TaskReply> {
     if (this.pending) return Promise.reject(new Error("TaskRunner: one task at a time"));
     this.child ??= this.spawn();
+    if (req.kind === "image" && "trace" in req) {
+      this.traceSent.add(req.runId);
+      while (this.traceSent.size > 6) this.traceSent.delete(this.traceSent.values().next().value!);
+    }
     const child = this.child;
     return new Promise<TaskReply>((resolve) => {
       this.pending = { resolve };

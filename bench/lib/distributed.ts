@@ -13,8 +13,8 @@ import path from "node:path";
 import { PolynomialRing, QQ, groebnerBasis } from "@domain/algebra/index";
 import type { Polynomial, Rational } from "@domain/algebra/index";
 import { Limits } from "@domain/algebra/groebner/limits";
-import type { MultiModularStats } from "@domain/algebra/f4/multimodular";
-import { multiModularGroebnerQQ, multiModularInput } from "@domain/algebra/f4/multimodular";
+import type { ImageTracing, MultiModularStats } from "@domain/algebra/f4/multimodular";
+import { encodeImageTrace, imageModPrime, liftPrimes, multiModularGroebnerQQ, multiModularInput } from "@domain/algebra/f4/multimodular";
 import { blockOrderBasisQQ } from "@domain/algebra/f4/block-order-lift";
 import { homogenisedRoute, seriesRoute } from "@domain/algebra/f4/distribution";
 import { ensureDatabase, serverUrl, startThrowawayCluster } from "../../scripts/db/postgres";
@@ -126,8 +126,14 @@ async function measure(name: string, root: string, url: string, db: ReturnType<t
       // Untimed warm-up: every worker's task process forked and compiled.
       const small = new PolynomialRing(["a", "b", "c"], QQ, "grevlex");
       await distributedGroebner(multiModularInput(["a^2 + b*c - 1", "b^2 - a*c + 2", "c^2 + a*b - 3"].map((s) => small.parse(s))), { db, databaseUrl: url, coordinatorId: "bench", window: 2 * k, pairBatches: 2 * k });
+      const input = route ? route.input : seriesInput ?? multiModularInput(polys);
       const w0 = Date.now();
-      const outcome = await distributedGroebner(route ? route.input : seriesInput ?? multiModularInput(polys), { db, databaseUrl: url, coordinatorId: "bench", window, pairBatches: batches });
+      // As an analysis does (domain/algebra/f4/distribution.ts): the coordinator computes the
+      // first image itself, learning its F4 run, and the workers replay that run.
+      const tracing: ImageTracing = { trace: undefined, replayed: 0, declined: 0 };
+      const image = imageModPrime(input, liftPrimes(input).next().value as number, new Limits(), { k: 1, of: 1 }, undefined, tracing);
+      const firstImage = { image, ms: Date.now() - w0, ...(tracing.trace ? { trace: encodeImageTrace(input, tracing.trace) } : {}) };
+      const outcome = await distributedGroebner(input, { db, databaseUrl: url, coordinatorId: "bench", window, pairBatches: batches, firstImage });
       const basis = !outcome.basis ? outcome.basis
         : route ? route.finish(outcome.basis, new Limits())
         : series ? series.finish(outcome.basis.map((s) => series.polys[0].ring.parse(s)), new Limits()).map((g) => R.format(g))

@@ -21,7 +21,7 @@ import { primesBelow } from "./modp";
 import { MonomialTable } from "./monomial-table";
 import { isGradedOrder } from "./prime-field";
 import type { F4Trace, ReplayStats } from "./trace";
-import { F4Recorder, replayF4 } from "./trace";
+import { F4Recorder, decodeTrace, encodeTrace, replayF4 } from "./trace";
 import { hilbertNumerator, sameNumerator } from "../hilbert-series";
 import { bitLength, crtStep, guidedReconstruction, rationalModP } from "./reconstruction";
 
@@ -328,6 +328,18 @@ export function imageModPrime(
     if (recorder && tracing) tracing.trace = recorder.finish(Gp);
   }
   return toImage(pr, p, Gp);
+}
+
+/** A learnt F4 run of `input` (ImageTracing.trace) as bytes another process can load (trace.ts, encodeTrace). */
+export function encodeImageTrace(input: MultiModularInput, trace: F4Trace): Uint8Array {
+  const { T } = preparedFor(input);
+  return encodeTrace(trace, T.S, (m) => T.exps.subarray(m * T.S, (m + 1) * T.S));
+}
+
+/** encodeImageTrace's bytes as a trace on this process' monomial table of `input`, to replay with imageModPrime. */
+export function decodeImageTrace(input: MultiModularInput, bytes: Uint8Array): F4Trace {
+  const { T } = preparedFor(input);
+  return decodeTrace(bytes, T.S, (e, off) => T.intern(e, off));
 }
 
 /** A basis mod p (F4 polynomials of the input's monomial table) as plain data. */

@@ -176,3 +176,105 @@ function sameArray(a: Int32Array, b: Int32Array): boolean {
   for (let t = 0; t < a.length; t++) if (a[t] !== b[t]) return false;
   return true;
 }
+
+/**
+ * A trace as bytes, so that one process can learn a run and others replay it (a distributed
+ * run's coordinator learns at its first prime; its workers' task processes, which would each
+ * learn the same run again, load it: app/jobs/task-child.ts). Monomial ids belong to one
+ * process' table, so the inputs' and outputs' monomials travel as exponent vectors (`exps(id)`:
+ * the S = n + 1 packed entries, degree slot included) and are interned again on arrival; the
+ * rest is slot numbers and matrix-local column indices, which mean the same everywhere.
+ */
+export function encodeTrace(trace: F4Trace, S: number, exps: (mon: number) => Int32Array): Uint8Array {
+  const w = new IntWriter();
+  w.push(TRACE_FORMAT); w.push(S); w.push(trace.slots);
+  const monomials = (mons: Int32Array) => {
+    w.push(mons.length);
+    for (let i = 0; i < mons.length; i++) w.array(exps(mons[i]), false);
+  };
+  w.push(trace.inputMons.length);
+  for (const m of trace.inputMons) monomials(m);
+  w.push(trace.ops.length);
+  for (const op of trace.ops) {
+    if (op.kind === "monic") { w.push(0); w.push(op.src); w.push(op.dst); }
+    else if (op.kind === "permute") { w.push(1); w.push(op.src); w.push(op.dst); w.array(op.perm); }
+    else {
+      const m = op.matrix;
+      w.push(2); w.push(m.ncols); w.push(m.degree); w.push(m.resultsPivot ? 1 : 0);
+      w.push(m.pivots.length);
+      for (const r of m.pivots) { w.push(r.src); w.array(r.cols); }
+      w.push(m.rows.length);
+      for (const r of m.rows) { w.push(r.src); w.array(r.cols); w.push(r.out); w.array(r.outCols); w.push(r.skip); }
+    }
+  }
+  w.push(trace.outputs.length);
+  for (const o of trace.outputs) { w.push(o.slot); monomials(o.mons); }
+  const ints = w.done();
+  return new Uint8Array(ints.buffer, ints.byteOffset, ints.byteLength);
+}
+
+/** encodeTrace's bytes as a trace on this process' monomials (`intern` as MonomialTable.intern). */
+export function decodeTrace(bytes: Uint8Array, S: number, intern: (e: Int32Array, off: number) => number): F4Trace {
+  // Copied when unaligned (a Buffer from the database may start anywhere in its pool).
+  const ints = bytes.byteOffset % 4 === 0
+    ? new Int32Array(bytes.buffer, bytes.byteOffset, bytes.byteLength >> 2)
+    : new Int32Array(bytes.slice().buffer);
+  let at = 0;
+  const next = () => ints[at++];
+  const array = () => { const len = next(); const a = ints.slice(at, at + len); at += len; return a; };
+  const monomials = () => {
+    const len = next(), mons = new Int32Array(len);
+    for (let i = 0; i < len; i++, at += S) mons[i] = intern(ints, at);
+    return mons;
+  };
+  if (next() !== TRACE_FORMAT) throw new Error("decodeTrace: not a trace of this engine's format");
+  if (next() !== S) throw new Error("decodeTrace: the trace belongs to a ring with another number of variables");
+  const slots = next();
+  const inputMons = Array.from({ length: next() }, monomials);
+  const ops: TraceOp[] = [];
+  for (let k = next(); k > 0; k--) {
+    const kind = next();
+    if (kind === 0) ops.push({ kind: "monic", src: next(), dst: next() });
+    else if (kind === 1) { const src = next(), dst = next(); ops.push({ kind: "permute", src, dst, perm: array() }); }
+    else {
+      const ncols = next(), degree = next(), resultsPivot = next() === 1;
+      const pivots = Array.from({ length: next() }, () => { const src = next(); return { src, cols: array() }; });
+      const rows = Array.from({ length: next() }, () => {
+        const src = next(), cols = array(), out = next(), outCols = array(), skip = next();
+        return { src, cols, out, outCols, skip };
+      });
+      ops.push({ kind: "matrix", matrix: { ncols, degree, pivots, rows, resultsPivot } });
+    }
+  }
+  const outputs = Array.from({ length: next() }, () => { const slot = next(); return { slot, mons: monomials() }; });
+  if (at !== ints.length) throw new Error("decodeTrace: trailing data");
+  return { inputMons, ops, outputs, slots };
+}
+
+/** Bumped when encodeTrace's layout changes, so a stored trace of another layout is refused. */
+const TRACE_FORMAT = 0x54524301;
+
+/** A growable Int32Array. */
+class IntWriter {
+  private buf = new Int32Array(1 << 16);
+  private n = 0;
+  push(x: number): void {
+    if (this.n === this.buf.length) this.grow(1);
+    this.buf[this.n++] = x;
+  }
+  /** With its length first unless `withLength` is false. */
+  array(a: Int32Array, withLength = true): void {
+    if (withLength) this.push(a.length);
+    if (this.n + a.length > this.buf.length) this.grow(a.length);
+    this.buf.set(a, this.n);
+    this.n += a.length;
+  }
+  done(): Int32Array {
+    return this.buf.subarray(0, this.n);
+  }
+  private grow(extra: number): void {
+    const b = new Int32Array(Math.max(this.buf.length * 2, this.n + extra));
+    b.set(this.buf.subarray(0, this.n));
+    this.buf = b;
+  }
+}

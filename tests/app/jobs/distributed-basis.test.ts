@@ -1,7 +1,9 @@
 import { spawn, type ChildProcess } from "node:child_process";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { PolynomialRing, QQ, groebnerBasis } from "@domain/algebra/index";
-import { multiModularInput } from "@domain/algebra/f4/multimodular";
+import type { ImageTracing } from "@domain/algebra/f4/multimodular";
+import { encodeImageTrace, imageModPrime, liftPrimes, multiModularInput } from "@domain/algebra/f4/multimodular";
+import { Limits } from "@domain/algebra/groebner/limits";
 import { createTestDatabase, hasTestDatabase, type TestDatabase } from "../support/test-db";
 import { waitFor } from "./fixtures";
 import { imagePrimes } from "~/jobs/basis-tasks.server";
@@ -73,6 +75,33 @@ describe.skipIf(!hasTestDatabase)("distributed multi-modular basis", () => {
     expect(proofs.filter((x) => (x.batch as { kind?: string } | null)?.kind === "hilbert")).toHaveLength(firstLucky ? 1 : 2);
     // Images after a worker's first are sent as residues on its previous image's support.
     expect(images.some((x) => x.bytes! < images.find((y) => y.seq === 0)!.bytes! / 3)).toBe(true);
+    for (const w of workers.splice(0)) await w.stop();
+  }, 120_000);
+
+  it("the coordinator's learnt F4 run is stored with the run; the workers replay it from their first prime on, and the basis is the same", async () => {
+    const lines: string[] = [];
+    for (let i = 0; i < 2; i++) {
+      workers.push(await startWorker({ databaseUrl: t.url, heartbeatMs: 200, pollSeconds: 0.5, sweepEveryMs: 60_000, logTasks: true, log: (l) => lines.push(l) }));
+    }
+    const { R, polys } = system(5);
+    const input = multiModularInput(polys);
+    // As an analysis' job process does (domain/algebra/f4/distribution.ts): the first image here, traced.
+    const tracing: ImageTracing = { trace: undefined, replayed: 0, declined: 0 };
+    const image = imageModPrime(input, liftPrimes(input).next().value as number, new Limits(), undefined, undefined, tracing);
+    const trace = encodeImageTrace(input, tracing.trace!);
+    const out = await distributedGroebner(input, { db: t.db, databaseUrl: t.url, coordinatorId: "test-coordinator", window: 4, pairBatches: 3, firstImage: { image, ms: 1, trace } });
+    expect(out.basis).toEqual(groebnerBasis(polys, { method: "buchberger" }).map((g) => R.format(g)));
+    const run = await t.db.selectFrom("basis_runs").select("trace").where("id", "=", out.runId).executeTakeFirstOrThrow();
+    expect(Buffer.compare(run.trace!, Buffer.from(trace))).toBe(0);
+    // Each task process gets the stored trace with its first task of the run and replays every prime.
+    const imageLines = lines.filter((l) => l.startsWith("image"));
+    expect(imageLines.length).toBeGreaterThan(0);
+    expect(imageLines.filter((l) => l.includes("from the run's stored trace")).length).toBeLessThanOrEqual(2);
+    expect(imageLines.filter((l) => l.includes("from the run's stored trace")).length).toBeGreaterThanOrEqual(1);
+    for (const l of imageLines) {
+      const [, got, of] = /(\d+) of (\d+) replayed/.exec(l)!;
+      expect(got, l).toBe(of);
+    }
     for (const w of workers.splice(0)) await w.stop();
   }, 120_000);
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { PolynomialRing, QQ, groebnerBasis } from "@domain/algebra/index";
 import type { ImageTracing, ModularImage } from "@domain/algebra/f4/multimodular";
-import { imageModPrime, liftPrimes, multiModularGroebnerQQ, multiModularInput } from "@domain/algebra/f4/multimodular";
+import { decodeImageTrace, encodeImageTrace, imageModPrime, liftPrimes, multiModularGroebnerQQ, multiModularInput } from "@domain/algebra/f4/multimodular";
 import { Limits } from "@domain/algebra/groebner/limits";
 import { cyclic, katsura, randomIdeal } from "../../../fixtures/algebra/systems";
 
@@ -94,5 +94,39 @@ describe("F4 replayed from a learnt run (trace.ts) equals F4 run afresh", () => 
     expect(traced).toEqual(untraced);
     expect(traced).toEqual(groebnerBasis(polys, { method: "buchberger" }).map((g) => R.format(g)));
     expect(replays.replayed).toBeGreaterThan(0);
+  });
+
+  it("replays a trace learnt in another process (encoded, decoded on a fresh monomial table) like F4 afresh", () => {
+    // A copy of the input stands for a worker's task process: its own prepared ring and monomial
+    // table, which never saw the learning run's intermediate monomials, so the outputs' ids differ.
+    for (const [s, order] of [[katsura(4), "grevlex"], [cyclic(5), "grevlex"], [randomIdeal(77, { nvars: 3, npolys: 3, maxDegree: 3, minTerms: 2, minDegree: 1, maxTerms: 4, coeffBound: 1000n }), "lex(1), grevlex(2)"]] as const) {
+      const R = new PolynomialRing(s.vars, QQ, order);
+      const input = multiModularInput(s.polys.map((t) => R.parse(t)));
+      const [p0, ...later] = [...liftPrimes(input)].slice(0, 4);
+      const learnt: ImageTracing = { trace: undefined, replayed: 0, declined: 0 };
+      imageModPrime(input, p0, new Limits(), undefined, undefined, learnt);
+      expect(learnt.trace).toBeTruthy();
+      const bytes = encodeImageTrace(input, learnt.trace!);
+      const elsewhere = structuredClone(input);
+      // Unaligned, as a Buffer from the database may be.
+      const shifted = new Uint8Array(bytes.byteLength + 1).subarray(1);
+      shifted.set(bytes);
+      const loaded: ImageTracing = { trace: decodeImageTrace(elsewhere, shifted), replayed: 0, declined: 0 };
+      for (const p of later) {
+        expect(plain(imageModPrime(elsewhere, p, new Limits(), undefined, undefined, loaded)), `${order} mod ${p}`).toEqual(plain(imageModPrime(input, p, new Limits())));
+      }
+      expect(loaded.replayed).toBe(later.length);
+    }
+  });
+
+  it("refuses bytes that are not a trace, or a trace of another number of variables", () => {
+    const R = new PolynomialRing(["x", "y"], QQ, "grevlex");
+    const input = multiModularInput(["x^2 - y", "x*y - 1"].map((t) => R.parse(t)));
+    const learnt: ImageTracing = { trace: undefined, replayed: 0, declined: 0 };
+    imageModPrime(input, [...liftPrimes(input)][0], new Limits(), undefined, undefined, learnt);
+    const bytes = encodeImageTrace(input, learnt.trace!);
+    expect(() => decodeImageTrace(input, new Uint8Array(16))).toThrow(/not a trace/);
+    const R3 = new PolynomialRing(["x", "y", "z"], QQ, "grevlex");
+    expect(() => decodeImageTrace(multiModularInput(["x - z"].map((t) => R3.parse(t))), bytes)).toThrow(/number of variables/);
   });
 });
