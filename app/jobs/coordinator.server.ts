@@ -32,7 +32,7 @@ export interface CoordinatorOptions {
   /** Who coordinates (worker id plus "coordinator"), recorded with the run. */
   coordinatorId: string;
   analysisId?: string | null;
-  /** At most this many image tasks ahead of the lift (default 6; fewer while fewer workers have taken part: one per worker plus two). */
+  /** Images kept on the queue beyond the next one the lift needs (default 6). */
   window?: number;
   /** Proof S-pair batches (default 8: more batches than workers balance uneven batches). */
   pairBatches?: number;
@@ -174,12 +174,7 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
     const batchKinds = proofBatches(input, { basis: [], primes: [], unlucky: [], checkedWith: 0 }, 1).map((b) => b.kind);
     let aborted: string | undefined;
     while (!candidate) {
-      // Tasks ahead of the lift: one per worker seen so far plus two for workers not yet seen
-      // (one may be busy with the early step-3 check), at most `window`. More only compute
-      // surplus primes (the lift needs them in order, and is itself the bottleneck once images
-      // replay quickly) on the cores the lift and the proof need.
-      const seen = (await workers()).filter((w) => w !== o.coordinatorId).length;
-      await enqueueImagesUpTo(seq + Math.min(window, seen + 2) * perTask);
+      await enqueueImagesUpTo(seq + window * perTask);
       const image = await imageAt(seq);
       if (seq === 0 && o.firstImage) perTask = imagesPerTask(o.firstImage.ms);
       if (seq === 0 && batchKinds.includes("hilbert")) {
