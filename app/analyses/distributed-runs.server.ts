@@ -3,6 +3,7 @@
  * images done and needed, primes used and set aside, the workers that computed child jobs, the
  * engine version, and why a run was not used.
  */
+import { sql } from "kysely";
 import type { DbExecutor } from "~/db/schema";
 
 export interface DistributedRunView {
@@ -13,6 +14,8 @@ export interface DistributedRunView {
   imagesNeeded: number | null;
   primesUsed: number[];
   unluckyPrimes: number[];
+  /** Set aside because the run's learnt F4 run declined there. */
+  declinedPrimes: number[];
   proofDone: number;
   proofBatches: number;
   /** Worker ids (host:process:tag); on a shared view only how many. */
@@ -25,7 +28,10 @@ export interface DistributedRunView {
 }
 
 export async function distributedRunsOf(db: DbExecutor, analysisId: string, options: { sharedView: boolean }): Promise<DistributedRunView[]> {
-  const runs = await db.selectFrom("basis_runs").selectAll().where("analysis_id", "=", analysisId).orderBy("created_at").execute();
+  // Not the candidate's text or the trace (megabytes each on large runs): only what the page shows.
+  const runs = await db.selectFrom("basis_runs")
+    .select(["id", "status", "images_done", "images_needed", "primes_used", "unlucky_primes", "engine_version", "error", "input", sql<number[] | null>`candidate->'declined'`.as("declined")])
+    .where("analysis_id", "=", analysisId).orderBy("created_at").execute();
   if (runs.length === 0) return [];
   const tasks = await db.selectFrom("basis_tasks").select(["run_id", "kind", "status", "worker_id"]).where("run_id", "in", runs.map((r) => r.id)).execute();
   return runs.map((r, i) => {
@@ -39,6 +45,7 @@ export async function distributedRunsOf(db: DbExecutor, analysisId: string, opti
       imagesNeeded: r.images_needed,
       primesUsed: (r.primes_used as unknown as number[] | null) ?? [],
       unluckyPrimes: (r.unlucky_primes as unknown as number[] | null) ?? [],
+      declinedPrimes: r.declined ?? [],
       proofDone: proof.filter((t) => t.status === "done").length,
       proofBatches: proof.length,
       workers: options.sharedView ? [] : workers,

@@ -19,7 +19,8 @@
 import { sql } from "kysely";
 import type { Kysely } from "kysely";
 import type { LiftCandidate, ModularImage, MultiModularInput, ProofBatch } from "@domain/algebra/f4/multimodular";
-import { ImageLifter, batchReference, decodeImageBatch, encodeImage, imageModPrime, leadsCandidate, liftPrimes, proofBatches, proveBatch } from "@domain/algebra/f4/multimodular";
+import type { ImageTracing } from "@domain/algebra/f4/multimodular";
+import { ImageLifter, batchReference, decodeImageBatch, decodeImageTrace, encodeImage, imageModPrime, isDeclinedOnly, leadsCandidate, liftPrimes, proofBatches, proveBatch } from "@domain/algebra/f4/multimodular";
 import { Limits } from "@domain/algebra/groebner/limits";
 import { ENGINE_VERSION } from "~/analyses/engine-version";
 import type { Database, JsonObject } from "~/db/schema";
@@ -68,6 +69,8 @@ export interface DistributedOutcome {
   failed?: string;
   primes: number[];
   unlucky: number[];
+  /** Primes set aside because the run's trace declined there (ModularImage.declined). */
+  declined: number[];
   engineVersion: string;
   workers: string[];
   /** Bytes of the stored images (mean) and time from enqueue to start (median, ms), for the bench. */
@@ -118,6 +121,7 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
     }
     return primes[i];
   };
+  let localTracing: ImageTracing | undefined; // the run's trace, for images computed here (computeImagesLocally)
   const enqueued = new Map<number, string>(); // seq -> id of the task computing it ("first": the caller's)
   const taskFirstSeq = new Map<string, number>();
   const decoded = new Map<number, ModularImage>(); // prime -> image, for images written on another's support
@@ -175,7 +179,10 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
     let aborted: string | undefined;
     while (!candidate) {
       await enqueueImagesUpTo(seq + window * perTask);
-      const image = await imageAt(seq);
+      let image = await imageAt(seq);
+      // A prime where the run's trace declined and the lift can no longer set one aside (rare:
+      // the workers compute such images afresh once declines are frequent): its image in full, here.
+      if (isDeclinedOnly(image) && !lifter.takesDecline()) image = imageModPrime(input, image.p, limits);
       if (seq === 0 && o.firstImage) perTask = imagesPerTask(o.firstImage.ms);
       if (seq === 0 && batchKinds.includes("hilbert")) {
         const leads = leadsCandidate(input, image);
@@ -195,7 +202,7 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
     if (!candidate && aborted) {
       await cancelRunJobs(db, o.databaseUrl, runId);
       await db.updateTable("basis_runs").set({ status: "failed", error: `proof step failed: ${aborted} (checked on the first image, before lifting)`, finished_at: sql`now()` }).where("id", "=", runId).execute();
-      return { runId, basis: null, failed: aborted, primes: [], unlucky: [], engineVersion: ENGINE_VERSION, workers: await workers(), meanImageBytes: 0, medianWaitMs: 0, medianPickupMs: 0, timings: { imagesMs: Date.now() - imagesStart, liftMs: lifter.liftMs, proofMs: 0 } };
+      return { runId, basis: null, failed: aborted, primes: [], unlucky: [], declined: [], engineVersion: ENGINE_VERSION, workers: await workers(), meanImageBytes: 0, medianWaitMs: 0, medianPickupMs: 0, timings: { imagesMs: Date.now() - imagesStart, liftMs: lifter.liftMs, proofMs: 0 } };
     }
     if (!candidate) throw new Error("distributedGroebner: no candidate");
     if (early) {
@@ -204,7 +211,7 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
       if (!r.ok) {
         await cancelRunJobs(db, o.databaseUrl, runId);
         await db.updateTable("basis_runs").set({ status: "failed", error: "proof step failed: hilbert (checked on the first image)", finished_at: sql`now()` }).where("id", "=", runId).execute();
-        return { runId, basis: null, failed: "hilbert", primes: [], unlucky: [], engineVersion: ENGINE_VERSION, workers: await workers(), meanImageBytes: 0, medianWaitMs: 0, medianPickupMs: 0, timings: { imagesMs: Date.now() - imagesStart, liftMs: lifter.liftMs, proofMs: 0 } };
+        return { runId, basis: null, failed: "hilbert", primes: [], unlucky: [], declined: [], engineVersion: ENGINE_VERSION, workers: await workers(), meanImageBytes: 0, medianWaitMs: 0, medianPickupMs: 0, timings: { imagesMs: Date.now() - imagesStart, liftMs: lifter.liftMs, proofMs: 0 } };
       }
     }
     const imagesMs = Date.now() - imagesStart;
@@ -260,7 +267,7 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
     return {
       computeByWorker: Object.fromEntries(split.map((r) => [r.worker_id!, { tasks: r.n, ms: r.ms }])),
       medianPickupMs: Number(pickup.rows[0]?.ms ?? 0),
-      runId, basis: failed ? null : [...candidate.basis], ...(failed ? { failed } : {}), primes: [...candidate.primes], unlucky: [...candidate.unlucky],
+      runId, basis: failed ? null : [...candidate.basis], ...(failed ? { failed } : {}), primes: [...candidate.primes], unlucky: [...candidate.unlucky], declined: [...(candidate.declined ?? [])],
       engineVersion: ENGINE_VERSION, workers: await workers(), meanImageBytes: Number(stats?.bytes ?? 0), medianWaitMs: Number(stats?.wait ?? 0),
       timings: { imagesMs, liftMs: lifter.liftMs, proofMs },
     };
@@ -312,7 +319,11 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
   }
 
   async function computeImagesLocally(primesOf: readonly number[]): Promise<ModularImage[]> {
-    return primesOf.map((p) => imageModPrime(input, p, limits));
+    // With the run's trace, as a worker would: the same primes are then declined and set aside.
+    if (localTracing === undefined && o.firstImage?.trace) {
+      localTracing = { trace: decodeImageTrace(input, o.firstImage.trace), replayed: 0, declined: 0, onDecline: () => true };
+    }
+    return primesOf.map((p) => imageModPrime(input, p, limits, undefined, undefined, localTracing));
   }
 
   async function waitForProof(taskId: string, local: () => Promise<{ ok: boolean; failed?: string }>): Promise<{ ok: boolean; failed?: string }> {

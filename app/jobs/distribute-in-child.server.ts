@@ -24,6 +24,8 @@ export interface DistributedBasisRecord {
   elements: number | null;
   primes: number[];
   unluckyPrimes: number[];
+  /** Primes set aside because the run's learnt F4 run declined there (absent when none). */
+  declinedPrimes?: number[];
   engineVersion: string;
   workers: string[];
   /** The run spread the homogenised ideal F^h (after step 3 failed on F); its basis was dehomogenised. */
@@ -39,7 +41,7 @@ function taskExpiry(): { taskExpireSeconds?: number } {
 function recordOf(out: DistributedOutcome): DistributedBasisRecord {
   return {
     runId: out.runId, proven: out.basis !== null, ...(out.failed ? { failed: out.failed } : {}), elements: out.basis?.length ?? null,
-    primes: out.primes, unluckyPrimes: out.unlucky, engineVersion: out.engineVersion, workers: out.workers,
+    primes: out.primes, unluckyPrimes: out.unlucky, ...(out.declined.length > 0 ? { declinedPrimes: out.declined } : {}), engineVersion: out.engineVersion, workers: out.workers,
   };
 }
 

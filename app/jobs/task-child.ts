@@ -6,7 +6,7 @@
  */
 import type { LiftCandidate, MultiModularInput, ProofBatch } from "@domain/algebra/f4/multimodular";
 import type { ImageTracing, ModularImage } from "@domain/algebra/f4/multimodular";
-import { decodeImageTrace, encodeImage, encodeImageBatch, imageModPrime, proveBatch } from "@domain/algebra/f4/multimodular";
+import { decodeImageTrace, encodeImage, encodeImageBatch, imageModPrime, isDeclinedOnly, proveBatch } from "@domain/algebra/f4/multimodular";
 import { Limits } from "@domain/algebra/groebner/limits";
 
 export type TaskRequest =
@@ -54,14 +54,22 @@ process.on("message", (raw) => {
       const input = keep(inputs, req.runId, req.input);
       const tracing = keep(tracings, req.runId, { trace: undefined, replayed: 0, declined: 0 });
       // The coordinator's learnt run, when it stored one: replayed from the first prime on.
-      if (req.trace && tracing.trace === undefined) tracing.trace = decodeImageTrace(input, req.trace);
+      if (req.trace && tracing.trace === undefined) {
+        tracing.trace = decodeImageTrace(input, req.trace);
+        // The same trace as every process of the run: a prime where it declines is left to the
+        // lift to set aside (ModularImage.declined), not computed afresh, while declines are rare
+        // here; a trace that declines often gets its images computed afresh (and combined).
+        tracing.onDecline = () => tracing.declined <= 1 + tracing.replayed / 4;
+      }
       const before = tracing.replayed;
       const images = req.primes.map((p) => imageModPrime(input, p, limits, undefined, undefined, tracing));
       const like = lastImage.get(req.runId);
       const first = like && like.p > images[0].p ? like : undefined;
       const bytes = images.length === 1 ? encodeImage(images[0], first) : encodeImageBatch(images, first);
       lastImage.delete(req.runId);
-      keep(lastImage, req.runId, images[images.length - 1]);
+      const computed = images.filter((im) => !isDeclinedOnly(im));
+      if (computed.length > 0) keep(lastImage, req.runId, computed[computed.length - 1]);
+      else if (like) keep(lastImage, req.runId, like);
       reply = { kind: "image", bytes, ms: Date.now() - t0, replayed: tracing.replayed - before };
     } else {
       const input = keep(inputs, req.runId, req.input);

@@ -20,7 +20,8 @@ export function DistributedRuns({ runs }: { runs: DistributedRunView[] }) {
             </span>
             {r.primesUsed.length > 0 && (
               <span className="block text-xs text-muted">
-                {r.primesUsed.length} primes lifted{r.unluckyPrimes.length > 0 ? `, ${r.unluckyPrimes.length} set aside as unlucky` : ""}; engine {r.engineVersion}
+                {r.primesUsed.length} primes lifted{r.unluckyPrimes.length > 0 ? `, ${r.unluckyPrimes.length} set aside as unlucky` : ""}
+                {r.declinedPrimes.length > 0 ? `, ${r.declinedPrimes.length} set aside where the replayed F4 run declined` : ""}; engine {r.engineVersion}
               </span>
             )}
           </li>

@@ -2,7 +2,7 @@ import { spawn, type ChildProcess } from "node:child_process";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { PolynomialRing, QQ, groebnerBasis } from "@domain/algebra/index";
 import type { ImageTracing } from "@domain/algebra/f4/multimodular";
-import { encodeImageTrace, imageModPrime, liftPrimes, multiModularInput } from "@domain/algebra/f4/multimodular";
+import { ImageLifter, encodeImageTrace, imageModPrime, liftPrimes, multiModularInput } from "@domain/algebra/f4/multimodular";
 import { Limits } from "@domain/algebra/groebner/limits";
 import { createTestDatabase, hasTestDatabase, type TestDatabase } from "../support/test-db";
 import { waitFor } from "./fixtures";
@@ -102,6 +102,28 @@ describe.skipIf(!hasTestDatabase)("distributed multi-modular basis", () => {
       const [, got, of] = /(\d+) of (\d+) replayed/.exec(l)!;
       expect(got, l).toBe(of);
     }
+    for (const w of workers.splice(0)) await w.stop();
+  }, 120_000);
+
+  it("a prime where the stored trace declines is set aside by the workers' images as by the single-process lift: same primes, same basis", async () => {
+    workers.push(await start());
+    const R = new PolynomialRing(["x", "y", "z"], QQ, "grevlex");
+    // The third lift prime as a constant term: the learnt run declines there (tests/domain/algebra/f4/declined-primes.test.ts).
+    const q = [...liftPrimes(multiModularInput([R.parse("x")]))][2];
+    const polys = [`x^2 + y*z + 1`, `y^2 + x*z - ${q}`, `z^2 + x*y - 3`].map((s) => R.parse(s));
+    const input = multiModularInput(polys);
+    const tracing: ImageTracing = { trace: undefined, replayed: 0, declined: 0 };
+    const image = imageModPrime(input, liftPrimes(input).next().value as number, new Limits(), undefined, undefined, tracing);
+    const out = await distributedGroebner(input, { db: t.db, databaseUrl: t.url, coordinatorId: "test-coordinator", window: 2, pairBatches: 2, firstImage: { image, ms: 1, trace: encodeImageTrace(input, tracing.trace!) } });
+    expect(out.basis).toEqual(groebnerBasis(polys, { method: "buchberger" }).map((g) => R.format(g)));
+    expect(out.declined).toEqual([q]);
+    // The single-process lift, deciding declines the same way, uses the same primes.
+    const lifter = new ImageLifter(multiModularInput(polys));
+    const own: ImageTracing = { trace: undefined, replayed: 0, declined: 0, onDecline: () => lifter.takesDecline() };
+    let cand = null;
+    for (const p of liftPrimes(input)) if ((cand = lifter.add(imageModPrime(input, p, new Limits(), undefined, undefined, own)))) break;
+    expect(out.primes).toEqual(cand!.primes);
+    expect(out.unlucky).toEqual(cand!.unlucky);
     for (const w of workers.splice(0)) await w.stop();
   }, 120_000);
 
