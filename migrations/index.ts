@@ -8,6 +8,7 @@ import * as analysisRuns from "./20261202131000_analysis_runs";
 import * as networkStructures from "./20261202140000_network_structures";
 import * as distributedBases from "./20261202160000_distributed_bases";
 import * as basisRunTraces from "./20261204180000_basis_run_traces";
+import * as basisRunIntegerCandidates from "./20261204220000_basis_run_integer_candidates";
 
 /**
  * Every migration, keyed by its file name without extension, in the order they run.
@@ -24,4 +25,5 @@ export const migrations: Record<string, Migration> = {
   "20261202140000_network_structures": networkStructures,
   "20261202160000_distributed_bases": distributedBases,
   "20261204180000_basis_run_traces": basisRunTraces,
+  "20261204220000_basis_run_integer_candidates": basisRunIntegerCandidates,
 };

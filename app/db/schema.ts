@@ -133,6 +133,8 @@ export interface BasisRunsTable {
   candidate: JSONColumnType<JsonObject | null, JsonObject | null | undefined, JsonObject | null>;
   /** The F4 run learnt at the first prime, for the workers to replay (encodeImageTrace); null if none. */
   trace: ColumnType<Buffer | null, Buffer | null | undefined, Buffer | null>;
+  /** The candidate primitive over Z, for the proof batches (encodeIntegerCandidate); null if none. */
+  candidate_integer: ColumnType<Buffer | null, Buffer | null | undefined, Buffer | null>;
   error: string | null;
   created_at: CreatedAt;
   finished_at: NullableTimestamp;
@@ -315,7 +317,7 @@ export const DATABASE_COLUMNS = {
   ],
   basis_runs: [
     "id", "analysis_id", "input", "status", "coordinator", "engine_version", "images_done", "images_needed", "primes_used",
-    "unlucky_primes", "candidate", "trace", "error", "created_at", "finished_at",
+    "unlucky_primes", "candidate", "trace", "candidate_integer", "error", "created_at", "finished_at",
   ],
   basis_tasks: [
     "id", "run_id", "kind", "seq", "prime", "batch", "status", "worker_id", "attempts", "image", "bytes", "ok", "failed_step",

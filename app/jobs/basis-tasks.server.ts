@@ -10,6 +10,7 @@ import { sql } from "kysely";
 import type { LiftCandidate, MultiModularInput, ProofBatch } from "@domain/algebra/f4/multimodular";
 import type { DbExecutor } from "~/db/schema";
 import { IMAGE_QUEUE, getBoss, type TaskMessage } from "./queue.server";
+import type { TaskRequest } from "./task-child";
 import type { TaskRunner } from "./task-runner.server";
 
 export interface TaskContext {
@@ -31,17 +32,38 @@ export async function processTask(db: DbExecutor, message: TaskMessage, ctx: Tas
     .returningAll()
     .executeTakeFirst();
   if (!task) return "skipped (done, or its run has ended)";
-  const run = await db.selectFrom("basis_runs").select(["input", "candidate"]).where("id", "=", task.run_id).executeTakeFirstOrThrow();
+  // Not the candidate itself (megabytes on large runs): a task process gets it once (proofRequest).
+  const run = await db.selectFrom("basis_runs")
+    .select(["input", sql<number | null>`(candidate->>'checkedWith')::int`.as("checked_with"), sql<boolean>`candidate_integer IS NOT NULL`.as("has_integer")])
+    .where("id", "=", task.run_id).executeTakeFirstOrThrow();
   const input = run.input as unknown as MultiModularInput;
   const deadline = Date.now() + 24 * 3600_000; // the run's own limit stops it (it is cancelled at the analysis' limit)
   // The run's learnt F4 trace, with the first image task this worker's task process gets of the run.
   const trace = task.kind === "image" && ctx.runner.needsTrace(task.run_id)
     ? ((await db.selectFrom("basis_runs").select("trace").where("id", "=", task.run_id).executeTakeFirst())?.trace ?? null)
     : undefined;
-  const request =
+  const asBytes = (b: Buffer) => new Uint8Array(b.buffer, b.byteOffset, b.byteLength);
+  /**
+   * A proof batch's request. The early step-3 check carries its leading monomials; a batch of the
+   * run's candidate carries, the first time this task process meets it (or `full`: it no longer
+   * has it), its integer form (the run stores one unless its proof is by Hilbert series) or else
+   * its text; otherwise only the candidate's key.
+   */
+  const proofRequest = async (full: boolean): Promise<TaskRequest> => {
+    const base = { kind: "proof", runId: task.run_id, input, batch: task.batch as unknown as ProofBatch, deadline } as const;
+    const early = earlyCheckCandidate(task.batch, task.seq);
+    if (early) return { ...base, candidate: early };
+    const key: LiftCandidate = { basis: [], primes: [], unlucky: [], checkedWith: run.checked_with ?? 0 };
+    const cacheKey = `${task.run_id}:${key.checkedWith}`;
+    if (!full && !ctx.runner.needsCandidate(cacheKey)) return { ...base, candidate: key };
+    ctx.runner.candidateSent(cacheKey);
+    const stored = await db.selectFrom("basis_runs").select(run.has_integer ? ["candidate_integer"] : ["candidate"]).where("id", "=", task.run_id).executeTakeFirstOrThrow() as { candidate_integer?: Buffer | null; candidate?: unknown };
+    return stored.candidate_integer ? { ...base, candidate: key, integer: asBytes(stored.candidate_integer) } : { ...base, candidate: stored.candidate as LiftCandidate };
+  };
+  const request: TaskRequest =
     task.kind === "image"
-      ? ({ kind: "image", runId: task.run_id, input, primes: imagePrimes(task), deadline, ...(trace === undefined ? {} : { trace: trace && new Uint8Array(trace.buffer, trace.byteOffset, trace.byteLength) }) } as const)
-      : ({ kind: "proof", runId: task.run_id, input, candidate: proofCandidate(task.batch, run.candidate, task.seq), batch: task.batch as unknown as ProofBatch, deadline } as const);
+      ? { kind: "image", runId: task.run_id, input, primes: imagePrimes(task), deadline, ...(trace === undefined ? {} : { trace: trace && asBytes(trace) }) }
+      : await proofRequest(false);
   let runEnded = false;
   const beat = setInterval(() => {
     void db
@@ -57,7 +79,7 @@ export async function processTask(db: DbExecutor, message: TaskMessage, ctx: Tas
       })
       .catch(() => undefined);
   }, ctx.heartbeatMs);
-  const pending = ctx.runner.run(request);
+  const pending = ctx.runner.run(request).then(async (r) => (r.kind === "needs-candidate" ? ctx.runner.run(await proofRequest(true)) : r));
   ctx.onTaskStarted?.(task.id);
   let reply;
   try {
@@ -71,6 +93,7 @@ export async function processTask(db: DbExecutor, message: TaskMessage, ctx: Tas
     return `${task.kind} ${task.id}: its run ended; stopped`;
   }
   if (reply.kind === "error") throw new Error(`${task.kind} task ${task.id}: ${reply.message}`);
+  if (reply.kind === "needs-candidate") throw new Error(`proof task ${task.id}: the task process did not keep the candidate it was sent`);
   if (reply.kind === "image") {
     const bytes = Buffer.from(reply.bytes.buffer, reply.bytes.byteOffset, reply.bytes.byteLength);
     await mine().set({ status: "done", image: bytes, bytes: bytes.byteLength, compute_ms: reply.ms, finished_at: sql`now()` }).execute();
@@ -87,11 +110,10 @@ export function imagePrimes(task: { prime: number | null; batch: unknown }): num
   return Array.isArray(primes) && primes.length > 0 ? primes : [task.prime!];
 }
 
-/** The candidate a proof batch is about: the run's, or for the early step-3 check the first image's leading monomials (kept in the batch). */
-function proofCandidate(batch: unknown, runCandidate: unknown, seq: number): LiftCandidate {
+/** For the early step-3 check, the candidate it is about: the first image's leading monomials (kept in the batch); else null. */
+function earlyCheckCandidate(batch: unknown, seq: number): LiftCandidate | null {
   const leads = (batch as { leads?: string[] } | null)?.leads;
-  if (leads) return { basis: leads, primes: [], unlucky: [], checkedWith: -1 - seq };
-  return runCandidate as LiftCandidate;
+  return leads ? { basis: leads, primes: [], unlucky: [], checkedWith: -1 - seq } : null;
 }
 
 /**

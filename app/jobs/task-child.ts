@@ -6,18 +6,24 @@
  */
 import type { LiftCandidate, MultiModularInput, ProofBatch } from "@domain/algebra/f4/multimodular";
 import type { ImageTracing, ModularImage } from "@domain/algebra/f4/multimodular";
-import { decodeImageTrace, encodeImage, encodeImageBatch, imageModPrime, isDeclinedOnly, proveBatch } from "@domain/algebra/f4/multimodular";
+import { adoptIntegerCandidate, decodeImageTrace, encodeImage, encodeImageBatch, imageModPrime, isDeclinedOnly, proveBatch } from "@domain/algebra/f4/multimodular";
 import { Limits } from "@domain/algebra/groebner/limits";
 
 export type TaskRequest =
   /** `trace`: the run's stored trace (null: it has none), sent with a run's first task to this process. */
   | { kind: "image"; runId: string; input: MultiModularInput; primes: number[]; deadline: number; trace?: Uint8Array | null }
-  | { kind: "proof"; runId: string; input: MultiModularInput; candidate: LiftCandidate; batch: ProofBatch; deadline: number };
+  /**
+   * `integer`: the candidate's integer form (encodeIntegerCandidate), sent with the first batch of
+   * a candidate to this process, whose `candidate.basis` may then be empty; a later batch sends
+   * the candidate without either, and gets `needs-candidate` back if this process no longer has it.
+   */
+  | { kind: "proof"; runId: string; input: MultiModularInput; candidate: LiftCandidate; integer?: Uint8Array; batch: ProofBatch; deadline: number };
 
 export type TaskReply =
   /** `replayed`: of this task's primes, how many the run's trace gave (the others ran F4 afresh). */
   | { kind: "image"; bytes: Uint8Array; ms: number; replayed: number }
   | { kind: "proof"; ok: boolean; failed?: string; ms: number }
+  | { kind: "needs-candidate" }
   | { kind: "error"; message: string };
 
 // The same input object for every task of a run, so the domain's per-input cache (ring, integer
@@ -73,9 +79,15 @@ process.on("message", (raw) => {
       reply = { kind: "image", bytes, ms: Date.now() - t0, replayed: tracing.replayed - before };
     } else {
       const input = keep(inputs, req.runId, req.input);
-      const candidate = keep(candidates, `${req.runId}:${req.candidate.checkedWith}`, req.candidate);
-      const outcome = proveBatch(input, candidate, req.batch, limits);
-      reply = { kind: "proof", ok: outcome.ok, ...(outcome.ok ? {} : { failed: outcome.failed }), ms: Date.now() - t0 };
+      const key = `${req.runId}:${req.candidate.checkedWith}`;
+      if (req.candidate.basis.length === 0 && !req.integer && !candidates.has(key)) {
+        reply = { kind: "needs-candidate" };
+      } else {
+        const candidate = keep(candidates, key, req.candidate);
+        if (req.integer) adoptIntegerCandidate(input, candidate, req.integer);
+        const outcome = proveBatch(input, candidate, req.batch, limits);
+        reply = { kind: "proof", ok: outcome.ok, ...(outcome.ok ? {} : { failed: outcome.failed }), ms: Date.now() - t0 };
+      }
     }
   } catch (e) {
     reply = { kind: "error", message: (e as Error).message ?? String(e) };

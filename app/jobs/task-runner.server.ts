@@ -17,9 +17,12 @@ export class TaskRunner {
   private pending: { resolve: (r: TaskReply) => void } | null = null;
   /** Runs whose stored trace (if any) this task process has been sent: it keeps it, so once is enough. */
   private traceSent = new Set<string>();
+  /** Candidates (run:checkedWith) this task process has been sent in full or as integer form. */
+  private candidatesSent = new Set<string>();
 
   private spawn(): ChildProcess {
     this.traceSent = new Set();
+    this.candidatesSent = new Set();
     const child = fork(CHILD, [], {
       execArgv: ["--import", "tsx"],
       stdio: ["ignore", "ignore", "inherit", "ipc"],
@@ -53,6 +56,18 @@ export class TaskRunner {
   /** Whether the next image task of `runId` must carry the run's stored trace (this process has not had it). */
   needsTrace(runId: string): boolean {
     return !(this.child && this.traceSent.has(runId));
+  }
+
+  /** Whether a proof batch of candidate `key` must carry the candidate (this process has not had it). */
+  needsCandidate(key: string): boolean {
+    return !(this.child && this.candidatesSent.has(key));
+  }
+
+  /** Notes that the next request carries candidate `key` (the process keeps it; it may drop old ones and say so). */
+  candidateSent(key: string): void {
+    this.child ??= this.spawn();
+    this.candidatesSent.add(key);
+    while (this.candidatesSent.size > 6) this.candidatesSent.delete(this.candidatesSent.values().next().value!);
   }
 
   run(req: TaskRequest): Promise<TaskReply> {

@@ -142,7 +142,7 @@ async function measure(name: string, root: string, url: string, db: ReturnType<t
       const ok = JSON.stringify(basis) === JSON.stringify(want);
       same &&= ok;
       byWorkers.push({ workers: k, wallMs, outcome, timeline: await timelineOf(db, outcome.runId) });
-      console.log(`  ${k} worker${k === 1 ? "" : "s"}: ${(wallMs / 1000).toFixed(2)} s (images ${(outcome.timings.imagesMs / 1000).toFixed(2)} s, lift ${(outcome.timings.liftMs / 1000).toFixed(2)} s of it, proof ${(outcome.timings.proofMs / 1000).toFixed(2)} s); ${outcome.primes.length} primes used; ${Math.round(outcome.meanImageBytes)} bytes/image; enqueue→start median ${Math.round(outcome.medianWaitMs)} ms (pick-up ${Math.round(outcome.medianPickupMs)} ms); basis ${ok ? "same" : "DIFFERS"}`);
+      console.log(`  ${k} worker${k === 1 ? "" : "s"}: ${(wallMs / 1000).toFixed(2)} s (images ${(outcome.timings.imagesMs / 1000).toFixed(2)} s, lift ${(outcome.timings.liftMs / 1000).toFixed(2)} s of it, proof ${(outcome.timings.proofMs / 1000).toFixed(2)} s); ${outcome.primes.length} primes used${outcome.declined.length ? ` (${outcome.declined.length} set aside where the trace declined)` : ""}; ${Math.round(outcome.meanImageBytes)} bytes/image; enqueue→start median ${Math.round(outcome.medianWaitMs)} ms (pick-up ${Math.round(outcome.medianPickupMs)} ms); basis ${ok ? "same" : "DIFFERS"}`);
       const split = Object.values(outcome.computeByWorker ?? {}).map((w) => `${w.tasks} tasks / ${(w.ms / 1000).toFixed(2)} s`);
       console.log(`    work per worker (compute time inside the task processes): ${split.join("; ")}`);
     } finally {

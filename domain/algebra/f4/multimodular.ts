@@ -550,10 +550,93 @@ function hFreeAt(pr: Prepared, p: number, limits: Limits): HFreeLeads {
 function candidatePolys(pr: Prepared, candidate: LiftCandidate): Polynomial<Rational>[] {
   let G = pr.parsed.get(candidate);
   if (!G) {
+    // A candidate sent without its text (adoptIntegerCandidate) serves only the batches that need none.
+    if (candidate.basis.length === 0) throw new AlgebraError("domain", "multi-modular proof: this batch needs the candidate's text, which was not sent");
     G = candidate.basis.map((s) => pr.ring.parse(s));
     pr.parsed.set(candidate, G);
   }
   return G;
+}
+
+/** The candidate primitive over Z and sorted, as the proof batches reduce with it (made once per process). */
+function integerCandidatePolys(pr: Prepared, candidate: LiftCandidate, limits: Limits): EPoly<bigint>[] {
+  let Gz = pr.integerCandidates.get(candidate);
+  if (!Gz) {
+    Gz = candidatePolys(pr, candidate).map((g) => {
+      const z = clearDenominators(toEngine(g));
+      integerCoefficients.normalize(z.coeffs, () => limits.checkTime()); // primitive: smaller numbers in the reductions
+      return z;
+    });
+    Gz.sort((a, b) => pr.ring.cmp(a.exps, 0, b.exps, 0));
+    pr.integerCandidates.set(candidate, Gz); // the next batch in this process starts from here
+  }
+  return Gz;
+}
+
+/** First word of encodeIntegerCandidate's bytes. */
+const INTEGER_CANDIDATE_FORMAT = 0x5a43_0001;
+
+/**
+ * The candidate as the S-pair, input and membership batches use it (primitive over Z, sorted), as
+ * bytes for the workers: header (format, n, elements, terms, text bytes), each element's length,
+ * the exponent vectors, then the coefficients as signed hexadecimal text separated by commas.
+ * A worker loads it with adoptIntegerCandidate instead of parsing the candidate's text and making
+ * it primitive (katsura-8: 1.6 MB of text, ~370 ms in a fresh process, in every worker). The
+ * coordinator derives both the text and these bytes from the same lifted polynomials.
+ */
+export function encodeIntegerCandidate(input: MultiModularInput, candidate: LiftCandidate, limits: Limits): Uint8Array {
+  const pr = preparedFor(input);
+  const Gz = integerCandidatePolys(pr, candidate, limits);
+  const S = pr.ring.n + 1;
+  let terms = 0;
+  for (const g of Gz) terms += g.coeffs.length;
+  const text = new TextEncoder().encode(Gz.map((g) => g.coeffs.map((c) => (c < 0n ? "-" + (-c).toString(16) : c.toString(16))).join(",")).join(","));
+  const head = new Int32Array(5 + Gz.length + terms * S);
+  head.set([INTEGER_CANDIDATE_FORMAT, pr.ring.n, Gz.length, terms, text.byteLength]);
+  let at = 5 + Gz.length;
+  Gz.forEach((g, i) => {
+    head[5 + i] = g.coeffs.length;
+    head.set(g.exps.subarray(0, g.coeffs.length * S), at);
+    at += g.coeffs.length * S;
+  });
+  const out = new Uint8Array(head.byteLength + text.byteLength);
+  out.set(new Uint8Array(head.buffer), 0);
+  out.set(text, head.byteLength);
+  return out;
+}
+
+/**
+ * Makes encodeIntegerCandidate's bytes the integer form of `candidate` in this process, so that
+ * proveBatch's pairs, inputs and membership batches use them without the text (`candidate.basis`
+ * may then be empty; a batch that needs the text says so). Throws on bytes of another shape.
+ */
+export function adoptIntegerCandidate(input: MultiModularInput, candidate: LiftCandidate, bytes: Uint8Array): void {
+  const pr = preparedFor(input);
+  const n = pr.ring.n, S = n + 1;
+  const bad = () => new AlgebraError("domain", "multi-modular proof: the candidate's integer form does not match its header or this input");
+  if (bytes.byteLength < 20) throw bad();
+  const copy = new Uint8Array(bytes.byteLength);
+  copy.set(bytes); // aligned, whatever the offset the database driver gave
+  const word = new DataView(copy.buffer);
+  const [format, nv, elems, terms, textBytes] = [0, 1, 2, 3, 4].map((i) => word.getInt32(4 * i, true));
+  const headWords = 5 + elems + terms * S;
+  if (format !== INTEGER_CANDIDATE_FORMAT || nv !== n || elems < 1 || terms < elems || copy.byteLength !== 4 * headWords + textBytes) throw bad();
+  const head = new Int32Array(copy.buffer, 0, headWords);
+  const coeffs = new TextDecoder().decode(copy.subarray(4 * headWords)).split(",");
+  if (coeffs.length !== terms) throw bad();
+  const Gz: EPoly<bigint>[] = [];
+  let at = 5 + elems, t = 0;
+  for (let i = 0; i < elems; i++) {
+    const len = head[5 + i];
+    if (len < 1 || t + len > terms) throw bad();
+    const exps = head.slice(at, at + len * S);
+    at += len * S;
+    const cs = coeffs.slice(t, t + len).map((h) => (h.startsWith("-") ? -BigInt("0x" + h.slice(1)) : BigInt("0x" + h)));
+    t += len;
+    Gz.push({ coeffs: cs, exps });
+  }
+  if (t !== terms) throw bad();
+  pr.integerCandidates.set(candidate, Gz);
 }
 
 /** Proves one batch of proofBatches exactly (see multiModularGroebnerQQ's docblock for why it suffices). */
@@ -561,21 +644,12 @@ export function proveBatch(input: MultiModularInput, candidate: LiftCandidate, b
   const pr = preparedFor(input);
   const ring = pr.ring;
   const n = ring.n, cmp = ring.cmp, K = integerCoefficients;
-  const G = candidatePolys(pr, candidate);
   if (batch.kind === "hilbert") {
-    return leadsCovered(G.map((g) => g.exps), hFreeAt(pr, batch.p, limits)) ? { ok: true } : { ok: false, failed: "hilbert" };
+    const leads = pr.integerCandidates.get(candidate) ?? candidatePolys(pr, candidate);
+    return leadsCovered(leads.map((g) => g.exps), hFreeAt(pr, batch.p, limits)) ? { ok: true } : { ok: false, failed: "hilbert" };
   }
-  let Gz = pr.integerCandidates.get(candidate);
-  if (!Gz) {
-    Gz = G.map((g) => {
-      const z = clearDenominators(toEngine(g));
-      K.normalize(z.coeffs, () => limits.checkTime()); // primitive: smaller numbers in the reductions
-      return z;
-    });
-    Gz.sort((a, b) => cmp(a.exps, 0, b.exps, 0));
-    pr.integerCandidates.set(candidate, Gz); // the next batch in this process starts from here
-  }
-  if (batch.kind === "series") return proveSeriesBatch(pr, G, Gz, batch, limits) ? { ok: true } : { ok: false, failed: "series" };
+  const Gz = integerCandidatePolys(pr, candidate, limits);
+  if (batch.kind === "series") return proveSeriesBatch(pr, candidatePolys(pr, candidate), Gz, batch, limits) ? { ok: true } : { ok: false, failed: "series" };
   if (batch.kind === "pairs") {
     return verifyGroebner(Gz, K, n, cmp, limits, { index: batch.index, of: batch.of }) ? { ok: true } : { ok: false, failed: "groebner" };
   }
