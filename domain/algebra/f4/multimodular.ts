@@ -103,6 +103,17 @@ interface Lifted {
   vals: bigint[];
   /** Each coefficient's last reconstruction (guidedReconstruction tries it first on the next prime). */
   rats: (Rational | undefined)[];
+  /**
+   * Whether rats[i] is still ≡ vals[i] modulo the group's M: kept up to date one prime at a time
+   * by combine (num ≡ residue·den mod p, word arithmetic), so that reconstruct takes such a
+   * coefficient as it is instead of checking it modulo M with long numbers on every attempt.
+   */
+  sure: boolean[];
+  /** The last image's monomials of this element and their indices here (images on one support share the array). */
+  lastMons?: Int32Array;
+  lastIdx?: Int32Array;
+  /** Whether lastMons covers every monomial of `mons`. */
+  lastCovers?: boolean;
 }
 
 interface Group {
@@ -493,7 +504,7 @@ export class ImageLifter {
       this.fresh = null;
       if (group && group.candidate && agreesModP(group.candidate, Gp, image.p)) return this.toCandidate(group, image.p);
       if (!group) {
-        group = { count: 0, M: 1n, elems: Gp.map(() => ({ mons: [], index: new Map(), vals: [], rats: [] })), candidate: null, failedAt: [0, 0], retryBits: 0, primes: [] };
+        group = { count: 0, M: 1n, elems: Gp.map(() => ({ mons: [], index: new Map(), vals: [], rats: [], sure: [] })), candidate: null, failedAt: [0, 0], retryBits: 0, primes: [] };
         this.groups.set(key, group);
       }
       this.seen.push(image.p);
@@ -974,20 +985,36 @@ function dropZeros(mons: Int32Array, coeffs: Int32Array): F4Poly {
 
 /** Adds the residues of G mod p to the group's lifted coefficients (CRT). */
 function combine(group: Group, Gp: readonly F4Poly[], p: number): void {
-  const M = group.M;
-  const mInv = group.count === 0 ? 0 : invModP(Number(M % BigInt(p)), p);
+  const M = group.M, P = BigInt(p);
+  const mInv = group.count === 0 ? 0 : invModP(Number(M % P), p);
   Gp.forEach((g, e) => {
     const L = group.elems[e];
-    const seen = new Set<number>();
-    for (let t = 0; t < g.mons.length; t++) {
-      const m = g.mons[t];
-      seen.add(m);
-      let i = L.index.get(m);
-      if (i === undefined) { i = L.mons.length; L.index.set(m, i); L.mons.push(m); L.vals.push(0n); }
-      L.vals[i] = group.count === 0 ? BigInt(g.coeffs[t]) : crtStep(L.vals[i], M, g.coeffs[t], p, mInv);
+    let idx: Int32Array, covers: boolean;
+    if (L.lastMons === g.mons && L.lastIdx && L.lastCovers !== undefined && L.lastIdx.length === g.mons.length) {
+      idx = L.lastIdx;
+      covers = L.lastCovers;
+    } else {
+      idx = new Int32Array(g.mons.length);
+      for (let t = 0; t < g.mons.length; t++) {
+        const m = g.mons[t];
+        let i = L.index.get(m);
+        if (i === undefined) { i = L.mons.length; L.index.set(m, i); L.mons.push(m); L.vals.push(0n); L.sure.push(false); }
+        idx[t] = i;
+      }
+      covers = new Set(idx).size === L.mons.length;
+      L.lastMons = g.mons; L.lastIdx = idx; L.lastCovers = covers;
     }
-    if (group.count > 0) {
-      for (let i = 0; i < L.mons.length; i++) if (!seen.has(L.mons[i])) L.vals[i] = crtStep(L.vals[i], M, 0, p, mInv);
+    const step = (i: number, residue: number) => {
+      L.vals[i] = group.count === 0 ? BigInt(residue) : crtStep(L.vals[i], M, residue, p, mInv, P);
+      const r = L.rats[i];
+      if (L.sure[i] && r) L.sure[i] = agreesWithResidue(r, residue, p, P);
+    };
+    if (covers) {
+      for (let t = 0; t < idx.length; t++) step(idx[t], g.coeffs[t]);
+    } else {
+      const residues = new Float64Array(L.mons.length); // the image's coefficient, 0 where it has no term
+      for (let t = 0; t < idx.length; t++) residues[idx[t]] = g.coeffs[t];
+      for (let i = 0; i < L.mons.length; i++) step(i, residues[i]);
     }
   });
   group.M = M * BigInt(p);
@@ -1012,8 +1039,11 @@ function reconstruct(group: Group, tick: () => void): { mons: number[]; coeffs: 
     let den = 1n;
     for (let i = 0; i < L.vals.length; i++) {
       if ((i & 255) === 0) tick();
-      const r = guidedReconstruction(L.vals[i], M, logm, L.rats[i], den);
+      const prev = L.rats[i];
+      // Still ≡ vals[i] mod M (combine checked it prime by prime): what guidedReconstruction would return.
+      const r = L.sure[i] && prev && prev.num !== 0n ? prev : guidedReconstruction(L.vals[i], M, logm, prev, den);
       if (r === null) { group.failedAt = [e, i]; group.retryBits = Math.floor(logm * RETRY_GROWTH); return null; }
+      if (r !== prev || !L.sure[i]) L.sure[i] = r.num !== 0n && (r.num - L.vals[i] * r.den) % M === 0n;
       L.rats[i] = r;
       if (r.num === 0n) continue;
       if (den % r.den !== 0n) den = (den / gcdBig(den, r.den)) * r.den;
@@ -1023,6 +1053,13 @@ function reconstruct(group: Group, tick: () => void): { mons: number[]; coeffs: 
     out.push({ mons, coeffs });
   }
   return out;
+}
+
+/** Whether n/d ≡ residue (mod p), as n ≡ residue·d: a product below 2^52, exact in a double. */
+function agreesWithResidue(r: Rational, residue: number, p: number, P: bigint): boolean {
+  let n = Number(r.num % P);
+  if (n < 0) n += p;
+  return n === (residue * Number(r.den % P)) % p;
 }
 
 function agreesModP(cand: readonly { mons: number[]; coeffs: Rational[] }[], Gp: readonly F4Poly[], p: number): boolean {

@@ -7,8 +7,8 @@ import type { Rational } from "../rational";
  * x with x ≡ a (mod M) and x ≡ b (mod p), 0 ≤ x < M·p, given mInvP = M^{-1} mod p (Chinese
  * remainder theorem, Garner's form). Example: crtStep(2n, 3n, 1, 5, 2) is 11n (11 ≡ 2 mod 3, ≡ 1 mod 5).
  */
-export function crtStep(a: bigint, M: bigint, b: number, p: number, mInvP: number): bigint {
-  const ap = Number(a % BigInt(p));
+export function crtStep(a: bigint, M: bigint, b: number, p: number, mInvP: number, P: bigint = BigInt(p)): bigint {
+  const ap = Number(a % P);
   let d = b - ap;
   if (d < 0) d += p;
   if (d === 0) return a;
