@@ -87,7 +87,9 @@ const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 /** Work per image task once the first image's time is known (ms), and the most primes one task takes. */
 const TASK_TARGET_MS = 300;
-const MAX_IMAGES_PER_TASK = 16;
+const MAX_IMAGES_PER_TASK = 64;
+/** How often the images' progress is written and the early step-3 check looked up (ms). */
+const PROGRESS_EVERY_MS = 100;
 
 export async function distributedGroebner(input: MultiModularInput, o: CoordinatorOptions): Promise<DistributedOutcome> {
   const { db } = o;
@@ -149,7 +151,12 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
     (await db.selectFrom("basis_tasks").select("worker_id").distinct().where("run_id", "=", runId).where("worker_id", "is not", null).execute())
       .map((r) => r.worker_id!)
       .sort();
-  const progress = async (p: Omit<DistributedProgress, "runId" | "workers">) => {
+  // At most every PROGRESS_EVERY_MS while images arrive (the 4-site cycle lifts 744 images in under
+  // a second: two queries each would double that); always at a stage's end and in the proof.
+  let progressAt = 0;
+  const progress = async (p: Omit<DistributedProgress, "runId" | "workers">, force = true) => {
+    if (!force && Date.now() - progressAt < PROGRESS_EVERY_MS) return;
+    progressAt = Date.now();
     await db.updateTable("basis_runs").set({ images_done: p.imagesDone, images_needed: p.imagesNeeded }).where("id", "=", runId).execute();
     o.onProgress?.({ runId, ...p, workers: await workers() });
   };
@@ -174,6 +181,7 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
     // cannot succeed (the homogenised ideal is not saturated), stop before lifting, as the
     // single-process run does. Graded orders only; lex and block orders prove membership instead.
     let early: { id: string; batch: ProofBatch; leads: LiftCandidate } | null = null;
+    let earlyPassed = false, earlyLookedAt = 0;
     let proofSeq = 0;
     const batchKinds = proofBatches(input, { basis: [], primes: [], unlucky: [], checkedWith: 0 }, 1).map((b) => b.kind);
     let aborted: string | undefined;
@@ -191,13 +199,15 @@ export async function distributedGroebner(input: MultiModularInput, o: Coordinat
         await enqueueTask(o.databaseUrl, { taskId: row.id, runId }, { priority: 2_000_001, expireInSeconds: expire * 4 });
         early = { id: row.id, batch, leads };
       }
-      if (early) {
+      if (early && !earlyPassed && Date.now() - earlyLookedAt >= PROGRESS_EVERY_MS) {
+        earlyLookedAt = Date.now();
         const r = await db.selectFrom("basis_tasks").select(["status", "ok"]).where("id", "=", early.id).executeTakeFirstOrThrow();
         if (r.status === "done" && r.ok === false) { aborted = "hilbert"; break; }
+        earlyPassed = r.status === "done" && r.ok === true;
       }
       candidate = lifter.add(image);
       seq++;
-      await progress({ stage: "images", imagesDone: seq, imagesNeeded: candidate ? seq : null, proofDone: 0, proofBatches: 0 });
+      await progress({ stage: "images", imagesDone: seq, imagesNeeded: candidate ? seq : null, proofDone: 0, proofBatches: 0 }, candidate !== null);
     }
     if (!candidate && aborted) {
       await cancelRunJobs(db, o.databaseUrl, runId);
